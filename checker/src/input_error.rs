@@ -1,0 +1,61 @@
+//! The error type for unreadable input: says which file, where in it, and what
+//! was expected there.
+
+use std::fmt;
+
+/// Where in an input a problem was found.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Position {
+    /// 1-based line number.
+    Line(usize),
+    /// 0-based byte offset.
+    Byte(u64),
+    /// The input as a whole (for example, something missing at the end).
+    Whole,
+}
+
+/// A malformed or unreadable input.
+#[derive(Clone, Debug, PartialEq, Eq, thiserror::Error)]
+pub struct InputError {
+    pub source_name: String,
+    pub position: Position,
+    pub message: String,
+}
+
+impl InputError {
+    pub fn at_line(source_name: &str, line: usize, message: impl Into<String>) -> Self {
+        InputError {
+            source_name: source_name.to_string(),
+            position: Position::Line(line),
+            message: message.into(),
+        }
+    }
+
+    pub fn at_byte(source_name: &str, offset: u64, message: impl Into<String>) -> Self {
+        InputError {
+            source_name: source_name.to_string(),
+            position: Position::Byte(offset),
+            message: message.into(),
+        }
+    }
+
+    pub fn whole(source_name: &str, message: impl Into<String>) -> Self {
+        InputError {
+            source_name: source_name.to_string(),
+            position: Position::Whole,
+            message: message.into(),
+        }
+    }
+}
+
+impl fmt::Display for InputError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self.position {
+            Position::Line(line) => write!(f, "{}:{}: {}", self.source_name, line, self.message),
+            Position::Byte(offset) => {
+                write!(f, "{}: byte {}: {}", self.source_name, offset, self.message)
+            }
+            Position::Whole => write!(f, "{}: {}", self.source_name, self.message),
+        }
+    }
+}

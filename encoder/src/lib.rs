@@ -1,0 +1,27 @@
+//! The ramsift encoder: turns a Ramsey question ("is there an r-colouring of the
+//! edges of K_n with no monochromatic copy of the forbidden graph of each colour?")
+//! into a CNF formula whose models are exactly such colourings.
+//!
+//! * [`spec`] holds the problem specification ([`RamseySpec`], [`Instance`]).
+//! * [`edges`] numbers the edges of K_n; [`variables`] maps edges and colours to
+//!   CNF variables and decodes models back into a [`Colouring`].
+//! * [`clauses`] generates the clauses as a stream, so that large instances never
+//!   have to be held in memory.
+//! * [`dimacs`] writes the stream as DIMACS CNF, with a self-describing header.
+
+pub mod atomic_file;
+pub mod clauses;
+pub mod colouring;
+pub mod combinations;
+pub mod dimacs;
+pub mod edges;
+pub mod spec;
+pub mod variables;
+
+pub use clauses::{CliqueEncoding, EncodingLimits};
+pub use colouring::Colouring;
+pub use spec::{Forbidden, Instance, RamseySpec, SpecError};
+pub use variables::VariableMap;
+
+/// The version of this encoder, recorded in every file it writes.
+pub const VERSION: &str = env!("CARGO_PKG_VERSION");

@@ -1,0 +1,1 @@
+//! Published check values (filled below).
