@@ -8,7 +8,11 @@
 use crate::matrix::ColourMatrix;
 
 /// The lexicographically first k-clique in colour `colour`, if any.
-pub fn find_monochromatic_clique(matrix: &ColourMatrix, colour: u8, k: usize) -> Option<Vec<usize>> {
+pub fn find_monochromatic_clique(
+    matrix: &ColourMatrix,
+    colour: u8,
+    k: usize,
+) -> Option<Vec<usize>> {
     let n = matrix.order();
     if k == 0 {
         return Some(Vec::new());

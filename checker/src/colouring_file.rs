@@ -37,7 +37,10 @@ pub fn parse_colouring_file(name: &str, text: &str) -> Result<ColouringFile, Inp
         .filter(|(_, l)| !l.is_empty() && !l.starts_with('#'));
 
     let (header_line, header) = lines.next().ok_or_else(|| {
-        InputError::whole(name, format!("empty file: expected a header line starting with {MAGIC}"))
+        InputError::whole(
+            name,
+            format!("empty file: expected a header line starting with {MAGIC}"),
+        )
     })?;
     let (claim, order) = parse_header(name, header_line, header)?;
     let colours = claim.colours();
@@ -118,7 +121,11 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
     let mut order = None;
     for word in words {
         let (key, value) = word.split_once('=').ok_or_else(|| {
-            InputError::at_line(name, line_no, format!("header field {word:?} is not of the form key=value"))
+            InputError::at_line(
+                name,
+                line_no,
+                format!("header field {word:?} is not of the form key=value"),
+            )
         })?;
         match key {
             "spec" => {
@@ -147,8 +154,16 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
     }
     match (claim, order) {
         (Some(c), Some(n)) => Ok((c, n)),
-        (None, _) => Err(InputError::at_line(name, line_no, "header has no spec= field")),
-        (_, None) => Err(InputError::at_line(name, line_no, "header has no order= field")),
+        (None, _) => Err(InputError::at_line(
+            name,
+            line_no,
+            "header has no spec= field",
+        )),
+        (_, None) => Err(InputError::at_line(
+            name,
+            line_no,
+            "header has no order= field",
+        )),
     }
 }
 
@@ -156,7 +171,8 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
 mod tests {
     use super::*;
 
-    const PENTAGON: &str = "# the pentagon and its complement\nramsift-colouring spec=3,3 order=5\n\
+    const PENTAGON: &str =
+        "# the pentagon and its complement\nramsift-colouring spec=3,3 order=5\n\
         . 1 2 2 1\n1 . 1 2 2\n2 1 . 1 2\n2 2 1 . 1\n1 2 2 1 .\n";
 
     #[test]
@@ -180,12 +196,19 @@ mod tests {
         assert!(error_of("ramsift-colouring order=2\n").contains("no spec="));
         assert!(error_of("ramsift-colouring spec=3,3 order=0\n").contains("order=0"));
         assert!(error_of("ramsift-colouring spec=3 order=2\n").contains("spec"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2 x=1\n").contains("unknown header field"));
+        assert!(
+            error_of("ramsift-colouring spec=3,3 order=2 x=1\n").contains("unknown header field")
+        );
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n").contains("ends after 1"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 . 1\n").starts_with("f:3: row 1 has 3"));
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 . 1\n")
+            .starts_with("f:3: row 1 has 3"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n1 1\n1 .\n").contains("diagonal"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 3\n3 .\n").contains("colour from 1 to 2"));
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 3\n3 .\n")
+            .contains("colour from 1 to 2"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n2 .\n").contains("symmetric"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n").contains("after the 2 matrix rows"));
+        assert!(
+            error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n")
+                .contains("after the 2 matrix rows")
+        );
     }
 }

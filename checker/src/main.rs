@@ -70,7 +70,9 @@ fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
     let (claim, matrices): (Claim, Vec<ColourMatrix>) = if looks_like_colouring_file(&content) {
         let text = match std::str::from_utf8(&content) {
             Ok(t) => t,
-            Err(e) => return unreadable(format!("{name}: byte {}: not UTF-8 text", e.valid_up_to())),
+            Err(e) => {
+                return unreadable(format!("{name}: byte {}: not UTF-8 text", e.valid_up_to()))
+            }
         };
         let file = match parse_colouring_file(&name, text) {
             Ok(f) => f,
@@ -84,7 +86,9 @@ fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
             ));
         };
         if claim.colours() != 2 {
-            return unreadable("--forbid: a graph6 file describes two colours; give exactly two sizes");
+            return unreadable(
+                "--forbid: a graph6 file describes two colours; give exactly two sizes",
+            );
         }
         match decode_graph6_file(&name, &content) {
             Ok(m) => (claim, m),
@@ -92,7 +96,10 @@ fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
         }
     };
 
-    let verdicts: Vec<Verdict> = matrices.iter().map(|m| check_colouring(m, &claim)).collect();
+    let verdicts: Vec<Verdict> = matrices
+        .iter()
+        .map(|m| check_colouring(m, &claim))
+        .collect();
     let all_valid = verdicts.iter().all(Verdict::is_valid);
     if json {
         let items: Vec<String> = verdicts

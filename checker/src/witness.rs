@@ -38,7 +38,10 @@ impl fmt::Display for Verdict {
                 )
             }
             Verdict::ColourOutOfRange { colour, colours } => {
-                write!(f, "colour {colour} is used, but the claim has only {colours} colours")
+                write!(
+                    f,
+                    "colour {colour} is used, but the claim has only {colours} colours"
+                )
             }
         }
     }

@@ -19,9 +19,9 @@ pub fn write_atomically<T>(
         Some(p) if !p.as_os_str().is_empty() => p,
         _ => Path::new("."),
     };
-    let file_name = path
-        .file_name()
-        .ok_or_else(|| io::Error::new(io::ErrorKind::InvalidInput, "output path has no file name"))?;
+    let file_name = path.file_name().ok_or_else(|| {
+        io::Error::new(io::ErrorKind::InvalidInput, "output path has no file name")
+    })?;
     let mut prefix = std::ffi::OsString::from(".");
     prefix.push(file_name);
     prefix.push(".");

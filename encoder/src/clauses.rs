@@ -55,7 +55,8 @@ impl CliqueEncoding {
     /// Prepares the encoding, refusing instances over the limits.
     pub fn new(instance: &Instance, limits: &EncodingLimits) -> Result<Self, EncodeError> {
         let variables = VariableMap::new(instance.order(), instance.colours());
-        let var_count = (instance.order() as u128) * (instance.order() as u128) * instance.colours() as u128;
+        let var_count =
+            (instance.order() as u128) * (instance.order() as u128) * instance.colours() as u128;
         if var_count > i32::MAX as u128 {
             return Err(EncodeError::TooManyVariables {
                 instance: instance.to_string(),
@@ -109,7 +110,10 @@ impl CliqueEncoding {
     }
 
     /// Calls `emit` with every clause as DIMACS literals, in the documented order.
-    pub fn for_each_clause<E>(&self, mut emit: impl FnMut(&[i32]) -> Result<(), E>) -> Result<(), E> {
+    pub fn for_each_clause<E>(
+        &self,
+        mut emit: impl FnMut(&[i32]) -> Result<(), E>,
+    ) -> Result<(), E> {
         let n = self.instance.order();
         let r = self.instance.colours();
         let vars = &self.variables;
@@ -181,7 +185,8 @@ mod tests {
     #[test]
     fn refuses_instances_over_the_limit() {
         let instance = Instance::new(RamseySpec::cliques(&[5, 5]).unwrap(), 43).unwrap();
-        let err = CliqueEncoding::new(&instance, &EncodingLimits { max_clauses: 1000 }).unwrap_err();
+        let err =
+            CliqueEncoding::new(&instance, &EncodingLimits { max_clauses: 1000 }).unwrap_err();
         assert!(err.to_string().contains("1925196"), "{err}");
         let huge = Instance::new(RamseySpec::cliques(&[30, 30]).unwrap(), 1_000_000).unwrap();
         assert!(CliqueEncoding::new(&huge, &EncodingLimits::default()).is_err());

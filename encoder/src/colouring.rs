@@ -22,7 +22,11 @@ impl Colouring {
     }
 
     /// Builds a colouring from a function of the edge's endpoints (i < j).
-    pub fn from_fn(order: usize, colours: usize, mut colour_of: impl FnMut(usize, usize) -> u8) -> Self {
+    pub fn from_fn(
+        order: usize,
+        colours: usize,
+        mut colour_of: impl FnMut(usize, usize) -> u8,
+    ) -> Self {
         let mut colouring = Self::monochromatic(order, colours);
         for j in 0..order {
             for i in 0..j {
@@ -53,7 +57,10 @@ impl Colouring {
     }
 
     pub fn set(&mut self, a: usize, b: usize, colour: u8) {
-        assert!(colour >= 1 && colour as usize <= self.colours, "colour {colour} out of range");
+        assert!(
+            colour >= 1 && colour as usize <= self.colours,
+            "colour {colour} out of range"
+        );
         self.edge_colours[edge_index(a, b)] = colour;
     }
 

@@ -200,7 +200,10 @@ mod tests {
     #[test]
     fn parses_comma_lists() {
         let spec: RamseySpec = "4,4".parse().unwrap();
-        assert_eq!(spec.forbidden(), &[Forbidden::Clique(4), Forbidden::Clique(4)]);
+        assert_eq!(
+            spec.forbidden(),
+            &[Forbidden::Clique(4), Forbidden::Clique(4)]
+        );
         let spec: RamseySpec = " K3, k3 ,3".parse().unwrap();
         assert_eq!(spec.colours(), 3);
         assert_eq!(spec.to_string(), "3,3,3");
@@ -240,13 +243,14 @@ mod tests {
     #[test]
     fn instance_rejects_trivial_orders() {
         let spec = RamseySpec::cliques(&[3, 5]).unwrap();
-        assert_eq!(
-            Instance::new(spec.clone(), 0),
-            Err(SpecError::ZeroOrder)
-        );
+        assert_eq!(Instance::new(spec.clone(), 0), Err(SpecError::ZeroOrder));
         assert!(matches!(
             Instance::new(spec.clone(), 4),
-            Err(SpecError::GraphLargerThanOrder { colour: 2, size: 5, order: 4 })
+            Err(SpecError::GraphLargerThanOrder {
+                colour: 2,
+                size: 5,
+                order: 4
+            })
         ));
         assert_eq!(Instance::new(spec, 13).unwrap().to_string(), "(3,5;13)");
     }

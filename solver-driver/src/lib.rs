@@ -1,1 +1,24 @@
-//! driver
+//! The ramsift driver: searches for Ramsey colourings with varisat on all cores and
+//! writes what it finds in forms a referee can check.
+//!
+//! * [`formula`] holds an encoding's clauses in memory, shared by all workers.
+//! * [`attempt`] runs one solver on a renamed, reordered copy of the formula with a
+//!   partial colouring fixed, under a budget; [`interrupt`] is how budgets and the
+//!   global stop reach a solver that has no interrupt of its own.
+//! * [`seeding`] draws the random partial colourings.
+//! * [`portfolio`] runs the workers in parallel and collects the first answer.
+//! * [`witness`] writes colourings (our text format, graph6) and the JSON summary.
+//! * [`exit_codes`] are the SAT-competition-style exit codes of the binary.
+
+pub mod attempt;
+pub mod exit_codes;
+pub mod formula;
+pub mod graph6;
+pub mod interrupt;
+pub mod portfolio;
+pub mod seeding;
+pub mod verify;
+pub mod witness;
+
+/// The solver backend name and version recorded in outputs.
+pub const SOLVER_NAME: &str = "varisat 0.2.2";

@@ -1,1 +1,55 @@
-fn main(){}
+//! `ramsift`: finds and certifies small Ramsey numbers with a SAT solver.
+//!
+//! Exit codes: 10 a colouring was found, 20 none exists, 0 success of other
+//! commands, 1 timeout or unknown, 2 bad input or an error.
+
+mod commands;
+
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand};
+
+use ramsift_driver::exit_codes;
+
+#[derive(Parser)]
+#[command(
+    name = "ramsift",
+    version,
+    about = "Find and certify small Ramsey numbers with a SAT solver",
+    long_about = "Find and certify small Ramsey numbers with a SAT solver.\n\n\
+        A specification lists the forbidden clique size of each colour: `4,4` asks for \
+        2-colourings of the edges of K_n with no monochromatic K4, `3,3,3` for \
+        3-colourings with no monochromatic triangle.\n\n\
+        Exit codes: 10 a colouring was found, 20 none exists, 0 success of other \
+        commands, 1 timeout or unknown, 2 bad input or an error."
+)]
+struct Cli {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Subcommand)]
+enum Command {
+    /// Search for a colouring of K_N with no monochromatic forbidden clique.
+    Find(commands::find::FindArgs),
+    /// Write the CNF encoding of an instance as DIMACS (gzip if the name ends in .gz).
+    Encode(commands::encode::EncodeArgs),
+    /// A short built-in session: find and check witnesses for classical bounds.
+    Demo(commands::demo::DemoArgs),
+}
+
+fn main() -> ExitCode {
+    let cli = Cli::parse();
+    let result = match cli.command {
+        Command::Find(args) => commands::find::run(&args),
+        Command::Encode(args) => commands::encode::run(&args),
+        Command::Demo(args) => commands::demo::run(&args),
+    };
+    match result {
+        Ok(code) => ExitCode::from(code),
+        Err(error) => {
+            eprintln!("ramsift: error: {error:#}");
+            ExitCode::from(exit_codes::BAD_INPUT)
+        }
+    }
+}

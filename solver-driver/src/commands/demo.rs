@@ -1,0 +1,175 @@
+//! `ramsift demo`: a short built-in session. It searches for witnesses of a few
+//! classical lower bounds and shows two small upper bounds, writes every witness
+//! to disk, reads it back with the checker's own parser and checks it, and prints
+//! a summary table.
+
+use std::path::PathBuf;
+use std::time::Duration;
+
+use anyhow::{Context, Result};
+use clap::Args;
+use serde::Serialize;
+
+use ramsift_checker::check_colouring;
+use ramsift_checker::colouring_file::parse_colouring_file;
+use ramsift_driver::exit_codes;
+use ramsift_driver::formula::Formula;
+use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
+use ramsift_driver::witness::{write_witness_files, COLOURING_FILE};
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+
+/// The demo's cases: (clique sizes, order, expected answer). Expected answers are
+/// the classical values R(3,3)=6, R(3,4)=9, R(3,5)=14, R(4,4)=18 (Greenwood &
+/// Gleason 1955; Radziszowski, Small Ramsey Numbers, EJC DS1) and R(3,3,3)=17
+/// (Greenwood & Gleason 1955).
+const CASES: &[(&[usize], usize, bool)] = &[
+    (&[3, 3], 5, true),
+    (&[3, 3], 6, false),
+    (&[3, 4], 8, true),
+    (&[3, 4], 9, false),
+    (&[3, 5], 13, true),
+    (&[4, 4], 17, true),
+    (&[3, 3, 3], 16, true),
+];
+
+#[derive(Args, Debug)]
+pub struct DemoArgs {
+    /// Keep the witnesses in this directory (one subdirectory per case).
+    #[arg(long, value_name = "DIR")]
+    pub out: Option<PathBuf>,
+    /// Worker threads (default: all cores).
+    #[arg(long)]
+    pub threads: Option<usize>,
+    /// Seed of the randomized search.
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+    /// Time limit per case, in seconds.
+    #[arg(long, default_value_t = 120.0)]
+    pub timeout: f64,
+    /// Print the table as JSON.
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Serialize)]
+struct DemoRow {
+    instance: String,
+    answer: String,
+    seconds: f64,
+    checked: String,
+    meaning: String,
+    as_expected: bool,
+}
+
+pub fn run(args: &DemoArgs) -> Result<u8> {
+    let scratch = tempfile::tempdir().context("creating a scratch directory")?;
+    let root = args
+        .out
+        .clone()
+        .unwrap_or_else(|| scratch.path().to_path_buf());
+    let mut options = SearchOptions {
+        seed: args.seed,
+        timeout: Some(Duration::from_secs_f64(args.timeout)),
+        ..SearchOptions::default()
+    };
+    if let Some(t) = args.threads {
+        options.threads = t.max(1);
+    }
+    if !args.json {
+        println!(
+            "ramsift demo: {} classical instances, {} threads\n",
+            CASES.len(),
+            options.threads
+        );
+    }
+    let mut rows = Vec::new();
+    for &(sizes, order, expect_colouring) in CASES {
+        let instance = Instance::new(RamseySpec::cliques(sizes)?, order)?;
+        let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default())?;
+        let formula = Formula::from_encoding(&encoding);
+        let report = search(
+            &formula,
+            instance.spec(),
+            &options,
+            &SearchProgress::default(),
+            |_| {},
+        )?;
+        let spec = instance.spec();
+        let row = match &report.result {
+            SearchResult::Found { colouring, .. } => {
+                let dir = root.join(format!("{}-n{}", spec.to_string().replace(',', "-"), order));
+                write_witness_files(
+                    &dir,
+                    &instance,
+                    colouring,
+                    &["written by ramsift demo".into()],
+                )?;
+                let path = dir.join(COLOURING_FILE);
+                let text = std::fs::read_to_string(&path)?;
+                let file = parse_colouring_file(&path.display().to_string(), &text)?;
+                let verdict = check_colouring(&file.matrix, &file.claim);
+                DemoRow {
+                    instance: instance.to_string(),
+                    answer: "colouring found".into(),
+                    seconds: report.elapsed.as_secs_f64(),
+                    checked: if verdict.is_valid() {
+                        "valid".into()
+                    } else {
+                        format!("REJECTED: {verdict}")
+                    },
+                    meaning: format!("R({spec}) > {order}"),
+                    as_expected: expect_colouring && verdict.is_valid(),
+                }
+            }
+            SearchResult::NoneExists => DemoRow {
+                instance: instance.to_string(),
+                answer: "none exists".into(),
+                seconds: report.elapsed.as_secs_f64(),
+                checked: "(search only)".into(),
+                meaning: format!("R({spec}) <= {order}"),
+                as_expected: !expect_colouring,
+            },
+            SearchResult::Unknown => DemoRow {
+                instance: instance.to_string(),
+                answer: "timed out".into(),
+                seconds: report.elapsed.as_secs_f64(),
+                checked: "-".into(),
+                meaning: "-".into(),
+                as_expected: false,
+            },
+        };
+        rows.push(row);
+    }
+    let all_expected = rows.iter().all(|r| r.as_expected);
+    if args.json {
+        println!("{}", serde_json::to_string_pretty(&rows)?);
+    } else {
+        println!(
+            "{:<12} {:<16} {:>8}  {:<14} {}",
+            "instance", "answer", "seconds", "checker", "proves"
+        );
+        for r in &rows {
+            println!(
+                "{:<12} {:<16} {:>8.2}  {:<14} {}",
+                r.instance, r.answer, r.seconds, r.checked, r.meaning
+            );
+        }
+        println!();
+        if let Some(dir) = &args.out {
+            println!("witnesses kept in {}", dir.display());
+        }
+        println!(
+            "{}",
+            if all_expected {
+                "every answer agrees with the published values (Radziszowski, Small Ramsey Numbers, EJC DS1)"
+            } else {
+                "SOME ANSWERS DIFFER FROM THE PUBLISHED VALUES"
+            }
+        );
+    }
+    Ok(if all_expected {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::UNKNOWN
+    })
+}

@@ -1,0 +1,38 @@
+//! The SPEC N arguments shared by the subcommands, and turning them into an encoding.
+
+use anyhow::{Context, Result};
+use clap::Args;
+
+use ramsift_encoder::clauses::DEFAULT_MAX_CLAUSES;
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+
+#[derive(Args, Clone, Debug)]
+pub struct InstanceArgs {
+    /// Forbidden clique size of each colour, comma separated (e.g. 4,4 or 3,3,3).
+    #[arg(value_name = "SPEC")]
+    pub spec: String,
+    /// Order n of the complete graph K_n whose edges are coloured.
+    #[arg(value_name = "N")]
+    pub order: usize,
+    /// Refuse instances needing more clauses than this.
+    #[arg(long, value_name = "COUNT", default_value_t = DEFAULT_MAX_CLAUSES)]
+    pub max_clauses: u64,
+}
+
+impl InstanceArgs {
+    pub fn instance(&self) -> Result<Instance> {
+        let spec: RamseySpec = self
+            .spec
+            .parse()
+            .with_context(|| format!("specification {:?}", self.spec))?;
+        Ok(Instance::new(spec, self.order)?)
+    }
+
+    pub fn encoding(&self) -> Result<CliqueEncoding> {
+        let instance = self.instance()?;
+        let limits = EncodingLimits {
+            max_clauses: self.max_clauses,
+        };
+        Ok(CliqueEncoding::new(&instance, &limits)?)
+    }
+}

@@ -1,0 +1,7 @@
+//! The subcommands of the `ramsift` binary, one file each, and what they share.
+
+pub mod demo;
+pub mod encode;
+pub mod find;
+pub mod instance_args;
+pub mod progress;

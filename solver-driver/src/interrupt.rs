@@ -1,0 +1,98 @@
+//! Stopping a varisat solve from outside.
+//!
+//! varisat 0.2.2 has no interrupt, conflict limit or time limit. It does stop, with
+//! an error, as soon as writing its proof fails. So every solver gets a proof target
+//! ([`InterruptSink`]) that discards the bytes (or passes them on to a real trace),
+//! counts them, and fails once the global stop flag is set, the deadline has passed
+//! or the attempt's byte budget is spent. varisat buffers 8 KiB of proof before each
+//! write, so the check runs every few hundred conflicts. Bytes of proof are a
+//! deterministic measure of work, so byte budgets keep runs reproducible.
+
+use std::cell::Cell;
+use std::io::{self, Write};
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::time::Instant;
+
+/// Why a solve was stopped.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum StopReason {
+    /// Another worker answered, or the user asked to stop.
+    Stopped,
+    /// The run's deadline passed.
+    Deadline,
+    /// This attempt's work budget was spent.
+    Budget,
+}
+
+/// Limits that end a solve.
+#[derive(Clone, Copy, Debug)]
+pub struct Limits<'a> {
+    pub stop: &'a AtomicBool,
+    pub deadline: Option<Instant>,
+    /// Proof bytes this attempt may produce (None: unlimited).
+    pub budget_bytes: Option<u64>,
+}
+
+/// What a sink saw, readable after the solver that owns the sink is gone.
+#[derive(Debug, Default)]
+pub struct SinkReport {
+    pub bytes: Cell<u64>,
+    pub reason: Cell<Option<StopReason>>,
+}
+
+/// A proof target that enforces [`Limits`], optionally forwarding to a real writer.
+pub struct InterruptSink<'a, W: Write> {
+    limits: Limits<'a>,
+    inner: Option<W>,
+    report: &'a SinkReport,
+}
+
+impl<'a, W: Write> InterruptSink<'a, W> {
+    pub fn new(limits: Limits<'a>, inner: Option<W>, report: &'a SinkReport) -> Self {
+        InterruptSink {
+            limits,
+            inner,
+            report,
+        }
+    }
+
+    fn check(&self) -> Option<StopReason> {
+        if self.limits.stop.load(Ordering::Relaxed) {
+            return Some(StopReason::Stopped);
+        }
+        if self.limits.deadline.is_some_and(|d| Instant::now() >= d) {
+            return Some(StopReason::Deadline);
+        }
+        if self
+            .limits
+            .budget_bytes
+            .is_some_and(|b| self.report.bytes.get() >= b)
+        {
+            return Some(StopReason::Budget);
+        }
+        None
+    }
+}
+
+impl<W: Write> Write for InterruptSink<'_, W> {
+    fn write(&mut self, buf: &[u8]) -> io::Result<usize> {
+        if let Some(reason) = self.check() {
+            self.report.reason.set(Some(reason));
+            return Err(io::Error::other(format!("solve interrupted: {reason:?}")));
+        }
+        if let Some(inner) = &mut self.inner {
+            inner.write_all(buf)?;
+        }
+        self.report
+            .bytes
+            .set(self.report.bytes.get() + buf.len() as u64);
+        Ok(buf.len())
+    }
+
+    fn flush(&mut self) -> io::Result<()> {
+        match &mut self.inner {
+            Some(inner) => inner.flush(),
+            None => Ok(()),
+        }
+    }
+}

@@ -1,0 +1,33 @@
+//! Every witness is verified by the checker crate's own code before it is reported.
+
+use ramsift_checker::{check_colouring, Claim, ColourMatrix, Verdict};
+use ramsift_encoder::{Colouring, Forbidden, RamseySpec};
+
+/// The colouring as the checker's matrix type.
+pub fn to_matrix(colouring: &Colouring) -> ColourMatrix {
+    let mut matrix = ColourMatrix::filled(colouring.order(), 0);
+    for j in 0..colouring.order() {
+        for i in 0..j {
+            matrix.set(i, j, colouring.colour(i, j));
+        }
+    }
+    matrix
+}
+
+/// The checker's claim for a specification.
+pub fn to_claim(spec: &RamseySpec) -> Claim {
+    Claim {
+        clique_sizes: spec
+            .forbidden()
+            .iter()
+            .map(|g| match *g {
+                Forbidden::Clique(k) => k,
+            })
+            .collect(),
+    }
+}
+
+/// The checker's verdict on a colouring for a specification.
+pub fn verify_witness(spec: &RamseySpec, colouring: &Colouring) -> Verdict {
+    check_colouring(&to_matrix(colouring), &to_claim(spec))
+}
