@@ -41,6 +41,12 @@ pub fn write_atomically<T>(
     };
     buffered.flush()?;
     drop(buffered);
+    // Temporary files are created private (0600); a finished output is an ordinary file.
+    #[cfg(unix)]
+    {
+        use std::os::unix::fs::PermissionsExt;
+        temp.as_file().set_permissions(fs::Permissions::from_mode(0o644))?;
+    }
     temp.as_file().sync_all()?;
     temp.persist(path).map_err(|e| e.error)?;
     Ok(value)

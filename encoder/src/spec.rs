@@ -15,6 +15,10 @@ use thiserror::Error;
 /// question is within reach of SAT solving, so this bound only rejects typos.
 pub const MAX_COLOURS: usize = 16;
 
+/// The largest order: K_65536 has just under 2^31 edges, the most DIMACS's
+/// 32-bit literals can name with one variable per edge.
+pub const MAX_ORDER: usize = 65_536;
+
 /// Errors found while reading or validating a specification.
 #[derive(Debug, Error, PartialEq, Eq)]
 pub enum SpecError {
@@ -28,6 +32,8 @@ pub enum SpecError {
     ColourCount { count: usize },
     #[error("order 0: K_0 has no edges; the order must be at least 1")]
     ZeroOrder,
+    #[error("order {order} is above the largest supported order {MAX_ORDER}")]
+    OrderTooLarge { order: usize },
     #[error("colour {colour} forbids K{size}, which has more vertices than K_{order}: the question is trivial; use an order of at least {size}")]
     GraphLargerThanOrder {
         colour: usize,
@@ -160,6 +166,9 @@ impl Instance {
     pub fn new(spec: RamseySpec, order: usize) -> Result<Self, SpecError> {
         if order == 0 {
             return Err(SpecError::ZeroOrder);
+        }
+        if order > MAX_ORDER {
+            return Err(SpecError::OrderTooLarge { order });
         }
         for (index, graph) in spec.forbidden().iter().enumerate() {
             if graph.vertex_count() > order {

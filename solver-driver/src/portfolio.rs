@@ -13,7 +13,7 @@
 
 use std::io;
 use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
-use std::sync::Mutex;
+use std::sync::{mpsc, Mutex};
 use std::time::{Duration, Instant};
 
 use rand::SeedableRng;
@@ -119,7 +119,6 @@ pub fn search(
     let threads = options.threads.max(1);
     let stop = AtomicBool::new(false);
     let answer: Mutex<Option<Result<SearchResult, SearchError>>> = Mutex::new(None);
-    let finished_workers = AtomicU64::new(0);
 
     let settle = |value: Result<SearchResult, SearchError>| {
         let mut slot = answer.lock().expect("answer lock");
@@ -137,9 +136,10 @@ pub fn search(
             message: e.to_string(),
         })?;
 
+    let (done_tx, done_rx) = mpsc::channel::<()>();
     pool.in_place_scope(|scope| {
         for worker in 0..threads {
-            let (stop, settle, finished_workers) = (&stop, &settle, &finished_workers);
+            let (stop, settle, done_tx) = (&stop, &settle, done_tx.clone());
             scope.spawn(move |_| {
                 let outcome = if worker == 0 {
                     complete_worker(formula, spec, stop, deadline, progress)
@@ -151,12 +151,15 @@ pub fn search(
                     Ok(None) => {}
                     Err(e) => settle(Err(e)),
                 }
-                finished_workers.fetch_add(1, Ordering::SeqCst);
+                let _ = done_tx.send(());
             });
         }
-        while finished_workers.load(Ordering::SeqCst) < threads as u64 {
-            std::thread::sleep(Duration::from_millis(20));
-            tick(started.elapsed());
+        let mut finished = 0;
+        while finished < threads {
+            match done_rx.recv_timeout(Duration::from_millis(100)) {
+                Ok(()) => finished += 1,
+                Err(_) => tick(started.elapsed()),
+            }
             if deadline.is_some_and(|d| Instant::now() >= d) {
                 stop.store(true, Ordering::SeqCst);
             }

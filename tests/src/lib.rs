@@ -1,1 +1,8 @@
-//! Published check values (filled below).
+//! Cross-crate tests of ramsift and the published values they check against.
+//!
+//! [`published`] holds the values with their sources; [`constructions`] builds the
+//! classical extremal colourings from their definitions. The tests themselves live
+//! in `tests/tests/`.
+
+pub mod constructions;
+pub mod published;

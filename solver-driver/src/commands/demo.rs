@@ -145,8 +145,8 @@ pub fn run(args: &DemoArgs) -> Result<u8> {
         println!("{}", serde_json::to_string_pretty(&rows)?);
     } else {
         println!(
-            "{:<12} {:<16} {:>8}  {:<14} {}",
-            "instance", "answer", "seconds", "checker", "proves"
+            "{:<12} {:<16} {:>8}  {:<14} proves",
+            "instance", "answer", "seconds", "checker"
         );
         for r in &rows {
             println!(

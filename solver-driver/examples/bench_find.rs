@@ -1,0 +1,123 @@
+//! Benchmark of `ramsift find` against plain single-threaded varisat on the same CNF.
+//!
+//! For each instance and each repeat, runs `ramsift find` (all cores, seed = repeat
+//! number) and a plain varisat solve of the same clauses (one thread, no seeds, no
+//! proof output) as separate processes, alternating, each killed at the time cap.
+//! Prints a Markdown table of medians and their ratio.
+//!
+//! `cargo run --release --example bench_find -- [--repeats R] [--cap SECONDS] [SPEC:N ...]`
+
+use std::process::{Command, Stdio};
+use std::time::{Duration, Instant};
+
+use ramsift_driver::formula::Formula;
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use varisat::{ExtendFormula, Lit, Solver};
+
+const DEFAULT_INSTANCES: &[&str] = &["4,4:17", "3,5:13", "3,6:17", "3,7:22", "3,3,3:16", "4,5:24"];
+
+fn main() {
+    let args: Vec<String> = std::env::args().skip(1).collect();
+    if args.first().map(String::as_str) == Some("plain") {
+        plain(&args[1], args[2].parse().unwrap());
+        return;
+    }
+    let mut repeats = 5;
+    let mut cap = 60.0;
+    let mut instances: Vec<String> = Vec::new();
+    let mut it = args.iter();
+    while let Some(a) = it.next() {
+        match a.as_str() {
+            "--repeats" => repeats = it.next().unwrap().parse().unwrap(),
+            "--cap" => cap = it.next().unwrap().parse().unwrap(),
+            other => instances.push(other.to_string()),
+        }
+    }
+    if instances.is_empty() {
+        instances = DEFAULT_INSTANCES.iter().map(|s| s.to_string()).collect();
+    }
+    let ramsift = std::env::current_exe()
+        .unwrap()
+        .parent()
+        .unwrap()
+        .parent()
+        .unwrap()
+        .join("ramsift");
+    println!("| instance | find median (s) | find runs answered | plain varisat median (s) | plain answered | plain / find |");
+    println!("|---|---|---|---|---|---|");
+    for inst in &instances {
+        let (spec, n) = inst.split_once(':').expect("SPEC:N");
+        let mut find_times = Vec::new();
+        let mut plain_times = Vec::new();
+        let (mut find_ok, mut plain_ok) = (0, 0);
+        for r in 0..repeats {
+            let mut find = Command::new(&ramsift);
+            find.args(["find", spec, n, "-q", "--seed", &(r + 1).to_string(), "--timeout", &cap.to_string()]);
+            let (t, code) = timed(find, cap + 5.0);
+            if code == Some(10) || code == Some(20) {
+                find_ok += 1;
+            }
+            find_times.push(t);
+            let mut plain_cmd = Command::new(std::env::current_exe().unwrap());
+            plain_cmd.args(["plain", spec, n]);
+            let (t, code) = timed(plain_cmd, cap);
+            if code == Some(10) || code == Some(20) {
+                plain_ok += 1;
+            }
+            plain_times.push(t);
+        }
+        let (f, p) = (median(&mut find_times), median(&mut plain_times));
+        println!(
+            "| ({spec};{n}) | {} | {find_ok}/{repeats} | {} | {plain_ok}/{repeats} | {} |",
+            fmt(f, cap),
+            fmt(p, cap),
+            if f >= cap || p >= cap { "n/a".to_string() } else { format!("{:.1}×", p / f) }
+        );
+    }
+}
+
+fn fmt(t: f64, cap: f64) -> String {
+    if t >= cap {
+        format!("> {cap:.0} (cap)")
+    } else {
+        format!("{t:.3}")
+    }
+}
+
+fn median(v: &mut [f64]) -> f64 {
+    v.sort_by(|a, b| a.partial_cmp(b).unwrap());
+    v[v.len() / 2]
+}
+
+/// Runs a command, killing it at `cap` seconds; returns (seconds, exit code).
+fn timed(mut cmd: Command, cap: f64) -> (f64, Option<i32>) {
+    let started = Instant::now();
+    let mut child = cmd.stdout(Stdio::null()).stderr(Stdio::null()).spawn().unwrap();
+    loop {
+        if let Some(status) = child.try_wait().unwrap() {
+            return (started.elapsed().as_secs_f64(), status.code());
+        }
+        if started.elapsed() > Duration::from_secs_f64(cap) {
+            let _ = child.kill();
+            let _ = child.wait();
+            return (cap, None);
+        }
+        std::thread::sleep(Duration::from_millis(5));
+    }
+}
+
+/// Plain varisat: the formula's clauses in order, one thread, exit 10/20.
+fn plain(spec: &str, n: usize) {
+    let instance = Instance::new(spec.parse::<RamseySpec>().unwrap(), n).unwrap();
+    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let formula = Formula::from_encoding(&encoding);
+    let mut solver = Solver::new();
+    let mut lits = Vec::new();
+    for clause in formula.clauses() {
+        lits.clear();
+        lits.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
+        solver.add_clause(&lits);
+    }
+    let sat = solver.solve().unwrap();
+    std::process::exit(if sat { 10 } else { 20 });
+}

@@ -1,0 +1,190 @@
+//! The `ramsift` binary end to end: exit codes, output files, and bad input.
+
+use std::path::Path;
+use std::process::{Command, Output};
+
+use ramsift_checker::check_colouring;
+use ramsift_checker::colouring_file::parse_colouring_file;
+use ramsift_checker::graph6::decode_graph6_file;
+
+fn ramsift(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_ramsift"))
+        .args(args)
+        .output()
+        .expect("ramsift runs")
+}
+
+fn stdout(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stdout).into_owned()
+}
+
+fn stderr(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stderr).into_owned()
+}
+
+#[test]
+fn find_reports_found_with_exit_10_and_writes_checkable_files() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("w");
+    let o = ramsift(&["find", "3,5", "13", "--out", out.to_str().unwrap(), "-q"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    assert!(stdout(&o).contains("R(3,5) > 13"));
+    // R(3,5) = 14 (Greenwood & Gleason 1955; Radziszowski DS1): the witness must check.
+    let path = out.join("witness.colouring");
+    let file = parse_colouring_file("w", &std::fs::read_to_string(&path).unwrap()).unwrap();
+    assert_eq!(file.claim.clique_sizes, vec![3, 5]);
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    let graphs =
+        decode_graph6_file("g", &std::fs::read(out.join("witness-colour1.g6")).unwrap()).unwrap();
+    assert_eq!(graphs[0], file.matrix);
+    let summary: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(out.join("summary.json")).unwrap()).unwrap();
+    assert_eq!(summary["result"], "found");
+    assert_eq!(summary["exit_code"], 10);
+    assert_eq!(summary["verified_by_checker"], true);
+}
+
+#[test]
+fn find_reports_none_with_exit_20() {
+    // R(3,4) = 9 (Greenwood & Gleason 1955): no colouring of K9.
+    let o = ramsift(&["find", "3,4", "9", "--json"]);
+    assert_eq!(o.status.code(), Some(20), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["result"], "none");
+    assert_eq!(summary["instance"], "(3,4;9)");
+}
+
+#[test]
+fn find_times_out_with_exit_1() {
+    // (4,4;18) has no colouring (R(4,4) = 18) and plain search cannot show it quickly.
+    let o = ramsift(&["find", "4,4", "18", "--timeout", "0.5", "--json"]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["result"], "unknown");
+}
+
+#[test]
+fn three_colour_search_prints_the_matrix() {
+    // R(3,3,3) = 17 (Greenwood & Gleason 1955).
+    let o = ramsift(&["find", "3,3,3", "16", "--threads", "2", "--seed", "5"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let text = stdout(&o);
+    let body = &text[text.find("ramsift-colouring").unwrap()..];
+    let file = parse_colouring_file("stdout", body).unwrap();
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+}
+
+#[test]
+fn encode_writes_plain_and_gzip_dimacs() {
+    let dir = tempfile::tempdir().unwrap();
+    for name in ["r44.cnf", "r44.cnf.gz"] {
+        let path = dir.path().join(name);
+        let o = ramsift(&["encode", "4,4", "17", "--out", path.to_str().unwrap()]);
+        assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+        let bytes = std::fs::read(&path).unwrap();
+        let text = if name.ends_with(".gz") {
+            let mut s = String::new();
+            std::io::Read::read_to_string(&mut flate2::read::GzDecoder::new(&bytes[..]), &mut s)
+                .unwrap();
+            s
+        } else {
+            String::from_utf8(bytes).unwrap()
+        };
+        // 136 edge variables; 2·C(17,4) = 4760 clauses.
+        assert!(text.contains("\np cnf 136 4760\n"), "{name}");
+        assert!(text.contains("c spec 4,4 order 17\n"));
+        assert_eq!(text.lines().filter(|l| l.ends_with(" 0")).count(), 4760);
+    }
+}
+
+/// Runs ramsift with bad arguments: exit 2, a message containing `expected`, no panic.
+fn assert_bad_input(args: &[&str], expected: &str) {
+    let o = ramsift(args);
+    let err = stderr(&o);
+    assert_eq!(o.status.code(), Some(2), "{args:?}: {err}");
+    assert!(
+        err.contains(expected),
+        "{args:?}: message {err:?} lacks {expected:?}"
+    );
+    assert!(!err.contains("panicked"), "{args:?} panicked: {err}");
+}
+
+#[test]
+fn bad_specifications_are_refused() {
+    assert_bad_input(&["find", "", "5"], "empty specification");
+    assert_bad_input(&["find", "4", "5"], "1 colour(s)");
+    assert_bad_input(&["find", "4,x", "5"], "entry 2");
+    assert_bad_input(&["find", "4,,4", "5"], "entry 2");
+    assert_bad_input(&["find", "4,1", "5"], "at least 2 vertices");
+    assert_bad_input(
+        &["find", "3,3,3,3,3,3,3,3,3,3,3,3,3,3,3,3,3", "20"],
+        "at most 16",
+    );
+}
+
+#[test]
+fn impossible_orders_are_refused() {
+    assert_bad_input(&["find", "3,3", "0"], "order 0");
+    assert_bad_input(&["find", "5,5", "4"], "more vertices than K_4");
+    assert_bad_input(&["find", "3,3", "-3"], "unexpected argument");
+    assert_bad_input(&["find", "3,3", "five"], "invalid value");
+    assert_bad_input(&["find", "10,10", "1000"], "over the limit");
+    assert_bad_input(&["find", "3,3", "100000"], "more than DIMACS literals");
+    assert_bad_input(
+        &["find", "5,5", "43", "--max-clauses", "1000"],
+        "1925196 clauses",
+    );
+    assert_bad_input(
+        &["encode", "30,30", "18446744073709551615", "--out", "x.cnf"],
+        "above the largest supported order",
+    );
+}
+
+#[test]
+fn bad_options_are_refused() {
+    assert_bad_input(&["find", "3,3", "5", "--timeout=-1"], "--timeout");
+    assert_bad_input(&["find", "3,3", "5", "--timeout", "nan"], "--timeout");
+    assert_bad_input(&["find", "3,3", "5", "--threads", "0"], "--threads 0");
+    assert_bad_input(&["encode", "3,3", "5"], "--out");
+}
+
+#[test]
+fn unwritable_outputs_fail_cleanly_and_leave_nothing() {
+    let dir = tempfile::tempdir().unwrap();
+    let missing = dir.path().join("no/such/dir/f.cnf");
+    assert_bad_input(
+        &["encode", "3,3", "5", "--out", missing.to_str().unwrap()],
+        "writing",
+    );
+    let blocker = dir.path().join("file");
+    std::fs::write(&blocker, "x").unwrap();
+    assert_bad_input(
+        &["find", "3,3", "5", "--out", blocker.to_str().unwrap(), "-q"],
+        "writing the witness",
+    );
+    // A refused instance never creates its output file.
+    let refused = dir.path().join("big.cnf");
+    assert_bad_input(
+        &[
+            "encode",
+            "5,5",
+            "43",
+            "--max-clauses",
+            "10",
+            "--out",
+            refused.to_str().unwrap(),
+        ],
+        "over the limit",
+    );
+    assert!(!refused.exists());
+    let leftovers: Vec<_> = std::fs::read_dir(dir.path())
+        .unwrap()
+        .map(|e| e.unwrap().file_name())
+        .collect();
+    assert_eq!(
+        leftovers,
+        vec![std::ffi::OsString::from("file")],
+        "temporary files left behind"
+    );
+    assert!(Path::new(&blocker).is_file());
+}
