@@ -45,7 +45,8 @@ pub fn write_atomically<T>(
     #[cfg(unix)]
     {
         use std::os::unix::fs::PermissionsExt;
-        temp.as_file().set_permissions(fs::Permissions::from_mode(0o644))?;
+        temp.as_file()
+            .set_permissions(fs::Permissions::from_mode(0o644))?;
     }
     temp.as_file().sync_all()?;
     temp.persist(path).map_err(|e| e.error)?;

@@ -9,9 +9,11 @@
 
 use thiserror::Error;
 
+use crate::colouring::Colouring;
 use crate::combinations::{binomial, for_each_subset};
 use crate::edges::edge_count;
 use crate::spec::{Forbidden, Instance};
+use crate::symmetry::{self, Scheme, SymmetryClauses, SymmetrySet};
 use crate::variables::VariableMap;
 
 /// The default clause limit: about 4 GB of literals held in a solver.
@@ -43,17 +45,29 @@ pub enum EncodeError {
     TooManyVariables { instance: String, count: u128 },
 }
 
-/// The clique encoding of one instance.
+/// The clique encoding of one instance, with its symmetry-breaking clauses.
 #[derive(Clone, Debug)]
 pub struct CliqueEncoding {
     instance: Instance,
     variables: VariableMap,
-    clause_count: u64,
+    /// Clauses of the clique encoding proper (without symmetry breaking).
+    base_clause_count: u64,
+    symmetry: SymmetrySet,
+    symmetry_clauses: SymmetryClauses,
 }
 
 impl CliqueEncoding {
-    /// Prepares the encoding, refusing instances over the limits.
+    /// Prepares the encoding without symmetry breaking, refusing instances over the limits.
     pub fn new(instance: &Instance, limits: &EncodingLimits) -> Result<Self, EncodeError> {
+        Self::with_symmetry(instance, &SymmetrySet::none(), limits)
+    }
+
+    /// Prepares the encoding with the given symmetry-breaking schemes.
+    pub fn with_symmetry(
+        instance: &Instance,
+        symmetry: &SymmetrySet,
+        limits: &EncodingLimits,
+    ) -> Result<Self, EncodeError> {
         let variables = VariableMap::new(instance.order(), instance.colours());
         let var_count =
             (instance.order() as u128) * (instance.order() as u128) * instance.colours() as u128;
@@ -68,7 +82,9 @@ impl CliqueEncoding {
             Some(count) if count <= limits.max_clauses as u128 => Ok(CliqueEncoding {
                 instance: instance.clone(),
                 variables,
-                clause_count: count as u64,
+                base_clause_count: count as u64,
+                symmetry: symmetry.clone(),
+                symmetry_clauses: symmetry::symmetry_clauses(instance, symmetry),
             }),
             _ => Err(EncodeError::TooManyClauses {
                 instance: instance.to_string(),
@@ -101,12 +117,45 @@ impl CliqueEncoding {
         &self.variables
     }
 
+    /// Colour variables plus the auxiliary variables of symmetry breaking.
     pub fn variable_count(&self) -> usize {
-        self.variables.colour_variable_count()
+        self.variables.colour_variable_count() + self.symmetry_clauses.aux_variables
     }
 
     pub fn clause_count(&self) -> u64 {
-        self.clause_count
+        self.base_clause_count + self.symmetry_clauses.clauses.len() as u64
+    }
+
+    pub fn symmetry(&self) -> &SymmetrySet {
+        &self.symmetry
+    }
+
+    pub fn symmetry_clauses(&self) -> &SymmetryClauses {
+        &self.symmetry_clauses
+    }
+
+    /// The assignment of every variable (auxiliaries included) that a colouring
+    /// satisfying the symmetry constraints extends to.
+    pub fn full_assignment(&self, colouring: &Colouring) -> Vec<bool> {
+        let mut values = self.variables.assignment_of(colouring);
+        let mut next = self.variables.colour_variable_count() + 1;
+        if self.symmetry.contains(Scheme::LexLeader) {
+            symmetry::lex_leader::extend_assignment(&self.variables, next, &mut values);
+            let n = self.instance.order();
+            if n >= 3 {
+                next += (n - 1) * (n - 3);
+            }
+        }
+        if self.symmetry.contains(Scheme::DegreeBounds) {
+            symmetry::degree_bounds::extend_assignment(
+                &self.instance,
+                &self.variables,
+                next,
+                &mut values,
+            );
+        }
+        values.resize(self.variable_count(), false);
+        values
     }
 
     /// Calls `emit` with every clause as DIMACS literals, in the documented order.
@@ -137,12 +186,15 @@ impl CliqueEncoding {
                 emit(&clause)
             })?;
         }
+        for clause in &self.symmetry_clauses.clauses {
+            emit(clause)?;
+        }
         Ok(())
     }
 
     /// All clauses in memory (for small instances and tests).
     pub fn clauses(&self) -> Vec<Vec<i32>> {
-        let mut all = Vec::with_capacity(self.clause_count as usize);
+        let mut all = Vec::with_capacity(self.clause_count() as usize);
         self.for_each_clause::<()>(|c| {
             all.push(c.to_vec());
             Ok(())
@@ -188,7 +240,7 @@ mod tests {
         let err =
             CliqueEncoding::new(&instance, &EncodingLimits { max_clauses: 1000 }).unwrap_err();
         assert!(err.to_string().contains("1925196"), "{err}");
-        let huge = Instance::new(RamseySpec::cliques(&[30, 30]).unwrap(), 1_000_000).unwrap();
+        let huge = Instance::new(RamseySpec::cliques(&[30, 30]).unwrap(), 60_000).unwrap();
         assert!(CliqueEncoding::new(&huge, &EncodingLimits::default()).is_err());
     }
 

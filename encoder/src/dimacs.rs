@@ -34,7 +34,29 @@ pub fn header_lines(encoding: &CliqueEncoding) -> Vec<String> {
             "variable e*{r}+c (c = 1..{r}) is true iff edge e may have colour c; decode as the smallest true c"
         ));
     }
-    lines.push("symmetry none".to_string());
+    lines.push(format!("symmetry {}", encoding.symmetry()));
+    for scheme in encoding.symmetry().schemes() {
+        lines.push(format!(
+            "symmetry {}: {}",
+            scheme.name(),
+            scheme.justification()
+        ));
+    }
+    let extra = encoding.symmetry_clauses();
+    if extra.aux_variables > 0 || !extra.clauses.is_empty() {
+        lines.push(format!(
+            "symmetry adds {} clauses and auxiliary variables {}..{}",
+            extra.clauses.len(),
+            encoding.variables().colour_variable_count() + 1,
+            encoding.variable_count()
+        ));
+    }
+    for premise in &extra.premises {
+        match &premise.source {
+            Some(source) => lines.push(format!("premise {} ({source})", premise.statement())),
+            None => lines.push(format!("premise {} (by definition)", premise.statement())),
+        }
+    }
     lines
 }
 

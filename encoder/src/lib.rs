@@ -7,6 +7,7 @@
 //!   CNF variables and decodes models back into a [`Colouring`].
 //! * [`clauses`] generates the clauses as a stream, so that large instances never
 //!   have to be held in memory.
+//! * [`symmetry`] adds named, documented symmetry-breaking constraints.
 //! * [`dimacs`] writes the stream as DIMACS CNF, with a self-describing header.
 
 pub mod atomic_file;
@@ -16,11 +17,13 @@ pub mod combinations;
 pub mod dimacs;
 pub mod edges;
 pub mod spec;
+pub mod symmetry;
 pub mod variables;
 
 pub use clauses::{CliqueEncoding, EncodingLimits};
 pub use colouring::Colouring;
 pub use spec::{Forbidden, Instance, RamseySpec, SpecError};
+pub use symmetry::{Scheme, SymmetrySet};
 pub use variables::VariableMap;
 
 /// The version of this encoder, recorded in every file it writes.

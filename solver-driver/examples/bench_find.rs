@@ -52,7 +52,16 @@ fn main() {
         let (mut find_ok, mut plain_ok) = (0, 0);
         for r in 0..repeats {
             let mut find = Command::new(&ramsift);
-            find.args(["find", spec, n, "-q", "--seed", &(r + 1).to_string(), "--timeout", &cap.to_string()]);
+            find.args([
+                "find",
+                spec,
+                n,
+                "-q",
+                "--seed",
+                &(r + 1).to_string(),
+                "--timeout",
+                &cap.to_string(),
+            ]);
             let (t, code) = timed(find, cap + 5.0);
             if code == Some(10) || code == Some(20) {
                 find_ok += 1;
@@ -71,7 +80,11 @@ fn main() {
             "| ({spec};{n}) | {} | {find_ok}/{repeats} | {} | {plain_ok}/{repeats} | {} |",
             fmt(f, cap),
             fmt(p, cap),
-            if f >= cap || p >= cap { "n/a".to_string() } else { format!("{:.1}×", p / f) }
+            if f >= cap || p >= cap {
+                "n/a".to_string()
+            } else {
+                format!("{:.1}×", p / f)
+            }
         );
     }
 }
@@ -92,7 +105,11 @@ fn median(v: &mut [f64]) -> f64 {
 /// Runs a command, killing it at `cap` seconds; returns (seconds, exit code).
 fn timed(mut cmd: Command, cap: f64) -> (f64, Option<i32>) {
     let started = Instant::now();
-    let mut child = cmd.stdout(Stdio::null()).stderr(Stdio::null()).spawn().unwrap();
+    let mut child = cmd
+        .stdout(Stdio::null())
+        .stderr(Stdio::null())
+        .spawn()
+        .unwrap();
     loop {
         if let Some(status) = child.try_wait().unwrap() {
             return (started.elapsed().as_secs_f64(), status.code());

@@ -1,0 +1,204 @@
+//! Symmetry breaking: named, switchable constraints that remove symmetric copies of
+//! colourings while keeping at least one copy of every colouring up to relabelling
+//! of the vertices (and of colours with equal forbidden graphs). Each scheme
+//! carries the published argument that it preserves satisfiability; that text is
+//! recorded in DIMACS headers and bundle manifests.
+//!
+//! Auxiliary variables are numbered after the colour variables: first those of
+//! `lex-leader` (see [`lex_leader`]), then those of `degree-bounds` (see
+//! [`degree_bounds`]). The checker re-derives the same clauses with its own code,
+//! so the numbering below is part of the bundle format.
+
+pub mod colour_swap;
+pub mod degree_bounds;
+pub mod known_values;
+pub mod lex_leader;
+
+use std::fmt;
+use std::str::FromStr;
+
+use thiserror::Error;
+
+use crate::spec::Instance;
+use crate::variables::VariableMap;
+
+pub use degree_bounds::Premise;
+
+/// One symmetry-breaking scheme.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub enum Scheme {
+    /// Colour permutation among colours with equal forbidden graphs.
+    ColourSwap,
+    /// Lexicographic order of consecutive adjacency rows of the colour-1 graph.
+    LexLeader,
+    /// Maximum degree in each colour, from smaller Ramsey numbers.
+    DegreeBounds,
+}
+
+impl Scheme {
+    pub const ALL: [Scheme; 3] = [Scheme::ColourSwap, Scheme::LexLeader, Scheme::DegreeBounds];
+
+    pub fn name(self) -> &'static str {
+        match self {
+            Scheme::ColourSwap => "colour-swap",
+            Scheme::LexLeader => "lex-leader",
+            Scheme::DegreeBounds => "degree-bounds",
+        }
+    }
+
+    /// The argument that the scheme keeps a representative of every class.
+    pub fn justification(self) -> &'static str {
+        match self {
+            Scheme::ColourSwap => {
+                "Permuting colours with equal forbidden graphs maps valid colourings to valid \
+                 colourings, so one may require that the anchor edge {0,n-1} takes the first \
+                 colour of each such class whenever it takes a colour of the class (value \
+                 symmetry breaking; Crawford, Ginsberg, Luks & Roy, KR 1996). Combined with \
+                 lex-leader on two colours: lex-leader makes vertex 0's colour-1 neighbours \
+                 the last vertices, so {0,n-1} has colour 1 iff vertex 0 has a colour-1 edge; \
+                 of a colouring and its colour swap one has minimum colour-1 degree at least 1 \
+                 (an isolated vertex and a dominating vertex cannot coexist), and its \
+                 lex-leader form puts a minimum-degree vertex first. With three or more colours \
+                 and lex-leader, only the colours after colour 1 are permuted."
+            }
+            Scheme::LexLeader => {
+                "sb_l of Codish, Miller, Prosser & Stuckey, 'Constraints for symmetry breaking \
+                 in graph representation', Constraints 24 (2019): for consecutive vertices i, i+1 \
+                 the adjacency rows of the colour-1 graph, without columns i and i+1, are in \
+                 lexicographic order (non-edge < edge). Every graph has an isomorphic copy \
+                 satisfying it; the vertex relabelling is applied to the whole colouring."
+            }
+            Scheme::DegreeBounds => {
+                "The colour-c neighbours of any vertex carry a colouring with no K_{k_c - 1} in \
+                 colour c and no K_{k_d} in any other colour d, so there are at most \
+                 R(k_1, ..., k_c - 1, ..., k_r) - 1 of them (Greenwood & Gleason 1955). Rests \
+                 on the smaller Ramsey values listed as premises; encoded with Sinz's \
+                 sequential counter (CP 2005)."
+            }
+        }
+    }
+}
+
+impl fmt::Display for Scheme {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(self.name())
+    }
+}
+
+#[derive(Debug, Error, PartialEq, Eq)]
+pub enum SymmetryError {
+    #[error("unknown symmetry scheme {0:?}: expected none, colour-swap, lex-leader or degree-bounds (comma separated)")]
+    Unknown(String),
+}
+
+/// A set of schemes, kept in canonical order.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Hash)]
+pub struct SymmetrySet {
+    schemes: Vec<Scheme>,
+}
+
+impl SymmetrySet {
+    pub fn none() -> Self {
+        SymmetrySet::default()
+    }
+
+    pub fn of(schemes: &[Scheme]) -> Self {
+        let mut schemes = schemes.to_vec();
+        schemes.sort();
+        schemes.dedup();
+        SymmetrySet { schemes }
+    }
+
+    pub fn contains(&self, scheme: Scheme) -> bool {
+        self.schemes.contains(&scheme)
+    }
+
+    pub fn schemes(&self) -> &[Scheme] {
+        &self.schemes
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.schemes.is_empty()
+    }
+
+    /// Every subset of the schemes (for soundness tests and benchmarks).
+    pub fn all_combinations() -> Vec<SymmetrySet> {
+        (0..1u32 << Scheme::ALL.len())
+            .map(|mask| {
+                let chosen: Vec<Scheme> = Scheme::ALL
+                    .iter()
+                    .enumerate()
+                    .filter(|(i, _)| mask >> i & 1 == 1)
+                    .map(|(_, &s)| s)
+                    .collect();
+                SymmetrySet::of(&chosen)
+            })
+            .collect()
+    }
+}
+
+impl FromStr for SymmetrySet {
+    type Err = SymmetryError;
+
+    fn from_str(text: &str) -> Result<Self, SymmetryError> {
+        let text = text.trim();
+        if text == "none" || text.is_empty() {
+            return Ok(SymmetrySet::none());
+        }
+        let mut schemes = Vec::new();
+        for part in text.split(',') {
+            let part = part.trim();
+            let scheme = Scheme::ALL
+                .into_iter()
+                .find(|s| s.name() == part)
+                .ok_or_else(|| SymmetryError::Unknown(part.to_string()))?;
+            schemes.push(scheme);
+        }
+        Ok(SymmetrySet::of(&schemes))
+    }
+}
+
+impl fmt::Display for SymmetrySet {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        if self.schemes.is_empty() {
+            return f.write_str("none");
+        }
+        let names: Vec<&str> = self.schemes.iter().map(|s| s.name()).collect();
+        f.write_str(&names.join(","))
+    }
+}
+
+/// The symmetry-breaking clauses of an instance, with their auxiliary variables.
+#[derive(Clone, Debug, Default)]
+pub struct SymmetryClauses {
+    pub clauses: Vec<Vec<i32>>,
+    /// Auxiliary variables used (numbered after the colour variables).
+    pub aux_variables: usize,
+    /// Smaller Ramsey values the clauses rest on.
+    pub premises: Vec<Premise>,
+}
+
+/// Generates the clauses of `set` for `instance`.
+pub fn symmetry_clauses(instance: &Instance, set: &SymmetrySet) -> SymmetryClauses {
+    let vars = VariableMap::new(instance.order(), instance.colours());
+    let mut out = SymmetryClauses::default();
+    let mut next_var = vars.colour_variable_count() + 1;
+    if set.contains(Scheme::ColourSwap) {
+        out.clauses.extend(colour_swap::clauses(
+            instance,
+            &vars,
+            set.contains(Scheme::LexLeader),
+        ));
+    }
+    if set.contains(Scheme::LexLeader) {
+        let used = lex_leader::clauses(&vars, next_var, &mut out.clauses);
+        next_var += used;
+        out.aux_variables += used;
+    }
+    if set.contains(Scheme::DegreeBounds) {
+        let (used, premises) = degree_bounds::clauses(instance, &vars, next_var, &mut out.clauses);
+        out.aux_variables += used;
+        out.premises = premises;
+    }
+    out
+}
