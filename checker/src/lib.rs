@@ -9,12 +9,20 @@
 //! * [`colouring_file`] and [`graph6`] read the two witness formats.
 //! * [`cliques`] searches a colour class for a clique by direct enumeration.
 //! * [`witness`] puts these together into a verdict.
+//! * [`cnf`], [`drat_parse`] and [`lrat`] read formulas and refutation proofs;
+//!   [`drat_check`] checks DRAT backwards (and can emit LRAT), [`lrat`] checks LRAT
+//!   forwards; [`input`] decompresses gzip transparently.
 
 pub mod claim;
 pub mod cliques;
+pub mod cnf;
 pub mod colouring_file;
+pub mod drat_check;
+pub mod drat_parse;
 pub mod graph6;
+pub mod input;
 pub mod input_error;
+pub mod lrat;
 pub mod matrix;
 pub mod witness;
 

@@ -7,6 +7,8 @@ use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
+mod proofs;
+
 use ramsift_checker::colouring_file::{parse_colouring_file, MAGIC};
 use ramsift_checker::graph6::decode_graph6_file;
 use ramsift_checker::{check_colouring, Claim, ColourMatrix, Verdict};
@@ -42,17 +44,47 @@ enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Check a DRAT refutation (text or binary, gzip allowed) of a DIMACS CNF.
+    Drat {
+        /// The formula (DIMACS CNF, gzip allowed).
+        cnf: PathBuf,
+        /// The proof (DRAT text or binary, detected from the content; gzip allowed).
+        proof: PathBuf,
+        /// Also write an LRAT proof of the same refutation to this file.
+        #[arg(long, value_name = "FILE")]
+        emit_lrat: Option<PathBuf>,
+        /// Print the result as JSON on stdout.
+        #[arg(long)]
+        json: bool,
+    },
+    /// Check an LRAT refutation (text, gzip allowed) of a DIMACS CNF.
+    Lrat {
+        /// The formula (DIMACS CNF, gzip allowed).
+        cnf: PathBuf,
+        /// The proof (LRAT text; gzip allowed).
+        proof: PathBuf,
+        /// Print the result as JSON on stdout.
+        #[arg(long)]
+        json: bool,
+    },
 }
 
 fn main() -> ExitCode {
     let cli = Cli::parse();
     match cli.command {
         Command::Colouring { file, forbid, json } => run_colouring(&file, forbid.as_deref(), json),
+        Command::Drat {
+            cnf,
+            proof,
+            emit_lrat,
+            json,
+        } => proofs::run_drat(&cnf, &proof, emit_lrat.as_deref(), json),
+        Command::Lrat { cnf, proof, json } => proofs::run_lrat(&cnf, &proof, json),
     }
 }
 
 /// Prints an input error and returns exit code 2.
-fn unreadable(message: impl std::fmt::Display) -> ExitCode {
+pub(crate) fn unreadable(message: impl std::fmt::Display) -> ExitCode {
     eprintln!("ramsift-check: error: {message}");
     ExitCode::from(2)
 }

@@ -10,7 +10,7 @@
 //! budgets are enforced, see [`crate::interrupt`]) usable.
 
 use std::io::{self, Write};
-use std::sync::atomic::AtomicBool;
+use std::sync::atomic::{AtomicBool, AtomicU64};
 use std::time::{Duration, Instant};
 
 use rand::seq::SliceRandom;
@@ -119,12 +119,26 @@ pub fn run_attempt<W: Write>(
     proof: Option<W>,
     text_proof: bool,
 ) -> Result<AttemptReport, AttemptError> {
+    run_attempt_counted(formula, plan, stop, deadline, proof, text_proof, None)
+}
+
+/// [`run_attempt`], adding the proof bytes to `bytes_seen` as they are written.
+pub fn run_attempt_counted<W: Write>(
+    formula: &Formula,
+    plan: &AttemptPlan,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+    proof: Option<W>,
+    text_proof: bool,
+    bytes_seen: Option<&AtomicU64>,
+) -> Result<AttemptReport, AttemptError> {
     let started = Instant::now();
     let report = SinkReport::default();
     let limits = Limits {
         stop,
         deadline,
         budget_bytes: plan.budget_bytes,
+        bytes_seen,
     };
     let outcome = {
         let mut solver = Solver::new();

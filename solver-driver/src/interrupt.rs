@@ -10,7 +10,7 @@
 
 use std::cell::Cell;
 use std::io::{self, Write};
-use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 use std::time::Instant;
 
 /// Why a solve was stopped.
@@ -31,6 +31,8 @@ pub struct Limits<'a> {
     pub deadline: Option<Instant>,
     /// Proof bytes this attempt may produce (None: unlimited).
     pub budget_bytes: Option<u64>,
+    /// A counter of proof bytes that others may read while the solve runs.
+    pub bytes_seen: Option<&'a AtomicU64>,
 }
 
 /// What a sink saw, readable after the solver that owns the sink is gone.

@@ -8,14 +8,18 @@
 //! * [`seeding`] draws the random partial colourings.
 //! * [`portfolio`] runs the workers in parallel and collects the first answer.
 //! * [`witness`] writes colourings (our text format, graph6) and the JSON summary.
+//! * [`refute`] proves unsatisfiability with a DRAT trace and writes the
+//!   certificate [`bundle`].
 //! * [`exit_codes`] are the SAT-competition-style exit codes of the binary.
 
 pub mod attempt;
+pub mod bundle;
 pub mod exit_codes;
 pub mod formula;
 pub mod graph6;
 pub mod interrupt;
 pub mod portfolio;
+pub mod refute;
 pub mod seeding;
 pub mod verify;
 pub mod witness;

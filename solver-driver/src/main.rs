@@ -32,6 +32,8 @@ struct Cli {
 enum Command {
     /// Search for a colouring of K_N with no monochromatic forbidden clique.
     Find(commands::find::FindArgs),
+    /// Prove that no colouring exists and write a certificate bundle (CNF, DRAT, manifest).
+    Refute(commands::refute::RefuteArgs),
     /// Write the CNF encoding of an instance as DIMACS (gzip if the name ends in .gz).
     Encode(commands::encode::EncodeArgs),
     /// A short built-in session: find and check witnesses for classical bounds.
@@ -43,6 +45,7 @@ fn main() -> ExitCode {
     let result = match cli.command {
         Command::Find(args) => commands::find::run(&args),
         Command::Encode(args) => commands::encode::run(&args),
+        Command::Refute(args) => commands::refute::run(&args),
         Command::Demo(args) => commands::demo::run(&args),
     };
     match result {

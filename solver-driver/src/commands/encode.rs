@@ -19,6 +19,9 @@ pub struct EncodeArgs {
     /// Output file (DIMACS CNF; gzip-compressed if the name ends in .gz).
     #[arg(long, value_name = "FILE")]
     pub out: PathBuf,
+    /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
+    #[arg(long, default_value = "none", value_name = "SCHEMES")]
+    pub symmetry: String,
     /// Print what was written as JSON on stdout.
     #[arg(long)]
     pub json: bool,
@@ -35,7 +38,7 @@ struct EncodeSummary {
 }
 
 pub fn run(args: &EncodeArgs) -> Result<u8> {
-    let encoding = args.instance.encoding()?;
+    let encoding = args.instance.encoding(&args.symmetry)?;
     let started = Instant::now();
     let bytes = write_encoding_to(&encoding, &args.out)
         .with_context(|| format!("writing {}", args.out.display()))?;

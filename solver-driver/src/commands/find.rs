@@ -30,6 +30,10 @@ pub struct FindArgs {
     /// Write the witness (colouring file, graph6) and summary.json into this directory.
     #[arg(long, value_name = "DIR")]
     pub out: Option<PathBuf>,
+    /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
+    /// None is the default for searches (it slows satisfiable searches down).
+    #[arg(long, default_value = "none", value_name = "SCHEMES")]
+    pub symmetry: String,
     /// Print the summary as JSON on stdout instead of text.
     #[arg(long)]
     pub json: bool,
@@ -39,7 +43,7 @@ pub struct FindArgs {
 }
 
 pub fn run(args: &FindArgs) -> Result<u8> {
-    let encoding = args.instance.encoding()?;
+    let encoding = args.instance.encoding(&args.symmetry)?;
     let instance = encoding.instance().clone();
     let timeout = match args.timeout {
         Some(t) if !(t.is_finite() && t > 0.0) => {

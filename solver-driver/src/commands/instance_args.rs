@@ -4,7 +4,7 @@ use anyhow::{Context, Result};
 use clap::Args;
 
 use ramsift_encoder::clauses::DEFAULT_MAX_CLAUSES;
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 
 #[derive(Args, Clone, Debug)]
 pub struct InstanceArgs {
@@ -28,11 +28,15 @@ impl InstanceArgs {
         Ok(Instance::new(spec, self.order)?)
     }
 
-    pub fn encoding(&self) -> Result<CliqueEncoding> {
+    /// The encoding with the symmetry schemes named by `symmetry` (`none`, or a comma list).
+    pub fn encoding(&self, symmetry: &str) -> Result<CliqueEncoding> {
         let instance = self.instance()?;
+        let symmetry: SymmetrySet = symmetry.parse().context("--symmetry")?;
         let limits = EncodingLimits {
             max_clauses: self.max_clauses,
         };
-        Ok(CliqueEncoding::new(&instance, &limits)?)
+        Ok(CliqueEncoding::with_symmetry(
+            &instance, &symmetry, &limits,
+        )?)
     }
 }

@@ -5,3 +5,4 @@ pub mod encode;
 pub mod find;
 pub mod instance_args;
 pub mod progress;
+pub mod refute;

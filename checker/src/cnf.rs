@@ -1,0 +1,159 @@
+//! DIMACS CNF reader (SAT Competition format): `c` comment lines, one problem line
+//! `p cnf V C`, then C clauses of non-zero integers within ±V, each ended by 0.
+//! The reader is strict: the clause count must match the header, and nothing but
+//! comments may follow the last clause.
+
+use crate::input_error::InputError;
+
+/// A formula: clauses as DIMACS literals.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct Cnf {
+    pub variables: usize,
+    pub clauses: Vec<Vec<i32>>,
+    /// Comment lines (without the leading `c`), for header inspection.
+    pub comments: Vec<String>,
+}
+
+/// Parses DIMACS CNF text; `name` is used in error messages.
+pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
+    let text = std::str::from_utf8(bytes).map_err(|e| {
+        InputError::at_byte(
+            name,
+            e.valid_up_to() as u64,
+            "not text: expected DIMACS CNF",
+        )
+    })?;
+    let mut header: Option<(usize, usize)> = None;
+    let mut clauses: Vec<Vec<i32>> = Vec::new();
+    let mut comments = Vec::new();
+    let mut current: Vec<i32> = Vec::new();
+    let mut last_line = 0;
+    for (index, line) in text.lines().enumerate() {
+        let line_no = index + 1;
+        last_line = line_no;
+        let trimmed = line.trim();
+        if trimmed.is_empty() {
+            continue;
+        }
+        if let Some(rest) = trimmed.strip_prefix('c') {
+            if rest.is_empty() || rest.starts_with(char::is_whitespace) {
+                comments.push(rest.trim_start().to_string());
+                continue;
+            }
+        }
+        if trimmed.starts_with('p') {
+            if header.is_some() {
+                return Err(InputError::at_line(name, line_no, "a second problem line"));
+            }
+            let words: Vec<&str> = trimmed.split_whitespace().collect();
+            let parsed = match words.as_slice() {
+                ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
+                _ => None,
+            };
+            let (v, c) = parsed.ok_or_else(|| {
+                InputError::at_line(
+                    name,
+                    line_no,
+                    format!(
+                        "expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}"
+                    ),
+                )
+            })?;
+            if v > i32::MAX as usize {
+                return Err(InputError::at_line(
+                    name,
+                    line_no,
+                    format!("{v} variables: more than 32-bit literals can name"),
+                ));
+            }
+            header = Some((v, c));
+            continue;
+        }
+        let Some((variables, clause_count)) = header else {
+            return Err(InputError::at_line(
+                name,
+                line_no,
+                "clause before the problem line `p cnf V C`",
+            ));
+        };
+        for token in trimmed.split_whitespace() {
+            let lit: i64 = token.parse().map_err(|_| {
+                InputError::at_line(
+                    name,
+                    line_no,
+                    format!("{token:?} is not an integer literal"),
+                )
+            })?;
+            if lit == 0 {
+                if clauses.len() == clause_count {
+                    return Err(InputError::at_line(
+                        name,
+                        line_no,
+                        format!("more clauses than the {clause_count} the problem line promises"),
+                    ));
+                }
+                clauses.push(std::mem::take(&mut current));
+            } else {
+                if lit.unsigned_abs() as usize > variables {
+                    return Err(InputError::at_line(
+                        name,
+                        line_no,
+                        format!("literal {lit} is outside the {variables} declared variables"),
+                    ));
+                }
+                current.push(lit as i32);
+            }
+        }
+    }
+    let Some((variables, clause_count)) = header else {
+        return Err(InputError::whole(name, "no problem line `p cnf V C`"));
+    };
+    if !current.is_empty() {
+        return Err(InputError::at_line(
+            name,
+            last_line,
+            "the last clause is not ended by 0",
+        ));
+    }
+    if clauses.len() != clause_count {
+        return Err(InputError::whole(
+            name,
+            format!(
+                "the problem line promises {clause_count} clauses, the file has {}",
+                clauses.len()
+            ),
+        ));
+    }
+    Ok(Cnf {
+        variables,
+        clauses,
+        comments,
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn reads_a_small_formula() {
+        let cnf = parse_cnf("f", b"c hello\np cnf 2 2\n1 -2 0\n2\n 0\n").unwrap();
+        assert_eq!(cnf.clauses, vec![vec![1, -2], vec![2]]);
+        assert_eq!(cnf.comments, vec!["hello"]);
+    }
+
+    #[test]
+    fn malformed_formulas_say_where() {
+        let err = |t: &[u8]| parse_cnf("f", t).unwrap_err().to_string();
+        assert!(err(b"1 2 0\n").contains("f:1: clause before"));
+        assert!(err(b"p cnf x 1\n").contains("problem line"));
+        assert!(err(b"p cnf 2 1\n1 3 0\n").contains("f:2: literal 3 is outside"));
+        assert!(err(b"p cnf 2 1\n1 a 0\n").contains("\"a\" is not an integer"));
+        assert!(err(b"p cnf 2 1\n1 2\n").contains("not ended by 0"));
+        assert!(err(b"p cnf 2 2\n1 2 0\n").contains("promises 2 clauses, the file has 1"));
+        assert!(err(b"p cnf 2 1\n1 0 2 0\n").contains("more clauses"));
+        assert!(err(b"p cnf 2 1\np cnf 2 1\n").contains("second problem line"));
+        assert!(err(b"").contains("no problem line"));
+        assert!(err(b"\xff").contains("not text"));
+    }
+}

@@ -1,0 +1,234 @@
+//! DRAT proof reader (Wetzler, Heule & Hunt, SAT 2014), text and binary.
+//!
+//! Text: each step is `l1 … lk 0` (add a lemma) or `d l1 … lk 0` (delete a clause).
+//! Binary: byte `a` (0x61) or `d` (0x64), then each literal l as the unsigned
+//! number u = 2l (l > 0) or -2l+1 (l < 0) in little-endian base-128 (7 bits per
+//! byte, high bit set on all but the last), then a 0 byte.
+//!
+//! The format is detected from the content: binary if the first byte is `a` or
+//! any of the first 1024 bytes is outside printable ASCII and white space.
+
+use crate::input_error::InputError;
+
+/// Whether a step adds a lemma or deletes a clause.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum StepKind {
+    Add,
+    Delete,
+}
+
+/// One proof step, with the byte offset where it starts in the (decompressed) file.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct DratStep {
+    pub kind: StepKind,
+    pub literals: Vec<i32>,
+    pub offset: u64,
+}
+
+/// Whether the bytes look like binary DRAT.
+pub fn is_binary(bytes: &[u8]) -> bool {
+    bytes.first() == Some(&b'a')
+        || bytes
+            .iter()
+            .take(1024)
+            .any(|&b| !(0x20..=0x7e).contains(&b) && !matches!(b, b'\n' | b'\r' | b'\t'))
+}
+
+/// Parses a DRAT proof in either form.
+pub fn parse_drat(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
+    if is_binary(bytes) {
+        parse_binary(name, bytes)
+    } else {
+        parse_text(name, bytes)
+    }
+}
+
+fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
+    let mut steps = Vec::new();
+    let mut pos = 0usize;
+    let mut current: Option<DratStep> = None;
+    while pos < bytes.len() {
+        let b = bytes[pos];
+        if b.is_ascii_whitespace() {
+            pos += 1;
+            continue;
+        }
+        if b == b'c' && current.is_none() {
+            // A comment runs to the end of the line.
+            while pos < bytes.len() && bytes[pos] != b'\n' {
+                pos += 1;
+            }
+            continue;
+        }
+        let start = pos;
+        while pos < bytes.len() && !bytes[pos].is_ascii_whitespace() {
+            pos += 1;
+        }
+        let token = &bytes[start..pos];
+        if token == b"d" {
+            if current.is_some() {
+                return Err(InputError::at_byte(
+                    name,
+                    start as u64,
+                    "'d' inside a clause: expected a literal or 0",
+                ));
+            }
+            current = Some(DratStep {
+                kind: StepKind::Delete,
+                literals: Vec::new(),
+                offset: start as u64,
+            });
+            continue;
+        }
+        let lit: i32 = std::str::from_utf8(token)
+            .ok()
+            .and_then(|t| t.parse().ok())
+            .ok_or_else(|| {
+                InputError::at_byte(
+                    name,
+                    start as u64,
+                    format!(
+                        "{:?} is not a literal: expected a 32-bit integer or 'd'",
+                        String::from_utf8_lossy(token)
+                    ),
+                )
+            })?;
+        let step = current.get_or_insert_with(|| DratStep {
+            kind: StepKind::Add,
+            literals: Vec::new(),
+            offset: start as u64,
+        });
+        if lit == 0 {
+            steps.push(current.take().expect("a step is open"));
+        } else {
+            step.literals.push(lit);
+        }
+    }
+    if let Some(step) = current {
+        return Err(InputError::at_byte(
+            name,
+            step.offset,
+            "the last step is not ended by 0 (truncated proof?)",
+        ));
+    }
+    Ok(steps)
+}
+
+fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
+    let mut steps = Vec::new();
+    let mut pos = 0usize;
+    while pos < bytes.len() {
+        let start = pos;
+        let kind = match bytes[pos] {
+            b'a' => StepKind::Add,
+            b'd' => StepKind::Delete,
+            other => {
+                return Err(InputError::at_byte(
+                    name,
+                    pos as u64,
+                    format!("byte 0x{other:02x}: expected a binary DRAT step ('a' or 'd')"),
+                ))
+            }
+        };
+        pos += 1;
+        let mut literals = Vec::new();
+        loop {
+            let lit_start = pos;
+            let mut value: u64 = 0;
+            let mut shift = 0;
+            loop {
+                let Some(&byte) = bytes.get(pos) else {
+                    return Err(InputError::at_byte(
+                        name,
+                        start as u64,
+                        "the last step is cut off (truncated proof?)",
+                    ));
+                };
+                pos += 1;
+                if shift > 28 {
+                    return Err(InputError::at_byte(
+                        name,
+                        lit_start as u64,
+                        "literal too large for 32 bits",
+                    ));
+                }
+                value |= ((byte & 0x7f) as u64) << shift;
+                shift += 7;
+                if byte & 0x80 == 0 {
+                    break;
+                }
+            }
+            if value == 0 {
+                break;
+            }
+            let magnitude = value >> 1;
+            if magnitude == 0 || magnitude > i32::MAX as u64 {
+                return Err(InputError::at_byte(
+                    name,
+                    lit_start as u64,
+                    format!("encoded literal {value} is not a valid literal"),
+                ));
+            }
+            let lit = magnitude as i32;
+            literals.push(if value & 1 == 1 { -lit } else { lit });
+        }
+        steps.push(DratStep {
+            kind,
+            literals,
+            offset: start as u64,
+        });
+    }
+    Ok(steps)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn binary_examples_from_the_format() {
+        // 129 -> 82 02 and -8193 -> 83 80 01 (binary DRAT description; shared facts).
+        let steps = parse_drat(
+            "p",
+            &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00],
+        )
+        .unwrap();
+        assert_eq!(
+            steps[0],
+            DratStep {
+                kind: StepKind::Add,
+                literals: vec![129, -8193],
+                offset: 0
+            }
+        );
+        assert_eq!(
+            steps[1],
+            DratStep {
+                kind: StepKind::Delete,
+                literals: vec![2],
+                offset: 7
+            }
+        );
+    }
+
+    #[test]
+    fn text_steps_with_offsets() {
+        let steps = parse_drat("p", b"1 -2 0\nd 1 -2 0\n0\n").unwrap();
+        assert_eq!(steps.len(), 3);
+        assert_eq!(steps[1].kind, StepKind::Delete);
+        assert_eq!(steps[1].offset, 7);
+        assert!(steps[2].literals.is_empty());
+    }
+
+    #[test]
+    fn malformed_proofs_name_the_offset() {
+        let err = |b: &[u8]| parse_drat("p", b).unwrap_err().to_string();
+        assert!(err(b"1 2 0\n3 x 0\n").contains("byte 8"));
+        assert!(err(b"1 2 0\n3 4").contains("byte 6: the last step is not ended"));
+        assert!(err(b"1 d 0\n").contains("'d' inside"));
+        assert!(err(&[b'a', 0x82]).contains("cut off"));
+        assert!(err(&[b'a', 0x02, 0x00, b'x']).contains("byte 3"));
+        assert!(err(&[b'a', 0x01, 0x00]).contains("not a valid literal"));
+        assert!(err(&[b'a', 0xff, 0xff, 0xff, 0xff, 0xff, 0x01, 0x00]).contains("too large"));
+    }
+}

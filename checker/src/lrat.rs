@@ -1,0 +1,411 @@
+//! LRAT (Cruz-Filipe, Heule, Hunt, Kaufmann & Schneider-Kamp, CADE 2017): reading,
+//! writing, and checking by forward replay of the hints.
+//!
+//! Text lines are `id l1 … lk 0 h1 … hm 0` (a lemma with its hints) or
+//! `id d c1 … cm 0` (deletions). Positive hints are clauses that must each be unit
+//! (or falsified, ending the check) under the negation of the lemma and the literals
+//! implied so far. A negative hint -d starts the RAT case for candidate clause d
+//! (which must contain the negation of the lemma's first literal); the positive
+//! hints after it refute the resolvent. Every clause containing that negation must
+//! have its group. The proof is complete when the empty clause is added.
+
+use std::collections::HashMap;
+use std::fmt::Write as _;
+
+use crate::cnf::Cnf;
+use crate::drat_check::LratLemma;
+use crate::input_error::InputError;
+
+/// One LRAT step.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum LratStep {
+    Add(LratLemma),
+    Delete { id: u64, clauses: Vec<u64> },
+}
+
+/// A step and the line it was read from.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct LratLine {
+    pub step: LratStep,
+    pub line: usize,
+}
+
+/// Parses text LRAT.
+pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError> {
+    let text = std::str::from_utf8(bytes).map_err(|e| {
+        InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected LRAT")
+    })?;
+    let mut out = Vec::new();
+    for (index, raw) in text.lines().enumerate() {
+        let line = index + 1;
+        let trimmed = raw.trim();
+        if trimmed.is_empty() || trimmed.starts_with('c') {
+            continue;
+        }
+        let err = |m: String| InputError::at_line(name, line, m);
+        let mut tokens = trimmed.split_whitespace();
+        let id: u64 = tokens
+            .next()
+            .and_then(|t| t.parse().ok())
+            .filter(|&id| id > 0)
+            .ok_or_else(|| err("expected a positive clause id at the start of the line".into()))?;
+        let rest: Vec<&str> = tokens.collect();
+        let numbers = |tokens: &[&str]| -> Result<Vec<i64>, InputError> {
+            tokens
+                .iter()
+                .map(|t| {
+                    t.parse::<i64>()
+                        .map_err(|_| err(format!("{t:?} is not an integer")))
+                })
+                .collect()
+        };
+        if rest.first() == Some(&"d") {
+            let values = numbers(&rest[1..])?;
+            match values.split_last() {
+                Some((0, ids)) if ids.iter().all(|&i| i > 0) => out.push(LratLine {
+                    step: LratStep::Delete {
+                        id,
+                        clauses: ids.iter().map(|&i| i as u64).collect(),
+                    },
+                    line,
+                }),
+                _ => {
+                    return Err(err(
+                        "a deletion line lists positive clause ids ending in 0".into()
+                    ))
+                }
+            }
+            continue;
+        }
+        let values = numbers(&rest)?;
+        let zeros: Vec<usize> = values
+            .iter()
+            .enumerate()
+            .filter(|(_, &v)| v == 0)
+            .map(|(i, _)| i)
+            .collect();
+        if zeros.len() != 2 || zeros[1] != values.len() - 1 {
+            return Err(err("expected `id literals 0 hints 0`".into()));
+        }
+        let literals: Vec<i32> = values[..zeros[0]]
+            .iter()
+            .map(|&l| {
+                i32::try_from(l).map_err(|_| err(format!("literal {l} does not fit 32 bits")))
+            })
+            .collect::<Result<_, _>>()?;
+        let hints = values[zeros[0] + 1..zeros[1]].to_vec();
+        out.push(LratLine {
+            step: LratStep::Add(LratLemma {
+                id,
+                literals,
+                hints,
+            }),
+            line,
+        });
+    }
+    Ok(out)
+}
+
+/// Writes lemmas as text LRAT.
+pub fn write_lrat(lemmas: &[LratLemma]) -> String {
+    let mut out = String::new();
+    for lemma in lemmas {
+        let _ = write!(out, "{}", lemma.id);
+        for l in &lemma.literals {
+            let _ = write!(out, " {l}");
+        }
+        out.push_str(" 0");
+        for h in &lemma.hints {
+            let _ = write!(out, " {h}");
+        }
+        out.push_str(" 0\n");
+    }
+    out
+}
+
+/// What a successful LRAT check saw.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct LratReport {
+    pub lemmas: usize,
+    pub rat_lemmas: usize,
+    pub deletions: usize,
+}
+
+/// Assignment with a trail for cheap resets.
+struct Assignment {
+    value: Vec<i8>,
+    trail: Vec<usize>,
+}
+
+impl Assignment {
+    fn value(&self, lit: i32) -> i8 {
+        let v = self.value[lit.unsigned_abs() as usize];
+        if lit > 0 {
+            v
+        } else {
+            -v
+        }
+    }
+    fn set_true(&mut self, lit: i32) {
+        let var = lit.unsigned_abs() as usize;
+        self.value[var] = if lit > 0 { 1 } else { -1 };
+        self.trail.push(var);
+    }
+    fn undo_to(&mut self, length: usize) {
+        for var in self.trail.drain(length..) {
+            self.value[var] = 0;
+        }
+    }
+}
+
+enum HintResult {
+    Conflict,
+    Open,
+}
+
+/// Applies positive hints in order; a hint must be unit or falsified.
+fn replay(
+    db: &HashMap<u64, Vec<i32>>,
+    assignment: &mut Assignment,
+    hints: &[i64],
+    line: usize,
+) -> Result<HintResult, String> {
+    for &hint in hints {
+        let clause = db
+            .get(&(hint as u64))
+            .ok_or_else(|| format!("line {line}: hint {hint} names no live clause"))?;
+        let mut unassigned = None;
+        let mut open = 0;
+        for &l in clause {
+            match assignment.value(l) {
+                1 => {
+                    return Err(format!(
+                        "line {line}: hint {hint} is already satisfied, not unit"
+                    ))
+                }
+                0 => {
+                    if unassigned != Some(l) {
+                        open += 1;
+                        unassigned = Some(l);
+                    }
+                }
+                _ => {}
+            }
+        }
+        match (open, unassigned) {
+            (0, _) => return Ok(HintResult::Conflict),
+            (1, Some(l)) => assignment.set_true(l),
+            _ => {
+                return Err(format!(
+                    "line {line}: hint {hint} is not unit ({open} literals open)"
+                ))
+            }
+        }
+    }
+    Ok(HintResult::Open)
+}
+
+/// Checks an LRAT refutation of `cnf` by forward replay.
+pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
+    let max_var = lines
+        .iter()
+        .filter_map(|l| match &l.step {
+            LratStep::Add(a) => a.literals.iter().map(|x| x.unsigned_abs() as usize).max(),
+            LratStep::Delete { .. } => None,
+        })
+        .max()
+        .unwrap_or(0)
+        .max(cnf.variables);
+    let mut db: HashMap<u64, Vec<i32>> = HashMap::new();
+    for (i, c) in cnf.clauses.iter().enumerate() {
+        if c.is_empty() {
+            return Ok(LratReport::default());
+        }
+        db.insert(i as u64 + 1, c.clone());
+    }
+    let mut last_id = cnf.clauses.len() as u64;
+    let mut assignment = Assignment {
+        value: vec![0; max_var + 1],
+        trail: Vec::new(),
+    };
+    let mut report = LratReport::default();
+    for entry in lines {
+        let line = entry.line;
+        match &entry.step {
+            LratStep::Delete { clauses, .. } => {
+                for id in clauses {
+                    if db.remove(id).is_none() {
+                        return Err(format!(
+                            "line {line}: deletes clause {id}, which is not live"
+                        ));
+                    }
+                    report.deletions += 1;
+                }
+            }
+            LratStep::Add(lemma) => {
+                if lemma.id <= last_id {
+                    return Err(format!(
+                        "line {line}: clause id {} is not above the previous id {last_id}",
+                        lemma.id
+                    ));
+                }
+                last_id = lemma.id;
+                report.lemmas += 1;
+                assignment.undo_to(0);
+                let mut tautology = false;
+                for &l in &lemma.literals {
+                    match assignment.value(l) {
+                        1 => tautology = true,
+                        0 => assignment.set_true(-l),
+                        _ => {}
+                    }
+                }
+                let first_rat = lemma
+                    .hints
+                    .iter()
+                    .position(|&h| h < 0)
+                    .unwrap_or(lemma.hints.len());
+                let verified = tautology
+                    || match replay(&db, &mut assignment, &lemma.hints[..first_rat], line)? {
+                        HintResult::Conflict => true,
+                        HintResult::Open => {
+                            if first_rat == lemma.hints.len() {
+                                return Err(format!(
+                                    "line {line}: the hints of clause {} end without a conflict",
+                                    lemma.id
+                                ));
+                            }
+                            report.rat_lemmas += 1;
+                            check_rat_groups(
+                                &db,
+                                &mut assignment,
+                                lemma,
+                                &lemma.hints[first_rat..],
+                                line,
+                            )?;
+                            true
+                        }
+                    };
+                debug_assert!(verified);
+                db.insert(lemma.id, lemma.literals.clone());
+                if lemma.literals.is_empty() {
+                    return Ok(report);
+                }
+            }
+        }
+    }
+    Err("the proof ends without adding the empty clause".to_string())
+}
+
+fn check_rat_groups(
+    db: &HashMap<u64, Vec<i32>>,
+    assignment: &mut Assignment,
+    lemma: &LratLemma,
+    groups: &[i64],
+    line: usize,
+) -> Result<(), String> {
+    let pivot = *lemma
+        .literals
+        .first()
+        .ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
+    let base = assignment.trail.len();
+    let mut covered: Vec<u64> = Vec::new();
+    let mut k = 0;
+    while k < groups.len() {
+        let candidate = (-groups[k]) as u64;
+        let end = groups[k + 1..]
+            .iter()
+            .position(|&h| h < 0)
+            .map_or(groups.len(), |p| k + 1 + p);
+        let clause = db.get(&candidate).ok_or_else(|| {
+            format!("line {line}: RAT candidate {candidate} names no live clause")
+        })?;
+        if !clause.contains(&-pivot) {
+            return Err(format!(
+                "line {line}: RAT candidate {candidate} does not contain {}",
+                -pivot
+            ));
+        }
+        assignment.undo_to(base);
+        let mut done = false;
+        for &l in clause.iter().filter(|&&l| l != -pivot) {
+            match assignment.value(l) {
+                1 => done = true,
+                0 => assignment.set_true(-l),
+                _ => {}
+            }
+        }
+        if !done {
+            match replay(db, assignment, &groups[k + 1..end], line)? {
+                HintResult::Conflict => {}
+                HintResult::Open => return Err(format!(
+                    "line {line}: the hints for RAT candidate {candidate} end without a conflict"
+                )),
+            }
+        }
+        covered.push(candidate);
+        k = end;
+    }
+    for (&id, clause) in db {
+        if clause.contains(&-pivot) && !covered.contains(&id) {
+            return Err(format!(
+                "line {line}: RAT candidate {id} (contains {}) has no hints",
+                -pivot
+            ));
+        }
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::cnf::parse_cnf;
+
+    // The worked example of the LRAT paper (Cruz-Filipe et al., CADE 2017; shared facts).
+    const CNF: &[u8] = b"p cnf 2 4\n1 2 0\n-1 2 0\n1 -2 0\n-1 -2 0\n";
+    const PROOF: &[u8] = b"5 -2 0 4 3 0\n5 d 3 4 0\n6 1 0 5 1 0\n6 d 1 0\n7 0 5 2 6 0\n";
+
+    #[test]
+    fn worked_example_is_accepted() {
+        let cnf = parse_cnf("f", CNF).unwrap();
+        let lines = parse_lrat("p", PROOF).unwrap();
+        let report = check_lrat(&cnf, &lines).unwrap();
+        assert_eq!(report.lemmas, 3);
+        assert_eq!(report.deletions, 3);
+    }
+
+    #[test]
+    fn broken_hints_are_rejected() {
+        let cnf = parse_cnf("f", CNF).unwrap();
+        for bad in [
+            &b"5 -2 0 4 0\n"[..],           // hints end without conflict
+            b"5 -2 0 4 3 0\n6 1 0 5 3 0\n", // 3 is not unit... falsified? must fail somewhere
+            b"5 -2 0 9 0\n",                // no such clause
+            b"5 -2 0 4 3 0\n5 1 0 5 1 0\n", // id not increasing
+            b"5 -2 0 4 3 0\n5 d 3 4 0\n6 1 0 5 1 0\n6 d 1 0\n7 0 5 2 0\n", // last conflict missing
+            b"5 -2 0 4 3 0\n",              // never adds the empty clause
+        ] {
+            let lines = parse_lrat("p", bad).unwrap();
+            assert!(
+                check_lrat(&cnf, &lines).is_err(),
+                "{}",
+                String::from_utf8_lossy(bad)
+            );
+        }
+    }
+
+    #[test]
+    fn malformed_lines_name_the_line() {
+        assert!(parse_lrat("p", b"5 -2 0 4 3\n")
+            .unwrap_err()
+            .to_string()
+            .contains("p:1"));
+        assert!(parse_lrat("p", b"x 1 0 0\n").is_err());
+        assert!(parse_lrat("p", b"5 d 3 -4 0\n").is_err());
+        assert!(parse_lrat("p", b"5 1 0 0\n6 a 0 0\n")
+            .unwrap_err()
+            .to_string()
+            .contains("p:2"));
+    }
+}

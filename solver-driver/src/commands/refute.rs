@@ -1,0 +1,158 @@
+//! `ramsift refute SPEC N --out DIR`: a certified refutation bundle.
+
+use std::path::PathBuf;
+use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
+use std::time::{Duration, Instant};
+
+use anyhow::{Context, Result};
+use clap::Args;
+use serde_json::json;
+
+use ramsift_driver::exit_codes;
+use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::witness::{colouring_text, write_witness_files};
+
+use super::instance_args::InstanceArgs;
+use super::progress::{seconds, ProgressLine};
+
+/// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements).
+pub const DEFAULT_REFUTE_SYMMETRY: &str = "colour-swap,lex-leader";
+
+#[derive(Args, Debug)]
+pub struct RefuteArgs {
+    #[command(flatten)]
+    pub instance: InstanceArgs,
+    /// The bundle directory (created if needed).
+    #[arg(long, value_name = "DIR")]
+    pub out: PathBuf,
+    /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
+    #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
+    pub symmetry: String,
+    /// Write the DRAT trace as text instead of binary.
+    #[arg(long)]
+    pub text: bool,
+    /// gzip-compress the DRAT trace.
+    #[arg(long)]
+    pub gzip: bool,
+    /// Give up after this many seconds (exit code 1; no bundle is written).
+    #[arg(long, value_name = "SECONDS")]
+    pub timeout: Option<f64>,
+    /// Print the outcome as JSON on stdout.
+    #[arg(long)]
+    pub json: bool,
+    /// No progress line on stderr.
+    #[arg(long, short)]
+    pub quiet: bool,
+}
+
+pub fn run(args: &RefuteArgs) -> Result<u8> {
+    let encoding = args.instance.encoding(&args.symmetry)?;
+    let instance = encoding.instance().clone();
+    let timeout = match args.timeout {
+        Some(t) if !(t.is_finite() && t > 0.0) => {
+            anyhow::bail!("--timeout {t}: expected a positive number of seconds")
+        }
+        t => t.map(Duration::from_secs_f64),
+    };
+    let options = RefuteOptions {
+        text_proof: args.text,
+        gzip_proof: args.gzip,
+        timeout,
+    };
+    let stop = AtomicBool::new(false);
+    let bytes = AtomicU64::new(0);
+    let line = ProgressLine::new(args.quiet);
+    let started = Instant::now();
+    let report = std::thread::scope(|scope| {
+        let worker = scope.spawn(|| refute(&encoding, &args.out, &options, &stop, &bytes));
+        while !worker.is_finished() {
+            std::thread::sleep(Duration::from_millis(100));
+            line.update(|| {
+                format!(
+                    "refuting {instance} [{}]: {} elapsed, {} MiB of DRAT trace",
+                    encoding.symmetry(),
+                    seconds(started.elapsed()),
+                    bytes.load(Ordering::Relaxed) >> 20
+                )
+            });
+        }
+        worker.join().expect("the refutation thread does not panic")
+    })?;
+    line.finish();
+
+    let spec = instance.spec();
+    let n = instance.order();
+    match &report.result {
+        RefuteResult::Refuted {
+            files,
+            proof_bytes,
+            manifest,
+        } => {
+            if args.json {
+                println!(
+                    "{}",
+                    serde_json::to_string_pretty(&json!({
+                        "result": "refuted",
+                        "claim": manifest.claim.statement,
+                        "bundle": args.out,
+                        "symmetry": manifest.encoding.symmetry,
+                        "premises": manifest.premises.iter().map(|p| &p.statement).collect::<Vec<_>>(),
+                        "solve_seconds": report.solve_seconds,
+                        "proof_bytes": proof_bytes,
+                        "files": files,
+                        "exit_code": exit_codes::NONE_EXISTS,
+                    }))?
+                );
+            } else {
+                println!(
+                    "REFUTED {instance}: no colouring exists, so R({spec}) <= {n}; DRAT trace of {proof_bytes} bytes in {:.2}s",
+                    report.solve_seconds
+                );
+                for p in &manifest.premises {
+                    println!("premise: {} ({})", p.statement, p.source);
+                }
+                for f in files {
+                    println!("wrote {}", f.display());
+                }
+                println!("check with: ramsift-check bundle {}", args.out.display());
+            }
+            Ok(exit_codes::NONE_EXISTS)
+        }
+        RefuteResult::Found(colouring) => {
+            let comments = vec![format!("ramsift refute found a colouring: R({spec}) > {n}")];
+            let files = write_witness_files(&args.out, &instance, colouring, &comments)
+                .with_context(|| format!("writing the witness into {}", args.out.display()))?;
+            if args.json {
+                println!(
+                    "{}",
+                    serde_json::to_string_pretty(&json!({
+                        "result": "found", "proves": format!("R({spec}) > {n}"),
+                        "files": files, "solve_seconds": report.solve_seconds, "exit_code": exit_codes::FOUND,
+                    }))?
+                );
+            } else {
+                println!(
+                    "FOUND {instance}: a colouring exists, so R({spec}) > {n}; nothing to refute"
+                );
+                print!("{}", colouring_text(&instance, colouring, &[]));
+                for f in files {
+                    println!("wrote {}", f.display());
+                }
+            }
+            Ok(exit_codes::FOUND)
+        }
+        RefuteResult::Unknown => {
+            if args.json {
+                println!(
+                    "{}",
+                    serde_json::to_string_pretty(
+                        &json!({"result": "unknown", "solve_seconds": report.solve_seconds, "exit_code": exit_codes::UNKNOWN})
+                    )?
+                );
+            } else {
+                println!("UNKNOWN {instance}: no answer within the time limit ({:.2}s); no bundle written", report.solve_seconds);
+            }
+            Ok(exit_codes::UNKNOWN)
+        }
+    }
+}

@@ -1,0 +1,194 @@
+//! Certified refutation: solve the exact CNF of an instance with varisat writing a
+//! DRAT trace, then write the certificate bundle (see [`crate::bundle`]).
+//!
+//! The trace is written to a temporary file in the bundle directory while the solver
+//! runs; only when the formula is proven unsatisfiable is it renamed into place
+//! (compressed first if asked), and the formula, the manifest and the guide are
+//! written. A timeout or a satisfiable formula leaves no bundle behind.
+
+use std::io::{self, BufWriter};
+use std::path::{Path, PathBuf};
+use std::sync::atomic::{AtomicBool, AtomicU64};
+use std::time::{Duration, Instant};
+
+use thiserror::Error;
+
+use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::dimacs::write_encoding_to;
+use ramsift_encoder::{CliqueEncoding, Colouring};
+
+use crate::attempt::{run_attempt_counted, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::bundle::{
+    claim_of, encoding_record, hash_file, premise_records, write_manifest_and_guide, FileRecord,
+    Manifest, BUNDLE_FORMAT, FORMULA_FILE,
+};
+use crate::formula::Formula;
+use crate::verify::verify_witness;
+
+/// How to refute.
+#[derive(Clone, Debug, Default)]
+pub struct RefuteOptions {
+    /// Text DRAT instead of binary.
+    pub text_proof: bool,
+    /// gzip the proof.
+    pub gzip_proof: bool,
+    pub timeout: Option<Duration>,
+}
+
+/// What the refutation found.
+#[derive(Clone, Debug)]
+pub enum RefuteResult {
+    /// Unsatisfiable: the bundle is written.
+    Refuted {
+        files: Vec<PathBuf>,
+        proof_bytes: u64,
+        manifest: Box<Manifest>,
+    },
+    /// Satisfiable: a verified colouring (of the formula with its symmetry breaking).
+    Found(Colouring),
+    Unknown,
+}
+
+#[derive(Clone, Debug)]
+pub struct RefuteReport {
+    pub result: RefuteResult,
+    pub solve_seconds: f64,
+}
+
+#[derive(Debug, Error)]
+pub enum RefuteError {
+    #[error("writing the bundle in {dir}: {source}")]
+    Io {
+        dir: PathBuf,
+        #[source]
+        source: io::Error,
+    },
+    #[error(transparent)]
+    Attempt(#[from] AttemptError),
+    #[error("internal error: the solver's colouring failed the independent check ({0}); please report this")]
+    WitnessRejected(String),
+}
+
+/// The proof's file name for the chosen options.
+pub fn proof_file_name(options: &RefuteOptions) -> String {
+    let base = if options.text_proof {
+        "proof.drat.txt"
+    } else {
+        "proof.drat"
+    };
+    if options.gzip_proof {
+        format!("{base}.gz")
+    } else {
+        base.to_string()
+    }
+}
+
+/// Refutes `encoding`, writing the bundle into `dir` on success.
+pub fn refute(
+    encoding: &CliqueEncoding,
+    dir: &Path,
+    options: &RefuteOptions,
+    stop: &AtomicBool,
+    bytes_seen: &AtomicU64,
+) -> Result<RefuteReport, RefuteError> {
+    let io_error = |source: io::Error| RefuteError::Io {
+        dir: dir.to_path_buf(),
+        source,
+    };
+    ensure_dir(dir).map_err(io_error)?;
+    let formula = Formula::from_encoding(encoding);
+    let trace = tempfile::Builder::new()
+        .prefix(".proof.")
+        .suffix(".tmp")
+        .tempfile_in(dir)
+        .map_err(io_error)?;
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let report = run_attempt_counted(
+        &formula,
+        &AttemptPlan::default(),
+        stop,
+        deadline,
+        Some(BufWriter::with_capacity(1 << 20, trace.as_file())),
+        options.text_proof,
+        Some(bytes_seen),
+    )?;
+    let solve_seconds = started.elapsed().as_secs_f64();
+    let result = match report.outcome {
+        AttemptOutcome::Stopped(_) => RefuteResult::Unknown,
+        AttemptOutcome::Satisfiable(colouring) => {
+            let verdict = verify_witness(encoding.instance().spec(), &colouring);
+            if !verdict.is_valid() {
+                return Err(RefuteError::WitnessRejected(verdict.to_string()));
+            }
+            RefuteResult::Found(colouring)
+        }
+        AttemptOutcome::Unsatisfiable => {
+            let proof_name = proof_file_name(options);
+            let proof_path = dir.join(&proof_name);
+            trace.as_file().sync_all().map_err(io_error)?;
+            if options.gzip_proof {
+                let mut source = trace.reopen().map_err(io_error)?;
+                write_atomically(&proof_path, |w| io::copy(&mut source, w).map(|_| ()))
+                    .map_err(io_error)?;
+            } else {
+                #[cfg(unix)]
+                {
+                    use std::os::unix::fs::PermissionsExt;
+                    trace
+                        .as_file()
+                        .set_permissions(std::fs::Permissions::from_mode(0o644))
+                        .map_err(io_error)?;
+                }
+                trace.persist(&proof_path).map_err(|e| io_error(e.error))?;
+            }
+            let formula_path = dir.join(FORMULA_FILE);
+            write_encoding_to(encoding, &formula_path).map_err(io_error)?;
+            let mut files = Vec::new();
+            for (name, role, format) in [
+                (FORMULA_FILE.to_string(), "formula", "DIMACS CNF, gzip"),
+                (
+                    proof_name.clone(),
+                    "drat-proof",
+                    match (options.text_proof, options.gzip_proof) {
+                        (false, false) => "binary DRAT",
+                        (false, true) => "binary DRAT, gzip",
+                        (true, false) => "text DRAT",
+                        (true, true) => "text DRAT, gzip",
+                    },
+                ),
+            ] {
+                let (sha256, bytes) = hash_file(&dir.join(&name)).map_err(io_error)?;
+                files.push(FileRecord {
+                    name,
+                    role: role.to_string(),
+                    format: format.to_string(),
+                    bytes,
+                    sha256,
+                });
+            }
+            let manifest = Manifest {
+                bundle_format: BUNDLE_FORMAT.to_string(),
+                claim: claim_of(encoding),
+                encoding: encoding_record(encoding),
+                premises: premise_records(encoding),
+                tool: format!("ramsift {}", env!("CARGO_PKG_VERSION")),
+                solver: crate::SOLVER_NAME.to_string(),
+                solve_seconds,
+                files,
+            };
+            let mut written = vec![formula_path, proof_path];
+            written
+                .extend(write_manifest_and_guide(dir, &manifest, &proof_name).map_err(io_error)?);
+            RefuteResult::Refuted {
+                files: written,
+                proof_bytes: report.proof_bytes,
+                manifest: Box::new(manifest),
+            }
+        }
+    };
+    Ok(RefuteReport {
+        result,
+        solve_seconds,
+    })
+}
