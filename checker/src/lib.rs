@@ -12,7 +12,10 @@
 //! * [`cnf`], [`drat_parse`] and [`lrat`] read formulas and refutation proofs;
 //!   [`drat_check`] checks DRAT backwards (and can emit LRAT), [`lrat`] checks LRAT
 //!   forwards; [`input`] decompresses gzip transparently.
+//! * [`bundle`] checks a certificate bundle, regenerating its formula with
+//!   [`regenerate`], the checker's own clause generator.
 
+pub mod bundle;
 pub mod claim;
 pub mod cliques;
 pub mod cnf;
@@ -24,6 +27,7 @@ pub mod input;
 pub mod input_error;
 pub mod lrat;
 pub mod matrix;
+pub mod regenerate;
 pub mod witness;
 
 pub use claim::Claim;

@@ -183,11 +183,9 @@ fn replay(
                         "line {line}: hint {hint} is already satisfied, not unit"
                     ))
                 }
-                0 => {
-                    if unassigned != Some(l) {
-                        open += 1;
-                        unassigned = Some(l);
-                    }
+                0 if unassigned != Some(l) => {
+                    open += 1;
+                    unassigned = Some(l);
                 }
                 _ => {}
             }
@@ -338,9 +336,11 @@ fn check_rat_groups(
         if !done {
             match replay(db, assignment, &groups[k + 1..end], line)? {
                 HintResult::Conflict => {}
-                HintResult::Open => return Err(format!(
+                HintResult::Open => {
+                    return Err(format!(
                     "line {line}: the hints for RAT candidate {candidate} end without a conflict"
-                )),
+                ))
+                }
             }
         }
         covered.push(candidate);

@@ -57,6 +57,18 @@ enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Check a certificate bundle written by `ramsift refute`: hashes, the formula
+    /// (regenerated from the claim), the proof, and the premises.
+    Bundle {
+        /// The bundle directory.
+        dir: PathBuf,
+        /// A bundle that certifies a premise (may be repeated).
+        #[arg(long, value_name = "DIR")]
+        premise: Vec<PathBuf>,
+        /// Print the verdict as JSON on stdout.
+        #[arg(long)]
+        json: bool,
+    },
     /// Check an LRAT refutation (text, gzip allowed) of a DIMACS CNF.
     Lrat {
         /// The formula (DIMACS CNF, gzip allowed).
@@ -80,6 +92,7 @@ fn main() -> ExitCode {
             json,
         } => proofs::run_drat(&cnf, &proof, emit_lrat.as_deref(), json),
         Command::Lrat { cnf, proof, json } => proofs::run_lrat(&cnf, &proof, json),
+        Command::Bundle { dir, premise, json } => proofs::run_bundle(&dir, &premise, json),
     }
 }
 

@@ -1,10 +1,11 @@
-//! The `drat` and `lrat` subcommands of `ramsift-check`.
+//! The `drat`, `lrat` and `bundle` subcommands of `ramsift-check`.
 
 use std::io::Write;
-use std::path::Path;
+use std::path::{Path, PathBuf};
 use std::process::ExitCode;
 use std::time::Instant;
 
+use ramsift_checker::bundle::check_bundle;
 use ramsift_checker::cnf::parse_cnf;
 use ramsift_checker::drat_check::check_drat;
 use ramsift_checker::drat_parse::{is_binary, parse_drat};
@@ -161,4 +162,83 @@ fn write_file_atomically(path: &Path, content: &[u8]) -> std::io::Result<()> {
         let _ = std::fs::remove_file(&temp);
     }
     result
+}
+
+pub fn run_bundle(dir: &Path, premise_dirs: &[PathBuf], json: bool) -> ExitCode {
+    let started = Instant::now();
+    let verdict = match check_bundle(dir, premise_dirs) {
+        Ok(v) => v,
+        Err(e) => return unreadable(e),
+    };
+    let seconds = started.elapsed().as_secs_f64();
+    if json {
+        let premises: Vec<serde_json::Value> = verdict
+            .premises
+            .iter()
+            .map(|p| {
+                serde_json::json!({
+                    "statement": p.statement,
+                    "source": p.source,
+                    "certified_by": p.certified_by,
+                })
+            })
+            .collect();
+        println!(
+            "{}",
+            serde_json::json!({
+                "pass": verdict.passed(),
+                "claim": verdict.claim,
+                "unconditional": verdict.unconditional(),
+                "symmetry": verdict.symmetry,
+                "premises": premises,
+                "checks": verdict.passed,
+                "failure": verdict.failure,
+                "seconds": seconds,
+            })
+        );
+    } else {
+        println!("bundle {}", dir.display());
+        println!("claim: {}", verdict.claim);
+        let symmetry = if verdict.symmetry.is_empty() {
+            "none".to_string()
+        } else {
+            verdict.symmetry.join(", ")
+        };
+        println!("symmetry breaking: {symmetry}");
+        for step in &verdict.passed {
+            println!("  ok: {step}");
+        }
+        for p in &verdict.premises {
+            match &p.certified_by {
+                Some(by) => println!(
+                    "  premise {}: certified by bundle {}",
+                    p.statement,
+                    by.display()
+                ),
+                None => println!("  premise {}: ASSUMED ({})", p.statement, p.source),
+            }
+        }
+        match &verdict.failure {
+            Some(why) => println!("FAIL: {why}"),
+            None if verdict.unconditional() => println!("PASS: {} ({seconds:.2}s)", verdict.claim),
+            None => {
+                let assumed: Vec<&str> = verdict
+                    .premises
+                    .iter()
+                    .filter(|p| p.certified_by.is_none())
+                    .map(|p| p.statement.as_str())
+                    .collect();
+                println!(
+                    "PASS: {}, assuming {} ({seconds:.2}s)",
+                    verdict.claim,
+                    assumed.join(" and ")
+                );
+            }
+        }
+    }
+    if verdict.passed() {
+        ExitCode::SUCCESS
+    } else {
+        ExitCode::from(1)
+    }
 }

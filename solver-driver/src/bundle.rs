@@ -173,7 +173,8 @@ pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
             .collect();
         format!(
             "The claim assumes these published values (used to bound vertex degrees):\n{}\n\
-             A bundle that certifies one of them can be given to the checker with --premise DIR.",
+             Bundles in the premises/ folder (written by `ramsift refute --certify-premises`) are checked\n\
+             and used automatically; another bundle can be given to the checker with --premise DIR.",
             list.join("\n")
         )
     };

@@ -129,7 +129,11 @@ fn impossible_orders_are_refused() {
     assert_bad_input(&["find", "3,3", "-3"], "unexpected argument");
     assert_bad_input(&["find", "3,3", "five"], "invalid value");
     assert_bad_input(&["find", "10,10", "1000"], "over the limit");
-    assert_bad_input(&["find", "3,3", "100000"], "more than DIMACS literals");
+    assert_bad_input(
+        &["find", "3,3", "100000"],
+        "above the largest supported order",
+    );
+    assert_bad_input(&["find", "3,3,3", "40000"], "more than DIMACS literals");
     assert_bad_input(
         &["find", "5,5", "43", "--max-clauses", "1000"],
         "1925196 clauses",

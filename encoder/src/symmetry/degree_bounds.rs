@@ -24,7 +24,7 @@ use crate::variables::VariableMap;
 /// A smaller Ramsey value the clauses rest on.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct Premise {
-    /// Clique sizes of the smaller number (in colour order).
+    /// Clique sizes of the smaller number, in increasing order.
     pub cliques: Vec<usize>,
     pub upper_bound: usize,
     /// Where the bound comes from; None when it holds by definition.
@@ -67,6 +67,8 @@ pub fn colour_bounds(instance: &Instance) -> Vec<Option<(usize, Premise)>> {
                 BoundReason::Definition => None,
                 BoundReason::Published(s) => Some(s.to_string()),
             };
+            // Ramsey numbers are symmetric in their arguments: R(4,3) is listed as R(3,4).
+            smaller.sort_unstable();
             Some((
                 max_degree,
                 Premise {

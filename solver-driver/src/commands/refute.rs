@@ -37,12 +37,19 @@ pub struct RefuteArgs {
     /// Give up after this many seconds (exit code 1; no bundle is written).
     #[arg(long, value_name = "SECONDS")]
     pub timeout: Option<f64>,
+    /// Also refute every premise (the smaller Ramsey values degree bounds rest on) into
+    /// DIR/premises/, so that the bundle proves its claim with no assumption.
+    #[arg(long)]
+    pub certify_premises: bool,
     /// Print the outcome as JSON on stdout.
     #[arg(long)]
     pub json: bool,
     /// No progress line on stderr.
     #[arg(long, short)]
     pub quiet: bool,
+    /// Whether to print the outcome (off for premises certified along the way).
+    #[arg(skip = true)]
+    pub announce: bool,
 }
 
 pub fn run(args: &RefuteArgs) -> Result<u8> {
@@ -88,6 +95,15 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             proof_bytes,
             manifest,
         } => {
+            let mut files = files.clone();
+            if args.certify_premises {
+                for premise in &manifest.premises {
+                    files.push(certify_premise(args, premise)?);
+                }
+            }
+            if !args.announce {
+                return Ok(exit_codes::NONE_EXISTS);
+            }
             if args.json {
                 println!(
                     "{}",
@@ -155,4 +171,40 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             Ok(exit_codes::UNKNOWN)
         }
     }
+}
+
+/// Refutes a premise R(cliques) <= bound into DIR/premises/ (recursively certifying its own premises).
+fn certify_premise(
+    args: &RefuteArgs,
+    premise: &ramsift_driver::bundle::PremiseRecord,
+) -> Result<PathBuf> {
+    let sizes: Vec<String> = premise.clique_sizes.iter().map(|k| k.to_string()).collect();
+    let sub = RefuteArgs {
+        instance: InstanceArgs {
+            spec: sizes.join(","),
+            order: premise.upper_bound,
+            max_clauses: args.instance.max_clauses,
+        },
+        out: args.out.join("premises").join(format!(
+            "R{}-{}",
+            sizes.join("-"),
+            premise.upper_bound
+        )),
+        symmetry: args.symmetry.clone(),
+        text: args.text,
+        gzip: args.gzip,
+        timeout: args.timeout,
+        certify_premises: true,
+        json: false,
+        quiet: true,
+        announce: false,
+    };
+    let code =
+        run(&sub).with_context(|| format!("certifying the premise {}", premise.statement))?;
+    anyhow::ensure!(
+        code == exit_codes::NONE_EXISTS,
+        "the premise {} could not be certified (exit code {code})",
+        premise.statement
+    );
+    Ok(sub.out)
 }

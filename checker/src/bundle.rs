@@ -1,0 +1,332 @@
+//! Checking a certificate bundle written by `ramsift refute`, trusting nothing in it:
+//!
+//! 1. `manifest.json` is read; every file it lists must exist with the recorded
+//!    SHA-256; the formula and the DRAT proof must both be listed.
+//! 2. The formula is regenerated from the claim (clique sizes, order, symmetry
+//!    schemes, premises) with the checker's own generator ([`crate::regenerate`])
+//!    and compared with the bundled CNF as a multiset of clauses.
+//! 3. The proof is checked against the formula ([`crate::drat_check`]).
+//! 4. Premises (smaller Ramsey values used by degree bounds) are reported as
+//!    assumptions unless a bundle given with `--premise`, or one in the bundle's
+//!    own `premises/` folder, certifies them (and passes itself).
+
+use std::path::{Path, PathBuf};
+
+use serde_json::Value;
+use sha2::{Digest, Sha256};
+
+use crate::cnf::parse_cnf;
+use crate::drat_check::check_drat;
+use crate::drat_parse::parse_drat;
+use crate::input::read_input;
+use crate::input_error::InputError;
+use crate::regenerate::{normalized, regenerate, PremiseBound, Statement};
+
+/// The bundle layout this checker understands.
+pub const BUNDLE_FORMAT: &str = "ramsift-bundle 1";
+
+/// A premise and how it stands.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct PremiseStatus {
+    pub statement: String,
+    /// The bundle that certifies it, if any.
+    pub certified_by: Option<PathBuf>,
+    pub source: String,
+}
+
+/// The verdict on a bundle.
+#[derive(Clone, Debug)]
+pub struct BundleVerdict {
+    /// The claim exactly as proven (`R(4,4) <= 18`).
+    pub claim: String,
+    pub clique_sizes: Vec<usize>,
+    pub order: usize,
+    pub symmetry: Vec<String>,
+    pub premises: Vec<PremiseStatus>,
+    /// Steps that passed, in words.
+    pub passed: Vec<String>,
+    /// The first failure; None means PASS.
+    pub failure: Option<String>,
+}
+
+impl BundleVerdict {
+    pub fn passed(&self) -> bool {
+        self.failure.is_none()
+    }
+
+    /// Whether the claim holds with no premise left unproven.
+    pub fn unconditional(&self) -> bool {
+        self.passed() && self.premises.iter().all(|p| p.certified_by.is_some())
+    }
+}
+
+fn sha256_hex(bytes: &[u8]) -> String {
+    Sha256::digest(bytes)
+        .iter()
+        .map(|b| format!("{b:02x}"))
+        .collect()
+}
+
+fn field<'a>(value: &'a Value, path: &[&str], name: &str) -> Result<&'a Value, InputError> {
+    let mut v = value;
+    for key in path {
+        v = v.get(key).ok_or_else(|| {
+            InputError::whole(name, format!("manifest has no field {}", path.join(".")))
+        })?;
+    }
+    Ok(v)
+}
+
+fn usize_list(v: &Value, what: &str, name: &str) -> Result<Vec<usize>, InputError> {
+    v.as_array()
+        .and_then(|a| {
+            a.iter()
+                .map(|x| x.as_u64().map(|n| n as usize))
+                .collect::<Option<Vec<_>>>()
+        })
+        .ok_or_else(|| {
+            InputError::whole(
+                name,
+                format!("manifest field {what} must be a list of whole numbers"),
+            )
+        })
+}
+
+/// Checks the bundle in `dir`; `premise_dirs` may certify its premises.
+/// Returns Err only when the manifest itself cannot be read.
+pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdict, InputError> {
+    let manifest_path = dir.join("manifest.json");
+    let name = manifest_path.display().to_string();
+    let text = std::fs::read(&manifest_path)
+        .map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    let manifest: Value = serde_json::from_slice(&text)
+        .map_err(|e| InputError::at_line(&name, e.line(), format!("not valid JSON: {e}")))?;
+    let format = field(&manifest, &["bundle_format"], &name)?
+        .as_str()
+        .unwrap_or_default();
+    if format != BUNDLE_FORMAT {
+        return Err(InputError::whole(
+            &name,
+            format!("bundle_format is {format:?}, expected {BUNDLE_FORMAT:?}"),
+        ));
+    }
+    let clique_sizes = usize_list(
+        field(&manifest, &["claim", "clique_sizes"], &name)?,
+        "claim.clique_sizes",
+        &name,
+    )?;
+    let order = field(&manifest, &["claim", "order"], &name)?
+        .as_u64()
+        .ok_or_else(|| InputError::whole(&name, "claim.order must be a whole number"))?
+        as usize;
+    if clique_sizes.len() < 2 || clique_sizes.iter().any(|&k| k < 2 || k > order) || order > 10_000
+    {
+        return Err(InputError::whole(&name, format!("claim {clique_sizes:?} at order {order} is not a Ramsey question this checker accepts")));
+    }
+    let symmetry: Vec<String> = field(&manifest, &["encoding", "symmetry"], &name)?
+        .as_array()
+        .map(|a| {
+            a.iter()
+                .filter_map(|s| s.as_str().map(String::from))
+                .collect()
+        })
+        .ok_or_else(|| InputError::whole(&name, "encoding.symmetry must be a list of names"))?;
+    let mut premises = Vec::new();
+    let mut premise_sources = Vec::new();
+    for p in field(&manifest, &["premises"], &name)?
+        .as_array()
+        .cloned()
+        .unwrap_or_default()
+    {
+        let cliques = usize_list(
+            field(&p, &["clique_sizes"], &name)?,
+            "premises[].clique_sizes",
+            &name,
+        )?;
+        let bound = field(&p, &["upper_bound"], &name)?
+            .as_u64()
+            .ok_or_else(|| {
+                InputError::whole(&name, "premises[].upper_bound must be a whole number")
+            })? as usize;
+        premise_sources.push(
+            p.get("source")
+                .and_then(Value::as_str)
+                .unwrap_or("")
+                .to_string(),
+        );
+        premises.push(PremiseBound { cliques, bound });
+    }
+    let list: Vec<String> = clique_sizes.iter().map(|k| k.to_string()).collect();
+    let claim = format!("R({}) <= {}", list.join(","), order);
+
+    let mut verdict = BundleVerdict {
+        claim: claim.clone(),
+        clique_sizes: clique_sizes.clone(),
+        order,
+        symmetry: symmetry.clone(),
+        premises: Vec::new(),
+        passed: Vec::new(),
+        failure: None,
+    };
+    let fail = |mut v: BundleVerdict, why: String| {
+        v.failure = Some(why);
+        Ok(v)
+    };
+    let stated = field(&manifest, &["claim", "statement"], &name)?
+        .as_str()
+        .unwrap_or_default();
+    if stated != claim {
+        return fail(
+            verdict,
+            format!("the manifest states {stated:?}, but its clique sizes and order say {claim:?}"),
+        );
+    }
+
+    // 1. Files and hashes.
+    let files = field(&manifest, &["files"], &name)?
+        .as_array()
+        .cloned()
+        .unwrap_or_default();
+    let mut formula_file = None;
+    let mut proof_file = None;
+    for f in &files {
+        let (Some(file), Some(role), Some(hash)) = (
+            f.get("name").and_then(Value::as_str),
+            f.get("role").and_then(Value::as_str),
+            f.get("sha256").and_then(Value::as_str),
+        ) else {
+            return fail(verdict, "a files[] entry lacks name, role or sha256".into());
+        };
+        if file.contains('/') || file.contains("..") {
+            return fail(
+                verdict,
+                format!("file name {file:?} points outside the bundle"),
+            );
+        }
+        let path = dir.join(file);
+        let Ok(bytes) = std::fs::read(&path) else {
+            return fail(
+                verdict,
+                format!("{file} is listed in the manifest but missing"),
+            );
+        };
+        let actual = sha256_hex(&bytes);
+        if actual != hash {
+            return fail(
+                verdict,
+                format!("{file}: SHA-256 is {actual}, the manifest says {hash}"),
+            );
+        }
+        match role {
+            "formula" => formula_file = Some(path),
+            "drat-proof" => proof_file = Some(path),
+            _ => {}
+        }
+    }
+    let (Some(formula_path), Some(proof_path)) = (formula_file, proof_file) else {
+        return fail(
+            verdict,
+            "the manifest lists no formula or no drat-proof file".into(),
+        );
+    };
+    verdict
+        .passed
+        .push(format!("{} files match their SHA-256", files.len()));
+
+    // 2. The formula says exactly what the claim says.
+    let statement = Statement {
+        cliques: clique_sizes.clone(),
+        order,
+        symmetry,
+        premises,
+    };
+    let regenerated = match regenerate(&statement) {
+        Ok(r) => r,
+        Err(e) => return fail(verdict, e),
+    };
+    let formula_name = formula_path.display().to_string();
+    let cnf = match read_input(&formula_path).and_then(|b| parse_cnf(&formula_name, &b)) {
+        Ok(c) => c,
+        Err(e) => return fail(verdict, format!("the formula cannot be read: {e}")),
+    };
+    if cnf.variables != regenerated.variables
+        || normalized(&cnf.clauses) != normalized(&regenerated.clauses)
+    {
+        return fail(
+            verdict,
+            format!(
+                "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
+                cnf.variables,
+                cnf.clauses.len(),
+                statement.symmetry.join(","),
+                regenerated.variables,
+                regenerated.clauses.len()
+            ),
+        );
+    }
+    verdict.passed.push(format!(
+        "formula regenerated independently: {} variables, {} clauses, identical as a set",
+        cnf.variables,
+        cnf.clauses.len()
+    ));
+
+    // 3. The proof refutes it.
+    let proof_name = proof_path.display().to_string();
+    let steps = match read_input(&proof_path).and_then(|b| parse_drat(&proof_name, &b)) {
+        Ok(s) => s,
+        Err(e) => return fail(verdict, format!("the proof cannot be read: {e}")),
+    };
+    match check_drat(&cnf, &steps, false) {
+        Ok((report, _)) => verdict.passed.push(format!(
+            "DRAT proof verified: {} lemmas, {} checked, core of {} original clauses",
+            report.lemmas, report.checked_lemmas, report.core_original_clauses
+        )),
+        Err(e) => return fail(verdict, format!("the proof is rejected: {e}")),
+    }
+
+    // 4. Premises.
+    let mut candidates: Vec<PathBuf> = premise_dirs.to_vec();
+    if let Ok(entries) = std::fs::read_dir(dir.join("premises")) {
+        let mut nested: Vec<PathBuf> = entries
+            .filter_map(|e| e.ok().map(|e| e.path()))
+            .filter(|p| p.is_dir())
+            .collect();
+        nested.sort();
+        candidates.extend(nested);
+    }
+    for used in &regenerated.used_premises {
+        let index = statement
+            .premises
+            .iter()
+            .position(|p| p == used)
+            .unwrap_or(0);
+        let text = format!(
+            "R({}) <= {}",
+            used.cliques
+                .iter()
+                .map(|k| k.to_string())
+                .collect::<Vec<_>>()
+                .join(","),
+            used.bound
+        );
+        let mut certified_by = None;
+        for candidate in &candidates {
+            if let Ok(sub) = check_bundle(candidate, &[]) {
+                let mut theirs = sub.clique_sizes.clone();
+                theirs.sort_unstable();
+                let mut ours = used.cliques.clone();
+                ours.sort_unstable();
+                if sub.unconditional() && theirs == ours && sub.order <= used.bound {
+                    certified_by = Some(candidate.clone());
+                    break;
+                }
+            }
+        }
+        verdict.premises.push(PremiseStatus {
+            statement: text,
+            certified_by,
+            source: premise_sources.get(index).cloned().unwrap_or_default(),
+        });
+    }
+    Ok(verdict)
+}

@@ -1,0 +1,260 @@
+//! The checker's own generator of the clauses a bundle claims to have refuted.
+//!
+//! It follows the published variable map and clause families (documented in the
+//! encoder and in every DIMACS header) with code written separately from the
+//! encoder, so that a bug in one is not silently shared by the other:
+//!
+//! * edge {i,j}, i < j, has index e = j(j-1)/2 + i; with two colours variable e+1
+//!   is "colour 1", with r >= 3 colours variable e·r + c is "may have colour c";
+//! * r >= 3: one at-least-one clause per edge; then, colour by colour, one clause
+//!   per k-subset saying "not all of its edges have this colour";
+//! * symmetry breaking: colour-swap units on the anchor edge {0,n-1}; lex-leader
+//!   comparators on consecutive rows of the colour-1 graph; degree bounds as
+//!   sequential counters, with the bound taken from the premises.
+
+/// One claimed upper bound R(cliques) <= bound used as a premise.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct PremiseBound {
+    pub cliques: Vec<usize>,
+    pub bound: usize,
+}
+
+/// What to regenerate.
+#[derive(Clone, Debug)]
+pub struct Statement {
+    pub cliques: Vec<usize>,
+    pub order: usize,
+    pub symmetry: Vec<String>,
+    pub premises: Vec<PremiseBound>,
+}
+
+/// The regenerated formula.
+#[derive(Clone, Debug)]
+pub struct Regenerated {
+    pub variables: usize,
+    pub clauses: Vec<Vec<i32>>,
+    /// Premises the degree bounds actually used.
+    pub used_premises: Vec<PremiseBound>,
+}
+
+struct Numbering {
+    colours: usize,
+}
+
+impl Numbering {
+    /// "edge {a,b} has colour c" (two colours) / "may have colour c" (more).
+    fn lit(&self, a: usize, b: usize, colour: usize) -> i32 {
+        let (i, j) = (a.min(b), a.max(b));
+        let e = j * (j - 1) / 2 + i;
+        if self.colours == 2 {
+            if colour == 1 {
+                e as i32 + 1
+            } else {
+                -(e as i32 + 1)
+            }
+        } else {
+            (e * self.colours + colour) as i32
+        }
+    }
+}
+
+fn subsets(
+    n: usize,
+    k: usize,
+    start: usize,
+    chosen: &mut Vec<usize>,
+    visit: &mut dyn FnMut(&[usize]),
+) {
+    if chosen.len() == k {
+        visit(chosen);
+        return;
+    }
+    for v in start..n {
+        if n - v < k - chosen.len() {
+            break;
+        }
+        chosen.push(v);
+        subsets(n, k, v + 1, chosen, visit);
+        chosen.pop();
+    }
+}
+
+/// Bounds that hold by definition: R(..,1,..) = 1, and entries 2 can be dropped.
+fn elementary_or_premise(
+    smaller: &[usize],
+    premises: &[PremiseBound],
+) -> Option<(usize, Option<PremiseBound>)> {
+    if smaller.contains(&1) {
+        return Some((1, None));
+    }
+    let mut reduced: Vec<usize> = smaller.iter().copied().filter(|&k| k != 2).collect();
+    match reduced.len() {
+        0 => return Some((2, None)),
+        1 => return Some((reduced[0], None)),
+        _ => {}
+    }
+    reduced.sort_unstable();
+    premises
+        .iter()
+        .find(|p| {
+            let mut theirs: Vec<usize> = p.cliques.iter().copied().filter(|&k| k != 2).collect();
+            theirs.sort_unstable();
+            theirs == reduced && !p.cliques.contains(&1)
+        })
+        .map(|p| (p.bound, Some(p.clone())))
+}
+
+/// Regenerates the clauses; an unknown scheme name is an error.
+pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
+    let n = statement.order;
+    let r = statement.cliques.len();
+    let num = Numbering { colours: r };
+    for name in &statement.symmetry {
+        if !["colour-swap", "lex-leader", "degree-bounds"].contains(&name.as_str()) {
+            return Err(format!("unknown symmetry scheme {name:?}"));
+        }
+    }
+    let has = |name: &str| statement.symmetry.iter().any(|s| s == name);
+    let edges = n * n.saturating_sub(1) / 2;
+    let mut variables = if r == 2 { edges } else { edges * r };
+    let mut clauses: Vec<Vec<i32>> = Vec::new();
+
+    if r > 2 {
+        for j in 0..n {
+            for i in 0..j {
+                clauses.push((1..=r).map(|c| num.lit(i, j, c)).collect());
+            }
+        }
+    }
+    for (index, &k) in statement.cliques.iter().enumerate() {
+        let colour = index + 1;
+        subsets(n, k, 0, &mut Vec::new(), &mut |s| {
+            let mut clause = Vec::new();
+            for (p, &a) in s.iter().enumerate() {
+                for &b in &s[p + 1..] {
+                    clause.push(-num.lit(a, b, colour));
+                }
+            }
+            clauses.push(clause);
+        });
+    }
+
+    if has("colour-swap") && n >= 2 {
+        let mut seen: Vec<usize> = Vec::new();
+        for c in 1..=r {
+            let k = statement.cliques[c - 1];
+            if seen.contains(&k) {
+                continue;
+            }
+            seen.push(k);
+            let mut class: Vec<usize> =
+                (1..=r).filter(|&d| statement.cliques[d - 1] == k).collect();
+            if has("lex-leader") && class[0] == 1 && r > 2 {
+                class.remove(0);
+            }
+            if class.len() < 2 {
+                continue;
+            }
+            if r == 2 {
+                clauses.push(vec![num.lit(0, n - 1, class[0])]);
+            } else {
+                for &d in &class[1..] {
+                    clauses.push(vec![-num.lit(0, n - 1, d)]);
+                }
+            }
+        }
+    }
+
+    if has("lex-leader") && n >= 3 {
+        let per_pair = n - 3;
+        let first = variables + 1;
+        for i in 0..n - 1 {
+            let cols: Vec<usize> = (0..n).filter(|&k| k != i && k != i + 1).collect();
+            for (p, &k) in cols.iter().enumerate() {
+                let a = num.lit(i, k, 1);
+                let b = num.lit(i + 1, k, 1);
+                let equal_before = (p > 0).then(|| -((first + i * per_pair + p - 1) as i32));
+                let equal_here = (first + i * per_pair + p) as i32;
+                let guarded = |rest: &[i32]| {
+                    equal_before
+                        .into_iter()
+                        .chain(rest.iter().copied())
+                        .collect::<Vec<i32>>()
+                };
+                clauses.push(guarded(&[-a, b]));
+                if p + 1 < cols.len() {
+                    clauses.push(guarded(&[-a, equal_here]));
+                    clauses.push(guarded(&[b, equal_here]));
+                }
+            }
+        }
+        variables += (n - 1) * per_pair;
+    }
+
+    let mut used_premises = Vec::new();
+    if has("degree-bounds") {
+        for colour in 1..=r {
+            let mut smaller = statement.cliques.clone();
+            smaller[colour - 1] -= 1;
+            let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises)
+            else {
+                continue;
+            };
+            let k = bound - 1;
+            if k >= n - 1 {
+                continue;
+            }
+            if let Some(p) = premise {
+                if !used_premises.contains(&p) {
+                    used_premises.push(p);
+                }
+            }
+            for v in 0..n {
+                let xs: Vec<i32> = (0..n)
+                    .filter(|&u| u != v)
+                    .map(|u| num.lit(v, u, colour))
+                    .collect();
+                if k == 0 {
+                    clauses.extend(xs.iter().map(|&x| vec![-x]));
+                    continue;
+                }
+                let base = variables + 1;
+                let s = |i: usize, j: usize| (base + (i - 1) * k + (j - 1)) as i32;
+                let m = xs.len();
+                clauses.push(vec![-xs[0], s(1, 1)]);
+                clauses.extend((2..=k).map(|j| vec![-s(1, j)]));
+                for i in 2..m {
+                    let x = xs[i - 1];
+                    clauses.push(vec![-x, s(i, 1)]);
+                    clauses.push(vec![-s(i - 1, 1), s(i, 1)]);
+                    for j in 2..=k {
+                        clauses.push(vec![-x, -s(i - 1, j - 1), s(i, j)]);
+                        clauses.push(vec![-s(i - 1, j), s(i, j)]);
+                    }
+                    clauses.push(vec![-x, -s(i - 1, k)]);
+                }
+                clauses.push(vec![-xs[m - 1], -s(m - 1, k)]);
+                variables += (m - 1) * k;
+            }
+        }
+    }
+    Ok(Regenerated {
+        variables,
+        clauses,
+        used_premises,
+    })
+}
+
+/// Clauses as a sorted multiset of sorted clauses (order and literal order free).
+pub fn normalized(clauses: &[Vec<i32>]) -> Vec<Vec<i32>> {
+    let mut out: Vec<Vec<i32>> = clauses
+        .iter()
+        .map(|c| {
+            let mut c = c.clone();
+            c.sort_unstable();
+            c
+        })
+        .collect();
+    out.sort_unstable();
+    out
+}
