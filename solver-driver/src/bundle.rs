@@ -173,7 +173,7 @@ pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
             .collect();
         format!(
             "The claim assumes these published values (used to bound vertex degrees):\n{}\n\
-             Bundles in the premises/ folder (written by `ramsift refute --certify-premises`) are checked\n\
+             Bundles in the premises/ folder (written by `ramsift refute` unless --assume-premises) are checked\n\
              and used automatically; another bundle can be given to the checker with --premise DIR.",
             list.join("\n")
         )
