@@ -192,3 +192,92 @@ fn unwritable_outputs_fail_cleanly_and_leave_nothing() {
     );
     assert!(Path::new(&blocker).is_file());
 }
+
+#[test]
+fn refute_writes_a_bundle_that_passes_unconditionally() {
+    use ramsift_checker::bundle::check_bundle;
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("r44");
+    // R(4,4) = 18 (Greenwood & Gleason 1955; Radziszowski DS1).
+    let o = ramsift(&[
+        "refute",
+        "4,4",
+        "18",
+        "--out",
+        out.to_str().unwrap(),
+        "--json",
+    ]);
+    assert_eq!(o.status.code(), Some(20), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["claim"], "R(4,4) <= 18");
+    assert_eq!(summary["premises"][0], "R(3,4) <= 9");
+    let verdict = check_bundle(&out, &[]).unwrap();
+    assert!(verdict.passed(), "{:?}", verdict.failure);
+    assert!(
+        verdict.unconditional(),
+        "the premise bundle in premises/ certifies R(3,4) <= 9"
+    );
+    let guide = std::fs::read_to_string(out.join("REFEREE.txt")).unwrap();
+    assert!(guide.contains("R(4,4) <= 18") && guide.contains("ramsift-check bundle"));
+
+    let assumed = dir.path().join("assumed");
+    let o = ramsift(&[
+        "refute",
+        "4,4",
+        "18",
+        "--out",
+        assumed.to_str().unwrap(),
+        "--assume-premises",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(20));
+    assert!(!assumed.join("premises").exists());
+    assert!(!check_bundle(&assumed, &[]).unwrap().unconditional());
+    // Given the premise bundle explicitly, it becomes unconditional.
+    let premise = out.join("premises").join("R3-4-9");
+    assert!(check_bundle(&assumed, &[premise]).unwrap().unconditional());
+}
+
+#[test]
+fn refute_of_a_satisfiable_instance_exits_10_with_the_witness() {
+    let dir = tempfile::tempdir().unwrap();
+    // R(3,4) = 9: K8 has a good colouring (Greenwood & Gleason 1955).
+    let o = ramsift(&[
+        "refute",
+        "3,4",
+        "8",
+        "--out",
+        dir.path().to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    assert!(dir.path().join("witness.colouring").exists());
+    assert!(!dir.path().join("manifest.json").exists());
+}
+
+#[test]
+fn refute_timeout_leaves_no_bundle() {
+    let dir = tempfile::tempdir().unwrap();
+    // (3,5;14) without symmetry breaking does not finish quickly (BENCHMARKS.md).
+    let o = ramsift(&[
+        "refute",
+        "3,5",
+        "14",
+        "--symmetry",
+        "none",
+        "--timeout",
+        "0.3",
+        "--out",
+        dir.path().to_str().unwrap(),
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    assert_eq!(
+        std::fs::read_dir(dir.path()).unwrap().count(),
+        0,
+        "no files, no temporary trace"
+    );
+    assert_bad_input(
+        &["refute", "3,3", "6", "--out", "x", "--symmetry", "lex"],
+        "unknown symmetry scheme \"lex\"",
+    );
+}

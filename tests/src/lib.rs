@@ -6,3 +6,4 @@
 
 pub mod constructions;
 pub mod published;
+pub mod reference_drat;

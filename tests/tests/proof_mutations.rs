@@ -1,0 +1,417 @@
+//! Mutation tests of the checker: real traces and bundles are damaged in many ways,
+//! and every mutant that is not a refutation (as judged by the plain reference in
+//! `ramsift_tests::reference_drat`, or invalid by construction) must be rejected.
+//! No false accept is tolerated; the counts are printed (run with --nocapture).
+
+use std::path::Path;
+use std::sync::atomic::{AtomicBool, AtomicU64};
+
+use ramsift_checker::bundle::check_bundle;
+use ramsift_checker::cnf::{parse_cnf, Cnf};
+use ramsift_checker::drat_check::check_drat;
+use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
+use ramsift_checker::input::read_input;
+use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_tests::reference_drat::reference_refutes;
+
+/// A tiny deterministic generator (xorshift), so the mutants are the same every run.
+struct Rng(u64);
+impl Rng {
+    fn below(&mut self, n: usize) -> usize {
+        self.0 ^= self.0 << 13;
+        self.0 ^= self.0 >> 7;
+        self.0 ^= self.0 << 17;
+        (self.0 % n.max(1) as u64) as usize
+    }
+}
+
+fn make_bundle(sizes: &[usize], order: usize, symmetry: &str, dir: &Path) {
+    let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
+    let set: SymmetrySet = symmetry.parse().unwrap();
+    let encoding =
+        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+    let report = refute(
+        &encoding,
+        dir,
+        &RefuteOptions::default(),
+        &AtomicBool::new(false),
+        &AtomicU64::new(0),
+    )
+    .unwrap();
+    assert!(matches!(report.result, RefuteResult::Refuted { .. }));
+}
+
+fn load(dir: &Path) -> (Cnf, Vec<DratStep>) {
+    let cnf = parse_cnf("f", &read_input(&dir.join("formula.cnf.gz")).unwrap()).unwrap();
+    let steps = parse_drat("p", &read_input(&dir.join("proof.drat")).unwrap()).unwrap();
+    (cnf, steps)
+}
+
+fn as_reference(steps: &[DratStep]) -> Vec<(bool, Vec<i32>)> {
+    steps
+        .iter()
+        .map(|s| (s.kind == StepKind::Add, s.literals.clone()))
+        .collect()
+}
+
+#[derive(Default, Debug)]
+struct Tally {
+    must_reject: usize,
+    rejected: usize,
+    harmless: usize,
+}
+
+/// Judges one mutant: if the reference finds no refutation, ours must reject it.
+fn judge(tally: &mut Tally, what: &str, cnf: &Cnf, steps: &[DratStep]) {
+    let reference = reference_refutes(cnf.variables, &cnf.clauses, &as_reference(steps));
+    let ours = check_drat(cnf, steps, false).is_ok();
+    if reference {
+        tally.harmless += 1;
+        return;
+    }
+    tally.must_reject += 1;
+    assert!(!ours, "FALSE ACCEPT of mutant: {what}");
+    tally.rejected += 1;
+}
+
+fn mutate_trace(
+    sizes: &[usize],
+    order: usize,
+    symmetry: &str,
+    mutants_per_kind: usize,
+    seed: u64,
+) -> Tally {
+    let dir = tempfile::tempdir().unwrap();
+    make_bundle(sizes, order, symmetry, dir.path());
+    let (cnf, steps) = load(dir.path());
+    assert!(
+        check_drat(&cnf, &steps, false).is_ok(),
+        "the unmutated trace passes"
+    );
+    assert!(reference_refutes(
+        cnf.variables,
+        &cnf.clauses,
+        &as_reference(&steps)
+    ));
+    let adds: Vec<usize> = (0..steps.len())
+        .filter(|&i| steps[i].kind == StepKind::Add)
+        .collect();
+    let mut rng = Rng(seed);
+    let mut tally = Tally::default();
+    for _ in 0..mutants_per_kind {
+        // A lemma deleted.
+        let i = adds[rng.below(adds.len())];
+        let mut m = steps.clone();
+        m.remove(i);
+        judge(&mut tally, &format!("lemma {i} deleted"), &cnf, &m);
+        // A literal flipped.
+        let i = adds[rng.below(adds.len())];
+        let mut m = steps.clone();
+        if !m[i].literals.is_empty() {
+            let k = rng.below(m[i].literals.len());
+            m[i].literals[k] = -m[i].literals[k];
+            judge(
+                &mut tally,
+                &format!("literal {k} of lemma {i} flipped"),
+                &cnf,
+                &m,
+            );
+        }
+        // Truncation.
+        let cut = rng.below(steps.len());
+        judge(
+            &mut tally,
+            &format!("truncated to {cut} steps"),
+            &cnf,
+            &steps[..cut],
+        );
+        // A lemma moved before its antecedents (to the front).
+        let i = adds[rng.below(adds.len())];
+        let mut m = steps.clone();
+        let lemma = m.remove(i);
+        m.insert(0, lemma);
+        judge(
+            &mut tally,
+            &format!("lemma {i} moved to the front"),
+            &cnf,
+            &m,
+        );
+        // A clause dropped from the formula.
+        let j = rng.below(cnf.clauses.len());
+        let mut weaker = cnf.clone();
+        weaker.clauses.remove(j);
+        judge(
+            &mut tally,
+            &format!("formula clause {j} dropped"),
+            &weaker,
+            &steps,
+        );
+    }
+    tally
+}
+
+#[test]
+fn damaged_traces_are_rejected() {
+    let mut total = Tally::default();
+    // Real traces of R(3,3) <= 6 and R(2,3,3) <= 6 (no symmetry breaking), R(3,4) <= 9
+    // (lex-leader) and R(3,5) <= 14 (colour-swap, lex-leader): Greenwood & Gleason 1955;
+    // Radziszowski DS1; R(2,3,3) = R(3,3) by definition.
+    for (sizes, order, symmetry, count, seed) in [
+        (&[3, 3][..], 6, "none", 60, 0x9e37_79b9_7f4a_7c15u64),
+        (&[2, 3, 3][..], 6, "none", 40, 0x5851_f42d_4c95_7f2d),
+        (&[3, 4][..], 9, "lex-leader", 40, 0x2545_f491_4f6c_dd1d),
+        (
+            &[3, 5][..],
+            14,
+            "colour-swap,lex-leader",
+            60,
+            0x1234_5678_9abc_def1,
+        ),
+    ] {
+        let t = mutate_trace(sizes, order, symmetry, count, seed);
+        println!("({sizes:?};{order}) [{symmetry}]: {t:?}");
+        total.must_reject += t.must_reject;
+        total.rejected += t.rejected;
+        total.harmless += t.harmless;
+    }
+    println!(
+        "trace mutants: {} invalid, all {} rejected; {} harmless (still a refutation)",
+        total.must_reject, total.rejected, total.harmless
+    );
+    assert!(
+        total.must_reject >= 200,
+        "only {} invalid mutants",
+        total.must_reject
+    );
+    assert_eq!(total.rejected, total.must_reject);
+}
+
+fn copy_dir(from: &Path, to: &Path) {
+    std::fs::create_dir_all(to).unwrap();
+    for entry in std::fs::read_dir(from).unwrap() {
+        let entry = entry.unwrap();
+        if entry.path().is_file() {
+            std::fs::copy(entry.path(), to.join(entry.file_name())).unwrap();
+        }
+    }
+}
+
+fn sha256_of(path: &Path) -> String {
+    ramsift_driver::bundle::hash_file(path).unwrap().0
+}
+
+/// Edits the manifest JSON with `edit`, writing it back.
+fn edit_manifest(dir: &Path, edit: impl FnOnce(&mut serde_json::Value)) {
+    let path = dir.join("manifest.json");
+    let mut value: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&path).unwrap()).unwrap();
+    edit(&mut value);
+    std::fs::write(&path, serde_json::to_string_pretty(&value).unwrap()).unwrap();
+}
+
+fn set_hash(dir: &Path, file: &str) {
+    let hash = sha256_of(&dir.join(file));
+    edit_manifest(dir, |m| {
+        for f in m["files"].as_array_mut().unwrap() {
+            if f["name"] == file {
+                f["sha256"] = serde_json::Value::String(hash.clone());
+            }
+        }
+    });
+}
+
+fn gzip_cnf(dir: &Path, cnf: &Cnf) {
+    let mut text = format!("p cnf {} {}\n", cnf.variables, cnf.clauses.len());
+    for c in &cnf.clauses {
+        for l in c {
+            text.push_str(&format!("{l} "));
+        }
+        text.push_str("0\n");
+    }
+    ramsift_encoder::atomic_file::write_atomically(&dir.join("formula.cnf.gz"), |w| {
+        w.write_all(text.as_bytes())
+    })
+    .unwrap();
+}
+
+#[test]
+fn damaged_bundles_fail() {
+    let base = tempfile::tempdir().unwrap();
+    let good = base.path().join("good");
+    // R(4,4) <= 18 (Greenwood & Gleason 1955): equal colours, so colour-swap matters.
+    make_bundle(&[4, 4], 18, "colour-swap,lex-leader", &good);
+    assert!(check_bundle(&good, &[]).unwrap().passed());
+    let other = base.path().join("other");
+    make_bundle(&[3, 3], 6, "colour-swap,lex-leader", &other);
+
+    type Mutation = Box<dyn Fn(&Path)>;
+    let mut mutations: Vec<(String, Mutation)> = Vec::new();
+    // R(4,4) = 18 (Greenwood & Gleason 1955): claims at orders 17 and below are false,
+    // and at 19 the bundled formula is not that claim's formula.
+    for order in [3usize, 5, 10, 16, 17, 19, 25] {
+        mutations.push((
+            format!("manifest order {order}"),
+            Box::new(move |d: &Path| {
+                edit_manifest(d, |m| {
+                    m["claim"]["order"] = order.into();
+                    m["claim"]["statement"] = format!("R(4,4) <= {order}").into();
+                })
+            }),
+        ));
+    }
+    for sizes in [
+        vec![3, 3],
+        vec![3, 4],
+        vec![4, 5],
+        vec![5, 4],
+        vec![4, 4, 4],
+    ] {
+        mutations.push((
+            format!("manifest clique sizes {sizes:?}"),
+            Box::new(move |d: &Path| {
+                let list: Vec<String> = sizes.iter().map(|k| k.to_string()).collect();
+                edit_manifest(d, |m| {
+                    m["claim"]["clique_sizes"] = serde_json::json!(sizes);
+                    m["claim"]["statement"] = format!("R({}) <= 18", list.join(",")).into();
+                })
+            }),
+        ));
+    }
+    mutations.push((
+        "statement disagrees with the fields".into(),
+        Box::new(|d: &Path| edit_manifest(d, |m| m["claim"]["statement"] = "R(4,4) <= 17".into())),
+    ));
+    for symmetry in [
+        vec![],
+        vec!["lex-leader"],
+        vec!["colour-swap"],
+        vec!["degree-bounds"],
+        vec!["no-such-scheme"],
+    ] {
+        mutations.push((
+            format!("symmetry {symmetry:?}"),
+            Box::new(move |d: &Path| {
+                edit_manifest(d, |m| {
+                    m["encoding"]["symmetry"] = serde_json::json!(symmetry)
+                })
+            }),
+        ));
+    }
+    for (file, position) in [
+        ("proof.drat", 0usize),
+        ("proof.drat", 63),
+        ("formula.cnf.gz", 5),
+        ("formula.cnf.gz", 40),
+    ] {
+        mutations.push((
+            format!("hash of {file} edited at {position}"),
+            Box::new(move |d: &Path| {
+                edit_manifest(d, |m| {
+                    for f in m["files"].as_array_mut().unwrap() {
+                        if f["name"] == file {
+                            let mut h: Vec<char> = f["sha256"].as_str().unwrap().chars().collect();
+                            h[position] = if h[position] == '0' { '1' } else { '0' };
+                            f["sha256"] = h.into_iter().collect::<String>().into();
+                        }
+                    }
+                })
+            }),
+        ));
+    }
+    mutations.push((
+        "proof file missing".into(),
+        Box::new(|d: &Path| std::fs::remove_file(d.join("proof.drat")).unwrap()),
+    ));
+    mutations.push((
+        "formula file missing".into(),
+        Box::new(|d: &Path| std::fs::remove_file(d.join("formula.cnf.gz")).unwrap()),
+    ));
+    mutations.push((
+        "proof not listed".into(),
+        Box::new(|d: &Path| {
+            edit_manifest(d, |m| {
+                m["files"]
+                    .as_array_mut()
+                    .unwrap()
+                    .retain(|f| f["role"] != "drat-proof")
+            })
+        }),
+    ));
+    mutations.push((
+        "proof byte flipped (hash left stale)".into(),
+        Box::new(|d: &Path| {
+            let p = d.join("proof.drat");
+            let mut bytes = std::fs::read(&p).unwrap();
+            bytes[1] ^= 0x02;
+            std::fs::write(&p, bytes).unwrap();
+        }),
+    ));
+    for keep in [0.0, 0.3, 0.6, 0.9] {
+        mutations.push((
+            format!("proof truncated to {:.0}% (hash updated)", keep * 100.0),
+            Box::new(move |d: &Path| {
+                let p = d.join("proof.drat");
+                let steps = parse_drat("p", &std::fs::read(&p).unwrap()).unwrap();
+                let cut = steps[(steps.len() as f64 * keep) as usize].offset as usize;
+                let bytes = std::fs::read(&p).unwrap();
+                std::fs::write(&p, &bytes[..cut]).unwrap();
+                set_hash(d, "proof.drat");
+            }),
+        ));
+    }
+    let other_dir = other.clone();
+    mutations.push((
+        "proof of another claim (hash updated)".into(),
+        Box::new(move |d: &Path| {
+            std::fs::copy(other_dir.join("proof.drat"), d.join("proof.drat")).unwrap();
+            set_hash(d, "proof.drat");
+        }),
+    ));
+    let other_dir = other.clone();
+    mutations.push((
+        "formula of another claim (hash updated)".into(),
+        Box::new(move |d: &Path| {
+            std::fs::copy(other_dir.join("formula.cnf.gz"), d.join("formula.cnf.gz")).unwrap();
+            set_hash(d, "formula.cnf.gz");
+        }),
+    ));
+    for drop in [0usize, 17, 1000, 6000] {
+        mutations.push((
+            format!("formula clause {drop} dropped (hash updated)"),
+            Box::new(move |d: &Path| {
+                let mut cnf =
+                    parse_cnf("f", &read_input(&d.join("formula.cnf.gz")).unwrap()).unwrap();
+                cnf.clauses.remove(drop);
+                gzip_cnf(d, &cnf);
+                set_hash(d, "formula.cnf.gz");
+            }),
+        ));
+    }
+    mutations.push((
+        "extra clause added to the formula (hash updated)".into(),
+        Box::new(|d: &Path| {
+            let mut cnf = parse_cnf("f", &read_input(&d.join("formula.cnf.gz")).unwrap()).unwrap();
+            cnf.clauses.push(vec![1]);
+            gzip_cnf(d, &cnf);
+            set_hash(d, "formula.cnf.gz");
+        }),
+    ));
+
+    let mut rejected = 0;
+    for (i, (what, mutate)) in mutations.iter().enumerate() {
+        let dir = base.path().join(format!("m{i}"));
+        copy_dir(&good, &dir);
+        mutate(&dir);
+        match check_bundle(&dir, &[]) {
+            Ok(verdict) => assert!(!verdict.passed(), "FALSE PASS of bundle mutant: {what}"),
+            Err(_unreadable) => {}
+        }
+        rejected += 1;
+    }
+    println!(
+        "bundle mutants: {} made, {rejected} rejected",
+        mutations.len()
+    );
+    assert!(rejected >= 30);
+}
