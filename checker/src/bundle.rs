@@ -197,7 +197,10 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
         ) else {
             return fail(verdict, "a files[] entry lacks name, role or sha256".into());
         };
-        if file.contains('/') || file.contains("..") {
+        if file.starts_with('/')
+            || file.split('/').any(|part| part == ".." || part.is_empty())
+            || file.contains('\\')
+        {
             return fail(
                 verdict,
                 format!("file name {file:?} points outside the bundle"),
@@ -223,12 +226,16 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
             _ => {}
         }
     }
-    let (Some(formula_path), Some(proof_path)) = (formula_file, proof_file) else {
+    let sharding = manifest.get("sharding").filter(|v| !v.is_null());
+    let Some(formula_path) = formula_file else {
+        return fail(verdict, "the manifest lists no formula file".into());
+    };
+    if proof_file.is_none() && sharding.is_none() {
         return fail(
             verdict,
-            "the manifest lists no formula or no drat-proof file".into(),
+            "the manifest lists no drat-proof file and no shards".into(),
         );
-    };
+    }
     verdict
         .passed
         .push(format!("{} files match their SHA-256", files.len()));
@@ -270,18 +277,26 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
         cnf.clauses.len()
     ));
 
-    // 3. The proof refutes it.
-    let proof_name = proof_path.display().to_string();
-    let steps = match read_input(&proof_path).and_then(|b| parse_drat(&proof_name, &b)) {
-        Ok(s) => s,
-        Err(e) => return fail(verdict, format!("the proof cannot be read: {e}")),
-    };
-    match check_drat(&cnf, &steps, false) {
-        Ok((report, _)) => verdict.passed.push(format!(
-            "DRAT proof verified: {} lemmas, {} checked, core of {} original clauses",
-            report.lemmas, report.checked_lemmas, report.core_original_clauses
-        )),
-        Err(e) => return fail(verdict, format!("the proof is rejected: {e}")),
+    // 3. The proof refutes it: one trace, or every shard under its cube.
+    if let Some(sharding) = sharding {
+        match check_shards(dir, &cnf, sharding, &files) {
+            Ok(summary) => verdict.passed.push(summary),
+            Err(why) => return fail(verdict, why),
+        }
+    }
+    if let Some(proof_path) = proof_file {
+        let proof_name = proof_path.display().to_string();
+        let steps = match read_input(&proof_path).and_then(|b| parse_drat(&proof_name, &b)) {
+            Ok(s) => s,
+            Err(e) => return fail(verdict, format!("the proof cannot be read: {e}")),
+        };
+        match check_drat(&cnf, &steps, false) {
+            Ok((report, _)) => verdict.passed.push(format!(
+                "DRAT proof verified: {} lemmas, {} checked, core of {} original clauses",
+                report.lemmas, report.checked_lemmas, report.core_original_clauses
+            )),
+            Err(e) => return fail(verdict, format!("the proof is rejected: {e}")),
+        }
     }
 
     // 4. Premises.
@@ -329,4 +344,110 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
         });
     }
     Ok(verdict)
+}
+
+/// The leaves of a coverage tree with their paths; checks its shape.
+fn tree_leaves(
+    tree: &Value,
+    variables: usize,
+    path: &mut Vec<i32>,
+    out: &mut Vec<(usize, Vec<i32>)>,
+) -> Result<(), String> {
+    if let Some(leaf) = tree.get("leaf") {
+        let leaf = leaf.as_u64().ok_or("a tree leaf must be a shard index")? as usize;
+        out.push((leaf, path.clone()));
+        return Ok(());
+    }
+    let var = tree
+        .get("split")
+        .and_then(Value::as_i64)
+        .filter(|&v| v >= 1 && v as usize <= variables)
+        .ok_or("a tree node must split on a variable of the formula")? as i32;
+    if path.iter().any(|l| l.abs() == var) {
+        return Err(format!(
+            "the tree splits twice on variable {var} along one path"
+        ));
+    }
+    let (Some(positive), Some(negative)) = (tree.get("positive"), tree.get("negative")) else {
+        return Err(format!(
+            "the split on variable {var} lacks a positive or negative branch"
+        ));
+    };
+    path.push(var);
+    tree_leaves(positive, variables, path, out)?;
+    path.pop();
+    path.push(-var);
+    tree_leaves(negative, variables, path, out)?;
+    path.pop();
+    Ok(())
+}
+
+/// Checks a sharded refutation: the tree covers every assignment (each split has both
+/// branches, so the leaves' cubes form a tautology), each leaf has exactly one shard
+/// trace whose cube is the leaf's path, and each trace refutes formula ∧ cube.
+fn check_shards(
+    dir: &Path,
+    cnf: &crate::cnf::Cnf,
+    sharding: &Value,
+    files: &[Value],
+) -> Result<String, String> {
+    let tree = sharding.get("tree").ok_or("sharding has no tree")?;
+    let mut leaves = Vec::new();
+    tree_leaves(tree, cnf.variables, &mut Vec::new(), &mut leaves)?;
+    let count = leaves.len();
+    let mut seen = vec![false; count];
+    for (leaf, _) in &leaves {
+        if *leaf >= count || std::mem::replace(&mut seen[*leaf], true) {
+            return Err(format!(
+                "the tree's leaves are not the shard indices 0..{count} each once"
+            ));
+        }
+    }
+    if sharding.get("shards").and_then(Value::as_u64) != Some(count as u64) {
+        return Err(format!(
+            "sharding.shards does not match the {count} leaves of the tree"
+        ));
+    }
+    let mut lemmas = 0;
+    for (leaf, path) in &leaves {
+        let shard_files: Vec<&Value> = files
+            .iter()
+            .filter(|f| f.get("role").and_then(Value::as_str) == Some("shard-proof"))
+            .filter(|f| f.get("shard").and_then(Value::as_u64) == Some(*leaf as u64))
+            .collect();
+        let [file] = shard_files.as_slice() else {
+            return Err(format!(
+                "shard {leaf} has {} traces listed, expected exactly one",
+                shard_files.len()
+            ));
+        };
+        let mut cube: Vec<i32> = file
+            .get("cube")
+            .and_then(Value::as_array)
+            .and_then(|a| {
+                a.iter()
+                    .map(|x| x.as_i64().map(|v| v as i32))
+                    .collect::<Option<Vec<_>>>()
+            })
+            .ok_or(format!("shard {leaf} has no cube"))?;
+        let mut expected = path.clone();
+        cube.sort_unstable();
+        expected.sort_unstable();
+        if cube != expected {
+            return Err(format!(
+                "shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"
+            ));
+        }
+        let name = file.get("name").and_then(Value::as_str).unwrap_or_default();
+        let path_on_disk = dir.join(name);
+        let steps = read_input(&path_on_disk)
+            .and_then(|b| parse_drat(&path_on_disk.display().to_string(), &b))
+            .map_err(|e| format!("shard {leaf}: {e}"))?;
+        let mut with_cube = cnf.clone();
+        with_cube.clauses.extend(cube.iter().map(|&l| vec![l]));
+        let (report, _) = check_drat(&with_cube, &steps, false)
+            .map_err(|e| format!("shard {leaf}'s trace is rejected: {e}"))?;
+        lemmas += report.lemmas;
+    }
+    Ok(format!("coverage tree complete ({count} cubes); every shard trace verified under its cube ({lemmas} lemmas)"))
 }

@@ -27,6 +27,16 @@ pub struct Manifest {
     pub solver: String,
     pub solve_seconds: f64,
     pub files: Vec<FileRecord>,
+    /// For a sharded refutation: the coverage tree of the cubes.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sharding: Option<ShardingRecord>,
+}
+
+#[derive(Clone, Debug, Serialize)]
+pub struct ShardingRecord {
+    pub shards: usize,
+    /// Splits `{"split": v, "positive": …, "negative": …}` down to `{"leaf": i}`.
+    pub tree: crate::shard::PlanTree,
 }
 
 #[derive(Clone, Debug, Serialize)]
@@ -68,6 +78,27 @@ pub struct FileRecord {
     pub format: String,
     pub bytes: u64,
     pub sha256: String,
+    /// For a shard's trace: the shard's index and cube.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub shard: Option<usize>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub cube: Option<Vec<i32>>,
+}
+
+impl FileRecord {
+    /// A record of a file in `dir`, hashing it.
+    pub fn of(dir: &Path, name: &str, role: &str, format: &str) -> io::Result<Self> {
+        let (sha256, bytes) = hash_file(&dir.join(name))?;
+        Ok(FileRecord {
+            name: name.to_string(),
+            role: role.to_string(),
+            format: format.to_string(),
+            bytes,
+            sha256,
+            shard: None,
+            cube: None,
+        })
+    }
 }
 
 /// SHA-256 of a file, as lowercase hex, and its size.

@@ -21,6 +21,7 @@ pub mod interrupt;
 pub mod portfolio;
 pub mod refute;
 pub mod seeding;
+pub mod shard;
 pub mod verify;
 pub mod witness;
 

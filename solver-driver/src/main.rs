@@ -34,6 +34,9 @@ enum Command {
     Find(commands::find::FindArgs),
     /// Prove that no colouring exists and write a certificate bundle (CNF, DRAT, manifest).
     Refute(commands::refute::RefuteArgs),
+    /// Sharded refutation: plan cubes, run them (locally or on Slurm), merge.
+    #[command(subcommand)]
+    Shard(commands::shard::ShardCommand),
     /// Write the CNF encoding of an instance as DIMACS (gzip if the name ends in .gz).
     Encode(commands::encode::EncodeArgs),
     /// A short built-in session: find and check witnesses for classical bounds.
@@ -46,6 +49,7 @@ fn main() -> ExitCode {
         Command::Find(args) => commands::find::run(&args),
         Command::Encode(args) => commands::encode::run(&args),
         Command::Refute(args) => commands::refute::run(&args),
+        Command::Shard(command) => commands::shard::run(&command),
         Command::Demo(args) => commands::demo::run(&args),
     };
     match result {

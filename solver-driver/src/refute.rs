@@ -19,8 +19,8 @@ use ramsift_encoder::{CliqueEncoding, Colouring};
 
 use crate::attempt::{run_attempt_counted, AttemptError, AttemptOutcome, AttemptPlan};
 use crate::bundle::{
-    claim_of, encoding_record, hash_file, premise_records, write_manifest_and_guide, FileRecord,
-    Manifest, BUNDLE_FORMAT, FORMULA_FILE,
+    claim_of, encoding_record, premise_records, write_manifest_and_guide, FileRecord, Manifest,
+    PremiseRecord, BUNDLE_FORMAT, FORMULA_FILE,
 };
 use crate::formula::Formula;
 use crate::verify::verify_witness;
@@ -67,6 +67,8 @@ pub enum RefuteError {
     Attempt(#[from] AttemptError),
     #[error("internal error: the solver's colouring failed the independent check ({0}); please report this")]
     WitnessRejected(String),
+    #[error("certifying the premise {0}: {1}")]
+    Premise(String, String),
 }
 
 /// The proof's file name for the chosen options.
@@ -158,14 +160,7 @@ pub fn refute(
                     },
                 ),
             ] {
-                let (sha256, bytes) = hash_file(&dir.join(&name)).map_err(io_error)?;
-                files.push(FileRecord {
-                    name,
-                    role: role.to_string(),
-                    format: format.to_string(),
-                    bytes,
-                    sha256,
-                });
+                files.push(FileRecord::of(dir, &name, role, format).map_err(io_error)?);
             }
             let manifest = Manifest {
                 bundle_format: BUNDLE_FORMAT.to_string(),
@@ -176,6 +171,7 @@ pub fn refute(
                 solver: crate::SOLVER_NAME.to_string(),
                 solve_seconds,
                 files,
+                sharding: None,
             };
             let mut written = vec![formula_path, proof_path];
             written
@@ -191,4 +187,54 @@ pub fn refute(
         result,
         solve_seconds,
     })
+}
+
+/// The directory a premise's bundle goes to inside a bundle: `premises/R3-4-9`.
+pub fn premise_dir(dir: &Path, premise: &PremiseRecord) -> PathBuf {
+    let sizes: Vec<String> = premise.clique_sizes.iter().map(|k| k.to_string()).collect();
+    dir.join("premises")
+        .join(format!("R{}-{}", sizes.join("-"), premise.upper_bound))
+}
+
+/// Refutes every premise into `dir/premises/` (recursively certifying theirs), with
+/// the same symmetry schemes. Returns the premise bundles written.
+pub fn certify_premises(
+    premises: &[PremiseRecord],
+    symmetry: &ramsift_encoder::SymmetrySet,
+    dir: &Path,
+    options: &RefuteOptions,
+    stop: &AtomicBool,
+) -> Result<Vec<PathBuf>, RefuteError> {
+    use ramsift_encoder::{EncodingLimits, Instance, RamseySpec};
+    let mut written = Vec::new();
+    for premise in premises {
+        let sub_dir = premise_dir(dir, premise);
+        let spec = RamseySpec::cliques(&premise.clique_sizes)
+            .map_err(|e| RefuteError::Premise(premise.statement.clone(), e.to_string()))?;
+        let instance = Instance::new(spec, premise.upper_bound)
+            .map_err(|e| RefuteError::Premise(premise.statement.clone(), e.to_string()))?;
+        let encoding =
+            CliqueEncoding::with_symmetry(&instance, symmetry, &EncodingLimits::default())
+                .map_err(|e| RefuteError::Premise(premise.statement.clone(), e.to_string()))?;
+        let report = refute(&encoding, &sub_dir, options, stop, &AtomicU64::new(0))?;
+        match report.result {
+            RefuteResult::Refuted { manifest, .. } => {
+                written.push(sub_dir.clone());
+                written.extend(certify_premises(
+                    &manifest.premises,
+                    symmetry,
+                    &sub_dir,
+                    options,
+                    stop,
+                )?);
+            }
+            _ => {
+                return Err(RefuteError::Premise(
+                    premise.statement.clone(),
+                    "it was not refuted (a colouring exists, or the time ran out)".into(),
+                ))
+            }
+        }
+    }
+    Ok(written)
 }

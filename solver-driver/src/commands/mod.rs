@@ -6,3 +6,4 @@ pub mod find;
 pub mod instance_args;
 pub mod progress;
 pub mod refute;
+pub mod shard;

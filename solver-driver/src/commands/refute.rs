@@ -9,7 +9,7 @@ use clap::Args;
 use serde_json::json;
 
 use ramsift_driver::exit_codes;
-use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
 use ramsift_driver::witness::{colouring_text, write_witness_files};
 
 use super::instance_args::InstanceArgs;
@@ -48,9 +48,6 @@ pub struct RefuteArgs {
     /// No progress line on stderr.
     #[arg(long, short)]
     pub quiet: bool,
-    /// Whether to print the outcome (off for premises certified along the way).
-    #[arg(skip = true)]
-    pub announce: bool,
 }
 
 pub fn run(args: &RefuteArgs) -> Result<u8> {
@@ -73,8 +70,13 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let started = Instant::now();
     let report = std::thread::scope(|scope| {
         let worker = scope.spawn(|| refute(&encoding, &args.out, &options, &stop, &bytes));
+        let mut polls = 0u32;
         while !worker.is_finished() {
-            std::thread::sleep(Duration::from_millis(100));
+            std::thread::sleep(Duration::from_millis(5));
+            polls += 1;
+            if polls % 20 != 0 {
+                continue;
+            }
             line.update(|| {
                 format!(
                     "refuting {instance} [{}]: {} elapsed, {} MiB of DRAT trace",
@@ -98,12 +100,13 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
         } => {
             let mut files = files.clone();
             if !args.assume_premises {
-                for premise in &manifest.premises {
-                    files.push(certify_premise(args, premise)?);
-                }
-            }
-            if !args.announce {
-                return Ok(exit_codes::NONE_EXISTS);
+                files.extend(certify_premises(
+                    &manifest.premises,
+                    encoding.symmetry(),
+                    &args.out,
+                    &options,
+                    &stop,
+                )?);
             }
             if args.json {
                 println!(
@@ -172,40 +175,4 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             Ok(exit_codes::UNKNOWN)
         }
     }
-}
-
-/// Refutes a premise R(cliques) <= bound into DIR/premises/ (recursively certifying its own premises).
-fn certify_premise(
-    args: &RefuteArgs,
-    premise: &ramsift_driver::bundle::PremiseRecord,
-) -> Result<PathBuf> {
-    let sizes: Vec<String> = premise.clique_sizes.iter().map(|k| k.to_string()).collect();
-    let sub = RefuteArgs {
-        instance: InstanceArgs {
-            spec: sizes.join(","),
-            order: premise.upper_bound,
-            max_clauses: args.instance.max_clauses,
-        },
-        out: args.out.join("premises").join(format!(
-            "R{}-{}",
-            sizes.join("-"),
-            premise.upper_bound
-        )),
-        symmetry: args.symmetry.clone(),
-        text: args.text,
-        gzip: args.gzip,
-        timeout: args.timeout,
-        assume_premises: false,
-        json: false,
-        quiet: true,
-        announce: false,
-    };
-    let code =
-        run(&sub).with_context(|| format!("certifying the premise {}", premise.statement))?;
-    anyhow::ensure!(
-        code == exit_codes::NONE_EXISTS,
-        "the premise {} could not be certified (exit code {code})",
-        premise.statement
-    );
-    Ok(sub.out)
 }

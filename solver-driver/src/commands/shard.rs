@@ -1,0 +1,323 @@
+//! `ramsift shard …`: plan a sharded refutation, run shards (one, all locally, or as
+//! a Slurm job array), report their status, and merge them into one bundle.
+
+use std::path::PathBuf;
+use std::sync::atomic::AtomicBool;
+use std::time::Duration;
+
+use anyhow::{bail, Context, Result};
+use clap::{Args, Subcommand};
+use rayon::prelude::*;
+
+use ramsift_driver::exit_codes;
+use ramsift_driver::shard::merge::merge;
+use ramsift_driver::shard::plan::plan_cubes;
+use ramsift_driver::shard::run::{read_plan, run_shard, ShardOutcome};
+use ramsift_driver::shard::slurm::{batch_scripts, SlurmOptions};
+use ramsift_driver::shard::status::{array_list, plan_status};
+use ramsift_driver::shard::PLAN_FILE;
+use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::dimacs::write_encoding_to;
+
+use super::instance_args::InstanceArgs;
+use super::refute::DEFAULT_REFUTE_SYMMETRY;
+
+#[derive(Subcommand, Debug)]
+pub enum ShardCommand {
+    /// Split a refutation into cubes whose disjunction is a tautology.
+    Plan(PlanArgs),
+    /// Refute one shard (index from --index or SLURM_ARRAY_TASK_ID); skips finished shards.
+    Run(RunArgs),
+    /// Run every unfinished shard on local cores.
+    Local(LocalArgs),
+    /// Write a Slurm batch script (job array over the shards).
+    Slurm(SlurmArgs),
+    /// Count done / failed / missing shards and print the --array list to resubmit.
+    Status(StatusArgs),
+    /// Check every shard result and write one certificate bundle.
+    Merge(MergeArgs),
+}
+
+#[derive(Args, Debug)]
+pub struct PlanArgs {
+    #[command(flatten)]
+    pub instance: InstanceArgs,
+    /// Number of shards (cubes).
+    #[arg(long, default_value_t = 64)]
+    pub shards: usize,
+    /// The plan directory.
+    #[arg(long, value_name = "DIR")]
+    pub out: PathBuf,
+    /// Symmetry breaking (as for refute).
+    #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
+    pub symmetry: String,
+}
+
+#[derive(Args, Debug)]
+pub struct RunArgs {
+    /// The plan directory.
+    pub plan: PathBuf,
+    /// The shard to run (default: $SLURM_ARRAY_TASK_ID).
+    #[arg(long)]
+    pub index: Option<usize>,
+    /// Give up on the shard after this many seconds (exit 1; nothing is kept).
+    #[arg(long, value_name = "SECONDS")]
+    pub timeout: Option<f64>,
+}
+
+#[derive(Args, Debug)]
+pub struct LocalArgs {
+    /// The plan directory.
+    pub plan: PathBuf,
+    /// Shards run at once (default: all cores).
+    #[arg(long)]
+    pub threads: Option<usize>,
+}
+
+#[derive(Args, Debug)]
+pub struct SlurmArgs {
+    /// The plan directory.
+    pub plan: PathBuf,
+    #[arg(long)]
+    pub partition: Option<String>,
+    /// Time limit per shard, in Slurm's syntax (e.g. 1:00:00).
+    #[arg(long)]
+    pub time: Option<String>,
+    /// Memory per shard, in Slurm's syntax (e.g. 4G).
+    #[arg(long)]
+    pub mem: Option<String>,
+    /// CPUs per shard (a shard runs one solver).
+    #[arg(long, default_value_t = 1)]
+    pub cpus: usize,
+    /// At most this many shards running at once.
+    #[arg(long)]
+    pub throttle: Option<usize>,
+    /// The cluster's MaxArraySize (larger plans get one script per chunk).
+    #[arg(long, default_value_t = 1001)]
+    pub max_array_size: usize,
+}
+
+#[derive(Args, Debug)]
+pub struct StatusArgs {
+    /// The plan directory.
+    pub plan: PathBuf,
+    /// Print the status as JSON.
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Args, Debug)]
+pub struct MergeArgs {
+    /// The plan directory.
+    pub plan: PathBuf,
+    /// The bundle directory to write.
+    #[arg(long, value_name = "DIR")]
+    pub out: PathBuf,
+    /// Also compose one DRAT trace of the whole formula from the shard traces.
+    #[arg(long)]
+    pub single_trace: bool,
+    /// Do not certify the premises of degree bounds (see `refute --assume-premises`).
+    #[arg(long)]
+    pub assume_premises: bool,
+}
+
+pub fn run(command: &ShardCommand) -> Result<u8> {
+    match command {
+        ShardCommand::Plan(args) => plan(args),
+        ShardCommand::Run(args) => run_one(args),
+        ShardCommand::Local(args) => local(args),
+        ShardCommand::Slurm(args) => slurm(args),
+        ShardCommand::Status(args) => status(args),
+        ShardCommand::Merge(args) => {
+            let report = merge(
+                &args.plan,
+                &args.out,
+                args.single_trace,
+                !args.assume_premises,
+            )?;
+            println!(
+                "merged {} into {}: shard time {:.2}s in all, {} bytes of shard traces",
+                args.plan.display(),
+                args.out.display(),
+                report.shard_seconds,
+                report.trace_bytes
+            );
+            if let Some(t) = report.composed_trace {
+                println!("composed single trace {}", t.display());
+            }
+            println!("check with: ramsift-check bundle {}", args.out.display());
+            Ok(exit_codes::NONE_EXISTS)
+        }
+    }
+}
+
+fn plan(args: &PlanArgs) -> Result<u8> {
+    anyhow::ensure!(args.shards >= 1, "--shards 0: at least one shard is needed");
+    let encoding = args.instance.encoding(&args.symmetry)?;
+    ensure_dir(&args.out).with_context(|| format!("creating {}", args.out.display()))?;
+    let formula_path = args.out.join("formula.cnf.gz");
+    write_encoding_to(&encoding, &formula_path)?;
+    let (sha, _) = ramsift_driver::bundle::hash_file(&formula_path)?;
+    let plan = plan_cubes(&encoding, args.shards, sha);
+    let json = serde_json::to_string_pretty(&plan)?;
+    write_atomically(&args.out.join(PLAN_FILE), |w| w.write_all(json.as_bytes()))?;
+    println!(
+        "planned {} as {} shards in {} [{}]",
+        encoding.instance(),
+        plan.cubes.len(),
+        args.out.display(),
+        encoding.symmetry()
+    );
+    println!(
+        "{:>6} {:>6} {:>8} {:>10}  cube",
+        "shard", "size", "free", "est. share"
+    );
+    for c in &plan.cubes {
+        println!(
+            "{:>6} {:>6} {:>8} {:>9.1}%  {:?}{}",
+            c.index,
+            c.literals.len(),
+            c.free_variables,
+            c.estimated_share_percent,
+            c.literals,
+            if c.refuted_by_propagation {
+                " (refuted by propagation)"
+            } else {
+                ""
+            }
+        );
+    }
+    Ok(exit_codes::SUCCESS)
+}
+
+fn timeout_of(t: Option<f64>) -> Result<Option<Duration>> {
+    match t {
+        Some(t) if !(t.is_finite() && t > 0.0) => {
+            bail!("--timeout {t}: expected a positive number of seconds")
+        }
+        t => Ok(t.map(Duration::from_secs_f64)),
+    }
+}
+
+fn run_one(args: &RunArgs) -> Result<u8> {
+    let index = match args.index {
+        Some(i) => i,
+        None => std::env::var("SLURM_ARRAY_TASK_ID")
+            .ok()
+            .and_then(|v| v.parse().ok())
+            .context("no --index given and SLURM_ARRAY_TASK_ID is not set")?,
+    };
+    let outcome = run_shard(
+        &args.plan,
+        index,
+        timeout_of(args.timeout)?,
+        &AtomicBool::new(false),
+    )?;
+    println!("shard {index}: {outcome:?}");
+    Ok(match outcome {
+        // 0, not 20: a Slurm array task that exits non-zero counts as failed.
+        ShardOutcome::AlreadyDone | ShardOutcome::Refuted => exit_codes::SUCCESS,
+        ShardOutcome::Found => exit_codes::FOUND,
+        ShardOutcome::Unknown => exit_codes::UNKNOWN,
+    })
+}
+
+fn local(args: &LocalArgs) -> Result<u8> {
+    let plan = read_plan(&args.plan)?;
+    let pending = plan_status(&args.plan, plan.cubes.len()).to_resubmit();
+    let threads = args
+        .threads
+        .unwrap_or_else(|| std::thread::available_parallelism().map_or(1, |n| n.get()));
+    let pool = rayon::ThreadPoolBuilder::new()
+        .num_threads(threads.max(1))
+        .build()?;
+    let stop = AtomicBool::new(false);
+    let outcomes: Vec<Result<ShardOutcome>> = pool.install(|| {
+        pending
+            .par_iter()
+            .map(|&i| run_shard(&args.plan, i, None, &stop))
+            .collect()
+    });
+    let mut found = false;
+    for (i, outcome) in pending.iter().zip(outcomes) {
+        match outcome.with_context(|| format!("shard {i}"))? {
+            ShardOutcome::Found => found = true,
+            ShardOutcome::Unknown => bail!("shard {i} ended without an answer"),
+            _ => {}
+        }
+    }
+    println!(
+        "ran {} shards on {threads} threads ({} were already done)",
+        pending.len(),
+        plan.cubes.len() - pending.len()
+    );
+    Ok(if found {
+        exit_codes::FOUND
+    } else {
+        exit_codes::SUCCESS
+    })
+}
+
+fn slurm(args: &SlurmArgs) -> Result<u8> {
+    let plan = read_plan(&args.plan)?;
+    let plan_dir = std::fs::canonicalize(&args.plan)?;
+    let ramsift = std::env::current_exe().context("locating the ramsift binary")?;
+    let options = SlurmOptions {
+        partition: args.partition.clone(),
+        time: args.time.clone(),
+        mem: args.mem.clone(),
+        cpus: args.cpus,
+        throttle: args.throttle,
+        max_array_size: args.max_array_size,
+    };
+    let job = format!("ramsift-{}-{}", plan.spec.replace(',', "-"), plan.order);
+    ensure_dir(&plan_dir.join("shards"))?;
+    for (name, script) in batch_scripts(&ramsift, &plan_dir, &job, plan.cubes.len(), &options) {
+        let path = plan_dir.join(&name);
+        write_atomically(&path, |w| w.write_all(script.as_bytes()))?;
+        println!(
+            "wrote {} (submit with: sbatch {})",
+            path.display(),
+            path.display()
+        );
+    }
+    Ok(exit_codes::SUCCESS)
+}
+
+fn status(args: &StatusArgs) -> Result<u8> {
+    let plan = read_plan(&args.plan)?;
+    let s = plan_status(&args.plan, plan.cubes.len());
+    let resubmit = s.to_resubmit();
+    if args.json {
+        println!(
+            "{}",
+            serde_json::json!({
+                "shards": plan.cubes.len(), "done": s.done.len(), "found": s.found,
+                "damaged": s.damaged, "missing": s.missing, "resubmit_array": array_list(&resubmit),
+            })
+        );
+    } else {
+        println!(
+            "{}: {} shards: {} done, {} failed ({} found a colouring, {} damaged), {} missing",
+            args.plan.display(),
+            plan.cubes.len(),
+            s.done.len(),
+            s.found.len() + s.damaged.len(),
+            s.found.len(),
+            s.damaged.len(),
+            s.missing.len()
+        );
+        if !resubmit.is_empty() {
+            println!(
+                "resubmit with: sbatch --array={} {}/submit.sbatch",
+                array_list(&resubmit),
+                args.plan.display()
+            );
+        }
+    }
+    Ok(if resubmit.is_empty() && s.found.is_empty() {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::UNKNOWN
+    })
+}

@@ -1,0 +1,306 @@
+//! Cube planning: a decision tree over variables of the formula whose leaves are the
+//! shards. Each split is chosen by lookahead: for a sample of free variables v, unit
+//! propagation is run under cube ∧ v and cube ∧ ¬v, and the variable maximising
+//! (assigned(v) + 1)·(assigned(¬v) + 1) is taken (the product rule of lookahead
+//! solvers), so both branches shrink the problem. The leaf with the most free
+//! variables is split next, until there are as many leaves as shards asked for.
+//! Since every split has both polarities as children, the leaves' cubes cover every
+//! assignment exactly once: their disjunction is a tautology.
+
+use serde::{Deserialize, Serialize};
+
+use ramsift_encoder::{CliqueEncoding, Forbidden};
+
+use super::propagate::{Propagation, Propagator};
+use crate::formula::Formula;
+
+/// The identifier of the plan layout.
+pub const PLAN_FORMAT: &str = "ramsift-plan 1";
+
+/// The coverage tree: a leaf (shard index) or a split on a variable.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(untagged)]
+pub enum PlanTree {
+    Leaf {
+        leaf: usize,
+    },
+    Split {
+        split: i32,
+        positive: Box<PlanTree>,
+        negative: Box<PlanTree>,
+    },
+}
+
+/// One shard: its cube and the planner's estimate of its difficulty.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+pub struct Cube {
+    pub index: usize,
+    pub literals: Vec<i32>,
+    /// Variables left unassigned by unit propagation under the cube.
+    pub free_variables: usize,
+    /// True when unit propagation alone refutes the cube.
+    pub refuted_by_propagation: bool,
+    /// Share of the total estimated work (2^(free/10), normalised), in percent.
+    pub estimated_share_percent: f64,
+}
+
+/// A plan: the instance, its formula's fingerprint, the cubes and the tree.
+#[derive(Clone, Debug, Serialize, Deserialize)]
+pub struct Plan {
+    pub plan_format: String,
+    pub spec: String,
+    pub clique_sizes: Vec<usize>,
+    pub order: usize,
+    pub symmetry: Vec<String>,
+    pub variables: usize,
+    pub clauses: u64,
+    pub formula_sha256: String,
+    pub cubes: Vec<Cube>,
+    pub tree: PlanTree,
+}
+
+enum Node {
+    Leaf {
+        cube: Vec<i32>,
+        free: usize,
+        refuted: bool,
+    },
+    Split {
+        var: i32,
+        positive: usize,
+        negative: usize,
+    },
+}
+
+fn measure(propagator: &Propagator, cube: &[i32], variables: usize) -> (usize, bool) {
+    match propagator.propagate(cube) {
+        Propagation::Conflict => (0, true),
+        Propagation::Assigned(a) => (variables - a.len(), false),
+    }
+}
+
+/// Plans `shards` cubes for the encoding (fewer if the tree cannot grow further).
+pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: String) -> Plan {
+    let formula = Formula::from_encoding(encoding);
+    let propagator = Propagator::new(&formula);
+    let variables = formula.variable_count();
+    let colour_variables = formula.variables().colour_variable_count();
+    let (free, refuted) = measure(&propagator, &[], variables);
+    let mut nodes = vec![Node::Leaf {
+        cube: Vec::new(),
+        free,
+        refuted,
+    }];
+    let mut leaves = 1;
+    while leaves < shards.max(1) {
+        // The open leaf with the most free variables.
+        let Some(target) = (0..nodes.len())
+            .filter(|&i| matches!(nodes[i], Node::Leaf { refuted: false, free, .. } if free > 0))
+            .max_by_key(|&i| match nodes[i] {
+                Node::Leaf { free, .. } => free,
+                _ => 0,
+            })
+        else {
+            break;
+        };
+        let Node::Leaf { cube, .. } = &nodes[target] else {
+            unreachable!()
+        };
+        let cube = cube.clone();
+        let assigned: Vec<i32> = match propagator.propagate(&cube) {
+            Propagation::Assigned(a) => a,
+            Propagation::Conflict => Vec::new(),
+        };
+        let candidates: Vec<i32> = (1..=colour_variables as i32)
+            .filter(|v| !assigned.iter().any(|l| l.abs() == *v))
+            .collect();
+        if candidates.is_empty() {
+            break;
+        }
+        let step = (candidates.len() / 48).max(1);
+        let mut best: Option<(u64, i32, (usize, bool), (usize, bool))> = None;
+        for &v in candidates.iter().step_by(step) {
+            let mut with = cube.clone();
+            with.push(v);
+            let pos = measure(&propagator, &with, variables);
+            *with.last_mut().expect("pushed") = -v;
+            let neg = measure(&propagator, &with, variables);
+            let free_now = variables - assigned.len();
+            let gain = |m: (usize, bool)| {
+                if m.1 {
+                    free_now as u64
+                } else {
+                    free_now.saturating_sub(m.0) as u64
+                }
+            };
+            let score = (gain(pos) + 1) * (gain(neg) + 1);
+            if best.is_none_or(|b| score > b.0) {
+                best = Some((score, v, pos, neg));
+            }
+        }
+        let (_, var, pos, neg) = best.expect("at least one candidate");
+        let mut positive_cube = cube.clone();
+        positive_cube.push(var);
+        let mut negative_cube = cube;
+        negative_cube.push(-var);
+        let positive = nodes.len();
+        nodes.push(Node::Leaf {
+            cube: positive_cube,
+            free: pos.0,
+            refuted: pos.1,
+        });
+        let negative = nodes.len();
+        nodes.push(Node::Leaf {
+            cube: negative_cube,
+            free: neg.0,
+            refuted: neg.1,
+        });
+        nodes[target] = Node::Split {
+            var,
+            positive,
+            negative,
+        };
+        leaves += 1;
+    }
+
+    // Number the leaves depth first and build the serialisable tree.
+    let mut cubes = Vec::new();
+    fn build(nodes: &[Node], at: usize, cubes: &mut Vec<Cube>) -> PlanTree {
+        match &nodes[at] {
+            Node::Leaf {
+                cube,
+                free,
+                refuted,
+            } => {
+                let index = cubes.len();
+                cubes.push(Cube {
+                    index,
+                    literals: cube.clone(),
+                    free_variables: *free,
+                    refuted_by_propagation: *refuted,
+                    estimated_share_percent: 0.0,
+                });
+                PlanTree::Leaf { leaf: index }
+            }
+            Node::Split {
+                var,
+                positive,
+                negative,
+            } => PlanTree::Split {
+                split: *var,
+                positive: Box::new(build(nodes, *positive, cubes)),
+                negative: Box::new(build(nodes, *negative, cubes)),
+            },
+        }
+    }
+    let tree = build(&nodes, 0, &mut cubes);
+    let weights: Vec<f64> = cubes
+        .iter()
+        .map(|c| {
+            if c.refuted_by_propagation {
+                0.0
+            } else {
+                2f64.powf(c.free_variables as f64 / 10.0)
+            }
+        })
+        .collect();
+    let total: f64 = weights.iter().sum::<f64>().max(f64::MIN_POSITIVE);
+    for (cube, w) in cubes.iter_mut().zip(weights) {
+        cube.estimated_share_percent = 100.0 * w / total;
+    }
+    let instance = encoding.instance();
+    Plan {
+        plan_format: PLAN_FORMAT.to_string(),
+        spec: instance.spec().to_string(),
+        clique_sizes: instance
+            .spec()
+            .forbidden()
+            .iter()
+            .map(|g| match *g {
+                Forbidden::Clique(k) => k,
+            })
+            .collect(),
+        order: instance.order(),
+        symmetry: encoding
+            .symmetry()
+            .schemes()
+            .iter()
+            .map(|s| s.name().to_string())
+            .collect(),
+        variables: encoding.variable_count(),
+        clauses: encoding.clause_count(),
+        formula_sha256,
+        cubes,
+        tree,
+    }
+}
+
+/// The cubes the tree defines (root-to-leaf paths), indexed by leaf.
+pub fn tree_cubes(tree: &PlanTree) -> Vec<(usize, Vec<i32>)> {
+    fn walk(t: &PlanTree, path: &mut Vec<i32>, out: &mut Vec<(usize, Vec<i32>)>) {
+        match t {
+            PlanTree::Leaf { leaf } => out.push((*leaf, path.clone())),
+            PlanTree::Split {
+                split,
+                positive,
+                negative,
+            } => {
+                path.push(*split);
+                walk(positive, path, out);
+                path.pop();
+                path.push(-split);
+                walk(negative, path, out);
+                path.pop();
+            }
+        }
+    }
+    let mut out = Vec::new();
+    walk(tree, &mut Vec::new(), &mut out);
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use ramsift_encoder::{EncodingLimits, Instance, RamseySpec, SymmetrySet};
+
+    #[test]
+    fn cubes_partition_every_assignment() {
+        let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 18).unwrap();
+        let set: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
+        let encoding =
+            CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        let plan = plan_cubes(&encoding, 16, String::new());
+        assert_eq!(plan.cubes.len(), 16);
+        assert_eq!(
+            tree_cubes(&plan.tree),
+            plan.cubes
+                .iter()
+                .map(|c| (c.index, c.literals.clone()))
+                .collect::<Vec<_>>()
+        );
+        // Every assignment of the split variables satisfies exactly one cube.
+        let mut vars: Vec<i32> = plan
+            .cubes
+            .iter()
+            .flat_map(|c| c.literals.iter().map(|l| l.abs()))
+            .collect();
+        vars.sort_unstable();
+        vars.dedup();
+        assert!(vars.len() <= 15);
+        for bits in 0u32..1 << vars.len() {
+            let value = |l: i32| {
+                let at = vars.iter().position(|&v| v == l.abs()).unwrap();
+                (bits >> at & 1 == 1) == (l > 0)
+            };
+            let matching = plan
+                .cubes
+                .iter()
+                .filter(|c| c.literals.iter().all(|&l| value(l)))
+                .count();
+            assert_eq!(matching, 1);
+        }
+        let share: f64 = plan.cubes.iter().map(|c| c.estimated_share_percent).sum();
+        assert!((share - 100.0).abs() < 1e-6 || share == 0.0);
+    }
+}

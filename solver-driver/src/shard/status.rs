@@ -1,0 +1,77 @@
+//! Which shards of a plan are done, failed (a colouring was found, or a damaged
+//! result), or missing (never run, or interrupted), and the `--array=` list that
+//! resubmits the ones still needed.
+
+use std::path::Path;
+
+use super::run::complete_result;
+use super::{shard_dir, RESULT_FILE};
+
+/// The state of every shard.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct PlanStatus {
+    pub done: Vec<usize>,
+    /// A colouring was found under the cube: the claim itself is false.
+    pub found: Vec<usize>,
+    /// A result record exists but does not match its trace.
+    pub damaged: Vec<usize>,
+    /// No result record (never run, running, or interrupted).
+    pub missing: Vec<usize>,
+}
+
+impl PlanStatus {
+    /// Shards to (re)submit: damaged and missing ones.
+    pub fn to_resubmit(&self) -> Vec<usize> {
+        let mut all: Vec<usize> = self.damaged.iter().chain(&self.missing).copied().collect();
+        all.sort_unstable();
+        all
+    }
+}
+
+pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
+    let mut status = PlanStatus::default();
+    for index in 0..shards {
+        match complete_result(plan_dir, index) {
+            Some(r) if r.status == "refuted" => status.done.push(index),
+            Some(_) => status.found.push(index),
+            None if shard_dir(plan_dir, index).join(RESULT_FILE).exists() => {
+                status.damaged.push(index)
+            }
+            None => status.missing.push(index),
+        }
+    }
+    status
+}
+
+/// Slurm's array syntax for a list of indices: `0,3-5,9`.
+pub fn array_list(indices: &[usize]) -> String {
+    let mut parts = Vec::new();
+    let mut i = 0;
+    while i < indices.len() {
+        let start = indices[i];
+        let mut end = start;
+        while i + 1 < indices.len() && indices[i + 1] == end + 1 {
+            i += 1;
+            end = indices[i];
+        }
+        parts.push(if start == end {
+            start.to_string()
+        } else {
+            format!("{start}-{end}")
+        });
+        i += 1;
+    }
+    parts.join(",")
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn array_lists_compress_runs() {
+        assert_eq!(array_list(&[0, 1, 2, 5, 7, 8]), "0-2,5,7-8");
+        assert_eq!(array_list(&[3]), "3");
+        assert_eq!(array_list(&[]), "");
+    }
+}
