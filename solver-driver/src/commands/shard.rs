@@ -293,19 +293,20 @@ fn status(args: &StatusArgs) -> Result<u8> {
             "{}",
             serde_json::json!({
                 "shards": plan.cubes.len(), "done": s.done.len(), "found": s.found,
-                "damaged": s.damaged, "missing": s.missing, "resubmit_array": array_list(&resubmit),
+                "damaged": s.damaged, "missing": s.missing, "partial": s.partial, "resubmit_array": array_list(&resubmit),
             })
         );
     } else {
         println!(
-            "{}: {} shards: {} done, {} failed ({} found a colouring, {} damaged), {} missing",
+            "{}: {} shards: {} done, {} failed ({} found a colouring, {} damaged), {} missing ({} with partial files: running or interrupted)",
             args.plan.display(),
             plan.cubes.len(),
             s.done.len(),
             s.found.len() + s.damaged.len(),
             s.found.len(),
             s.damaged.len(),
-            s.missing.len()
+            s.missing.len(),
+            s.partial.len()
         );
         if !resubmit.is_empty() {
             println!(

@@ -17,6 +17,8 @@ pub struct PlanStatus {
     pub damaged: Vec<usize>,
     /// No result record (never run, running, or interrupted).
     pub missing: Vec<usize>,
+    /// The missing shards that left partial files (running now, or interrupted).
+    pub partial: Vec<usize>,
 }
 
 impl PlanStatus {
@@ -37,7 +39,12 @@ pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
             None if shard_dir(plan_dir, index).join(RESULT_FILE).exists() => {
                 status.damaged.push(index)
             }
-            None => status.missing.push(index),
+            None => {
+                if shard_dir(plan_dir, index).exists() {
+                    status.partial.push(index);
+                }
+                status.missing.push(index);
+            }
         }
     }
     status
