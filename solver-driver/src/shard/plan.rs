@@ -72,7 +72,18 @@ enum Node {
     },
 }
 
-fn measure(propagator: &Propagator, cube: &[i32], variables: usize) -> (usize, bool) {
+/// Free variables after propagation, and whether propagation refuted the cube.
+type Measure = (usize, bool);
+
+/// The best split found so far: (score, variable, positive branch, negative branch).
+struct Lookahead {
+    score: u64,
+    var: i32,
+    positive: Measure,
+    negative: Measure,
+}
+
+fn measure(propagator: &Propagator, cube: &[i32], variables: usize) -> Measure {
     match propagator.propagate(cube) {
         Propagation::Conflict => (0, true),
         Propagation::Assigned(a) => (variables - a.len(), false),
@@ -118,7 +129,7 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
             break;
         }
         let step = (candidates.len() / 48).max(1);
-        let mut best: Option<(u64, i32, (usize, bool), (usize, bool))> = None;
+        let mut best: Option<Lookahead> = None;
         for &v in candidates.iter().step_by(step) {
             let mut with = cube.clone();
             with.push(v);
@@ -126,7 +137,7 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
             *with.last_mut().expect("pushed") = -v;
             let neg = measure(&propagator, &with, variables);
             let free_now = variables - assigned.len();
-            let gain = |m: (usize, bool)| {
+            let gain = |m: Measure| {
                 if m.1 {
                     free_now as u64
                 } else {
@@ -134,11 +145,21 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
                 }
             };
             let score = (gain(pos) + 1) * (gain(neg) + 1);
-            if best.is_none_or(|b| score > b.0) {
-                best = Some((score, v, pos, neg));
+            if best.as_ref().is_none_or(|b| score > b.score) {
+                best = Some(Lookahead {
+                    score,
+                    var: v,
+                    positive: pos,
+                    negative: neg,
+                });
             }
         }
-        let (_, var, pos, neg) = best.expect("at least one candidate");
+        let Lookahead {
+            var,
+            positive: pos,
+            negative: neg,
+            ..
+        } = best.expect("at least one candidate");
         let mut positive_cube = cube.clone();
         positive_cube.push(var);
         let mut negative_cube = cube;
