@@ -7,8 +7,10 @@
 //!
 //! `cargo run --release --example bench_find -- [--repeats R] [--cap SECONDS] [SPEC:N ...]`
 
-use std::process::{Command, Stdio};
-use std::time::{Duration, Instant};
+#[path = "common/bench_util.rs"]
+mod bench_util;
+
+use std::process::Command;
 
 use ramsift_driver::formula::Formula;
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
@@ -36,13 +38,7 @@ fn main() {
     if instances.is_empty() {
         instances = DEFAULT_INSTANCES.iter().map(|s| s.to_string()).collect();
     }
-    let ramsift = std::env::current_exe()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .join("ramsift");
+    let ramsift = bench_util::release_dir().join("ramsift");
     println!("| instance | find median (s) | find runs answered | plain varisat median (s) | plain answered | plain / find |");
     println!("|---|---|---|---|---|---|");
     for inst in &instances {
@@ -62,20 +58,23 @@ fn main() {
                 "--timeout",
                 &cap.to_string(),
             ]);
-            let (t, code) = timed(find, cap + 5.0);
+            let (t, code) = bench_util::timed(find, cap + 5.0);
             if code == Some(10) || code == Some(20) {
                 find_ok += 1;
             }
             find_times.push(t);
             let mut plain_cmd = Command::new(std::env::current_exe().unwrap());
             plain_cmd.args(["plain", spec, n]);
-            let (t, code) = timed(plain_cmd, cap);
+            let (t, code) = bench_util::timed(plain_cmd, cap);
             if code == Some(10) || code == Some(20) {
                 plain_ok += 1;
             }
             plain_times.push(t);
         }
-        let (f, p) = (median(&mut find_times), median(&mut plain_times));
+        let (f, p) = (
+            bench_util::median(&mut find_times),
+            bench_util::median(&mut plain_times),
+        );
         println!(
             "| ({spec};{n}) | {} | {find_ok}/{repeats} | {} | {plain_ok}/{repeats} | {} |",
             fmt(f, cap),
@@ -94,32 +93,6 @@ fn fmt(t: f64, cap: f64) -> String {
         format!("> {cap:.0} (cap)")
     } else {
         format!("{t:.3}")
-    }
-}
-
-fn median(v: &mut [f64]) -> f64 {
-    v.sort_by(|a, b| a.partial_cmp(b).unwrap());
-    v[v.len() / 2]
-}
-
-/// Runs a command, killing it at `cap` seconds; returns (seconds, exit code).
-fn timed(mut cmd: Command, cap: f64) -> (f64, Option<i32>) {
-    let started = Instant::now();
-    let mut child = cmd
-        .stdout(Stdio::null())
-        .stderr(Stdio::null())
-        .spawn()
-        .unwrap();
-    loop {
-        if let Some(status) = child.try_wait().unwrap() {
-            return (started.elapsed().as_secs_f64(), status.code());
-        }
-        if started.elapsed() > Duration::from_secs_f64(cap) {
-            let _ = child.kill();
-            let _ = child.wait();
-            return (cap, None);
-        }
-        std::thread::sleep(Duration::from_millis(5));
     }
 }
 

@@ -6,8 +6,10 @@
 //!
 //! `cargo run --release --example bench_refute -- [--cap SECONDS] [--repeats R] [SPEC:N ...]`
 
-use std::process::{Command, Stdio};
-use std::time::{Duration, Instant};
+#[path = "common/bench_util.rs"]
+mod bench_util;
+
+use std::process::Command;
 
 use ramsift_encoder::SymmetrySet;
 
@@ -46,7 +48,7 @@ fn main() {
         let plain = {
             let mut cmd = Command::new(bin.join("examples").join("bench_find"));
             cmd.args(["plain", spec, n]);
-            timed(cmd, cap).0
+            bench_util::timed(cmd, cap).0
         };
         for set in SymmetrySet::all_combinations() {
             let symmetry = set.to_string();
@@ -69,7 +71,7 @@ fn main() {
                     "--out",
                 ]);
                 cmd.arg(&out);
-                let (t, code) = timed(cmd, cap + 10.0);
+                let (t, code) = bench_util::timed(cmd, cap + 10.0);
                 if code != Some(20) {
                     refute_times.clear();
                     break;
@@ -80,7 +82,7 @@ fn main() {
                     .arg("drat")
                     .arg(out.join("formula.cnf.gz"))
                     .arg(out.join("proof.drat"));
-                let (c, code) = timed(check, 10.0 * cap);
+                let (c, code) = bench_util::timed(check, 10.0 * cap);
                 assert_eq!(code, Some(0), "the trace of {inst} [{symmetry}] must check");
                 check_times.push(c);
                 trace_bytes = std::fs::metadata(out.join("proof.drat")).unwrap().len();
@@ -99,38 +101,15 @@ fn main() {
                     "| ({spec};{n}) | {symmetry} | > {cap:.0} (cap) | - | - | - | {plain_text} |"
                 );
             } else {
-                let (rt, ct) = (median(&mut refute_times), median(&mut check_times));
+                let (rt, ct) = (
+                    bench_util::median(&mut refute_times),
+                    bench_util::median(&mut check_times),
+                );
                 println!(
                     "| ({spec};{n}) | {symmetry} | {rt:.3} | {ct:.3} | {:.2} | {trace_bytes} | {plain_text} |",
                     ct / rt
                 );
             }
         }
-    }
-}
-
-fn median(v: &mut [f64]) -> f64 {
-    v.sort_by(|a, b| a.partial_cmp(b).unwrap());
-    v[v.len() / 2]
-}
-
-/// Runs a command, killing it at `cap` seconds; returns (seconds, exit code).
-fn timed(mut cmd: Command, cap: f64) -> (f64, Option<i32>) {
-    let started = Instant::now();
-    let mut child = cmd
-        .stdout(Stdio::null())
-        .stderr(Stdio::null())
-        .spawn()
-        .unwrap();
-    loop {
-        if let Some(status) = child.try_wait().unwrap() {
-            return (started.elapsed().as_secs_f64(), status.code());
-        }
-        if started.elapsed() > Duration::from_secs_f64(cap) {
-            let _ = child.kill();
-            let _ = child.wait();
-            return (cap, None);
-        }
-        std::thread::sleep(Duration::from_millis(2));
     }
 }

@@ -5,6 +5,9 @@
 //!
 //! `cargo run --release --example bench_shards -- [--symmetry S] [SPEC:N:SHARDS ...]`
 
+#[path = "common/bench_util.rs"]
+mod bench_util;
+
 use std::process::Command;
 use std::time::Instant;
 

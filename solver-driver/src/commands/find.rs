@@ -2,7 +2,6 @@
 
 use std::path::PathBuf;
 use std::sync::atomic::Ordering;
-use std::time::Duration;
 
 use anyhow::{Context, Result};
 use clap::Args;
@@ -11,7 +10,7 @@ use ramsift_driver::formula::Formula;
 use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
 use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files, FindSummary};
 
-use super::instance_args::InstanceArgs;
+use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
 
 #[derive(Args, Debug)]
@@ -45,12 +44,7 @@ pub struct FindArgs {
 pub fn run(args: &FindArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     let instance = encoding.instance().clone();
-    let timeout = match args.timeout {
-        Some(t) if !(t.is_finite() && t > 0.0) => {
-            anyhow::bail!("--timeout {t}: expected a positive number of seconds")
-        }
-        t => t.map(Duration::from_secs_f64),
-    };
+    let timeout = timeout_of(args.timeout)?;
     let mut options = SearchOptions {
         seed: args.seed,
         timeout,

@@ -40,3 +40,13 @@ impl InstanceArgs {
         )?)
     }
 }
+
+/// Reads `--timeout SECONDS`: a positive, finite number.
+pub fn timeout_of(seconds: Option<f64>) -> Result<Option<std::time::Duration>> {
+    match seconds {
+        Some(t) if !(t.is_finite() && t > 0.0) => {
+            anyhow::bail!("--timeout {t}: expected a positive number of seconds")
+        }
+        t => Ok(t.map(std::time::Duration::from_secs_f64)),
+    }
+}

@@ -12,7 +12,7 @@ use ramsift_driver::exit_codes;
 use ramsift_driver::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
 use ramsift_driver::witness::{colouring_text, write_witness_files};
 
-use super::instance_args::InstanceArgs;
+use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
 
 /// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements).
@@ -53,12 +53,7 @@ pub struct RefuteArgs {
 pub fn run(args: &RefuteArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     let instance = encoding.instance().clone();
-    let timeout = match args.timeout {
-        Some(t) if !(t.is_finite() && t > 0.0) => {
-            anyhow::bail!("--timeout {t}: expected a positive number of seconds")
-        }
-        t => t.map(Duration::from_secs_f64),
-    };
+    let timeout = timeout_of(args.timeout)?;
     let options = RefuteOptions {
         text_proof: args.text,
         gzip_proof: args.gzip,

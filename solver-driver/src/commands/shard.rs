@@ -3,7 +3,6 @@
 
 use std::path::PathBuf;
 use std::sync::atomic::AtomicBool;
-use std::time::Duration;
 
 use anyhow::{bail, Context, Result};
 use clap::{Args, Subcommand};
@@ -19,7 +18,7 @@ use ramsift_driver::shard::PLAN_FILE;
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
-use super::instance_args::InstanceArgs;
+use super::instance_args::{timeout_of, InstanceArgs};
 use super::refute::DEFAULT_REFUTE_SYMMETRY;
 
 #[derive(Subcommand, Debug)]
@@ -188,15 +187,6 @@ fn plan(args: &PlanArgs) -> Result<u8> {
         );
     }
     Ok(exit_codes::SUCCESS)
-}
-
-fn timeout_of(t: Option<f64>) -> Result<Option<Duration>> {
-    match t {
-        Some(t) if !(t.is_finite() && t > 0.0) => {
-            bail!("--timeout {t}: expected a positive number of seconds")
-        }
-        t => Ok(t.map(Duration::from_secs_f64)),
-    }
 }
 
 fn run_one(args: &RunArgs) -> Result<u8> {

@@ -36,7 +36,7 @@ pub enum PlanTree {
 pub struct Cube {
     pub index: usize,
     pub literals: Vec<i32>,
-    /// Variables left unassigned by unit propagation under the cube.
+    /// Colour variables left unassigned by unit propagation under the cube.
     pub free_variables: usize,
     /// True when unit propagation alone refutes the cube.
     pub refuted_by_propagation: bool,
@@ -83,10 +83,18 @@ struct Lookahead {
     negative: Measure,
 }
 
-fn measure(propagator: &Propagator, cube: &[i32], variables: usize) -> Measure {
+/// Free colour variables (the edges' variables; auxiliaries are not counted) after
+/// propagating `cube`, and whether propagation refutes it.
+fn measure(propagator: &Propagator, cube: &[i32], colour_variables: usize) -> Measure {
     match propagator.propagate(cube) {
         Propagation::Conflict => (0, true),
-        Propagation::Assigned(a) => (variables - a.len(), false),
+        Propagation::Assigned(a) => {
+            let assigned = a
+                .iter()
+                .filter(|l| l.unsigned_abs() as usize <= colour_variables)
+                .count();
+            (colour_variables - assigned, false)
+        }
     }
 }
 
@@ -94,9 +102,8 @@ fn measure(propagator: &Propagator, cube: &[i32], variables: usize) -> Measure {
 pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: String) -> Plan {
     let formula = Formula::from_encoding(encoding);
     let propagator = Propagator::new(&formula);
-    let variables = formula.variable_count();
     let colour_variables = formula.variables().colour_variable_count();
-    let (free, refuted) = measure(&propagator, &[], variables);
+    let (free, refuted) = measure(&propagator, &[], colour_variables);
     let mut nodes = vec![Node::Leaf {
         cube: Vec::new(),
         free,
@@ -128,15 +135,25 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
         if candidates.is_empty() {
             break;
         }
-        let step = (candidates.len() / 48).max(1);
+        // Lookahead costs two propagations per candidate: sample fewer on large formulas.
+        let sample = if formula.clause_count() > 20_000 {
+            12
+        } else {
+            48
+        };
+        let step = (candidates.len() / sample).max(1);
         let mut best: Option<Lookahead> = None;
         for &v in candidates.iter().step_by(step) {
             let mut with = cube.clone();
             with.push(v);
-            let pos = measure(&propagator, &with, variables);
+            let pos = measure(&propagator, &with, colour_variables);
             *with.last_mut().expect("pushed") = -v;
-            let neg = measure(&propagator, &with, variables);
-            let free_now = variables - assigned.len();
+            let neg = measure(&propagator, &with, colour_variables);
+            let free_now = colour_variables
+                - assigned
+                    .iter()
+                    .filter(|l| l.unsigned_abs() as usize <= colour_variables)
+                    .count();
             let gain = |m: Measure| {
                 if m.1 {
                     free_now as u64
@@ -215,19 +232,26 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
         }
     }
     let tree = build(&nodes, 0, &mut cubes);
+    // Shares of 2^(free/10), computed relative to the largest so they stay finite.
+    let top = cubes
+        .iter()
+        .filter(|c| !c.refuted_by_propagation)
+        .map(|c| c.free_variables)
+        .max()
+        .unwrap_or(0);
     let weights: Vec<f64> = cubes
         .iter()
         .map(|c| {
             if c.refuted_by_propagation {
                 0.0
             } else {
-                2f64.powf(c.free_variables as f64 / 10.0)
+                2f64.powf((c.free_variables as f64 - top as f64) / 10.0)
             }
         })
         .collect();
-    let total: f64 = weights.iter().sum::<f64>().max(f64::MIN_POSITIVE);
+    let total: f64 = weights.iter().sum();
     for (cube, w) in cubes.iter_mut().zip(weights) {
-        cube.estimated_share_percent = 100.0 * w / total;
+        cube.estimated_share_percent = if total > 0.0 { 100.0 * w / total } else { 0.0 };
     }
     let instance = encoding.instance();
     Plan {
