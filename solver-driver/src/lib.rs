@@ -14,6 +14,8 @@
 
 pub mod attempt;
 pub mod bundle;
+#[cfg(feature = "cadical")]
+pub mod cadical_backend;
 pub mod exit_codes;
 pub mod formula;
 pub mod graph6;

@@ -84,6 +84,8 @@ pub enum SearchError {
     Attempt(#[from] AttemptError),
     #[error("internal error: the solver's colouring failed the independent check ({0}); please report this")]
     WitnessRejected(String),
+    #[error("the solver backend failed: {0}")]
+    Backend(String),
     #[error("cannot start {threads} worker threads: {message}")]
     Threads { threads: usize, message: String },
 }

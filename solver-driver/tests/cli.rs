@@ -281,3 +281,32 @@ fn refute_timeout_leaves_no_bundle() {
         "unknown symmetry scheme \"lex\"",
     );
 }
+
+#[cfg(not(feature = "cadical"))]
+#[test]
+fn cadical_backend_absent_is_a_clear_error() {
+    assert_bad_input(
+        &["find", "3,3", "5", "--solver", "cadical"],
+        "built without CaDiCaL",
+    );
+    assert_bad_input(
+        &["find", "3,3", "5", "--solver", "minisat"],
+        "invalid value 'minisat'",
+    );
+}
+
+#[cfg(feature = "cadical")]
+#[test]
+fn cadical_backend_answers_both_ways() {
+    // R(3,4) = 9 (Greenwood & Gleason 1955): a colouring of K8, none of K9.
+    let o = ramsift(&["find", "3,4", "8", "--solver", "cadical", "--json"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["verified_by_checker"], true);
+    assert_eq!(
+        ramsift(&["find", "3,4", "9", "--solver", "cadical", "-q"])
+            .status
+            .code(),
+        Some(20)
+    );
+}

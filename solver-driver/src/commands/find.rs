@@ -33,6 +33,10 @@ pub struct FindArgs {
     /// None is the default for searches (it slows satisfiable searches down).
     #[arg(long, default_value = "none", value_name = "SCHEMES")]
     pub symmetry: String,
+    /// Solver backend: varisat (pure Rust, default) or cadical (needs a build with
+    /// `--features ramsift-driver/cadical`).
+    #[arg(long, default_value = "varisat", value_parser = ["varisat", "cadical"])]
+    pub solver: String,
     /// Print the summary as JSON on stdout instead of text.
     #[arg(long)]
     pub json: bool,
@@ -58,19 +62,26 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     let formula = Formula::from_encoding(&encoding);
     let progress = SearchProgress::default();
     let line = ProgressLine::new(args.quiet);
-    let report = search(&formula, instance.spec(), &options, &progress, |elapsed| {
-        line.update(|| {
-            format!(
-                "{instance}: {} attempts, {} elapsed, {} MiB of proof steps",
-                progress.attempts.load(Ordering::Relaxed),
-                seconds(elapsed),
-                progress.proof_bytes.load(Ordering::Relaxed) >> 20
-            )
-        })
-    })?;
+    let report = if args.solver == "cadical" {
+        search_with_cadical(&formula, &instance, &options)?
+    } else {
+        search(&formula, instance.spec(), &options, &progress, |elapsed| {
+            line.update(|| {
+                format!(
+                    "{instance}: {} attempts, {} elapsed, {} MiB of proof steps",
+                    progress.attempts.load(Ordering::Relaxed),
+                    seconds(elapsed),
+                    progress.proof_bytes.load(Ordering::Relaxed) >> 20
+                )
+            })
+        })?
+    };
     line.finish();
 
     let mut summary = FindSummary::of_search(&instance, &report, args.seed);
+    if args.solver == "cadical" {
+        summary.solver = "CaDiCaL (rustsat-cadical 0.7.5)".to_string();
+    }
     if let Some(dir) = &args.out {
         if let SearchResult::Found {
             colouring,
@@ -132,4 +143,26 @@ pub fn run(args: &FindArgs) -> Result<u8> {
         }
     }
     Ok(summary.exit_code)
+}
+
+#[cfg(feature = "cadical")]
+fn search_with_cadical(
+    formula: &Formula,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+) -> Result<ramsift_driver::portfolio::SearchReport> {
+    Ok(ramsift_driver::cadical_backend::search_cadical(
+        formula,
+        instance.spec(),
+        options,
+    )?)
+}
+
+#[cfg(not(feature = "cadical"))]
+fn search_with_cadical(
+    _: &Formula,
+    _: &ramsift_encoder::Instance,
+    _: &SearchOptions,
+) -> Result<ramsift_driver::portfolio::SearchReport> {
+    anyhow::bail!("--solver cadical: this ramsift was built without CaDiCaL; rebuild with `cargo build --release --features ramsift-driver/cadical` (needs a C++ compiler and libclang)")
 }
