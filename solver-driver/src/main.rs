@@ -43,7 +43,19 @@ enum Command {
     Demo(commands::demo::DemoArgs),
 }
 
+/// Restores the default action for SIGPIPE, so that `ramsift … | head` ends quietly
+/// when the reader goes away instead of failing on its next write to stdout.
+fn quiet_on_closed_pipe() {
+    #[cfg(unix)]
+    // SAFETY: called first thing in main, before any other thread exists; setting the
+    // disposition of SIGPIPE to SIG_DFL has no other effect on this process.
+    unsafe {
+        libc::signal(libc::SIGPIPE, libc::SIG_DFL);
+    }
+}
+
 fn main() -> ExitCode {
+    quiet_on_closed_pipe();
     let cli = Cli::parse();
     let result = match cli.command {
         Command::Find(args) => commands::find::run(&args),
