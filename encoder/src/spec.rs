@@ -108,6 +108,16 @@ impl RamseySpec {
     pub fn forbidden_in(&self, colour: usize) -> Forbidden {
         self.forbidden[colour - 1]
     }
+
+    /// The forbidden clique size of each colour, in colour order.
+    pub fn clique_sizes(&self) -> Vec<usize> {
+        self.forbidden
+            .iter()
+            .map(|g| match *g {
+                Forbidden::Clique(k) => k,
+            })
+            .collect()
+    }
 }
 
 impl FromStr for RamseySpec {

@@ -9,7 +9,7 @@ use serde::Serialize;
 use sha2::{Digest, Sha256};
 
 use ramsift_encoder::atomic_file::write_atomically;
-use ramsift_encoder::{CliqueEncoding, Forbidden};
+use ramsift_encoder::CliqueEncoding;
 
 pub const MANIFEST_FILE: &str = "manifest.json";
 pub const GUIDE_FILE: &str = "REFEREE.txt";
@@ -126,14 +126,7 @@ pub fn hash_file(path: &Path) -> io::Result<(String, u64)> {
 /// The claim part of a manifest.
 pub fn claim_of(encoding: &CliqueEncoding) -> Claim {
     let instance = encoding.instance();
-    let sizes: Vec<usize> = instance
-        .spec()
-        .forbidden()
-        .iter()
-        .map(|g| match *g {
-            Forbidden::Clique(k) => k,
-        })
-        .collect();
+    let sizes: Vec<usize> = instance.spec().clique_sizes();
     let colours: Vec<String> = sizes
         .iter()
         .enumerate()

@@ -1,7 +1,7 @@
 //! Every witness is verified by the checker crate's own code before it is reported.
 
 use ramsift_checker::{check_colouring, Claim, ColourMatrix, Verdict};
-use ramsift_encoder::{Colouring, Forbidden, RamseySpec};
+use ramsift_encoder::{Colouring, RamseySpec};
 
 /// The colouring as the checker's matrix type.
 pub fn to_matrix(colouring: &Colouring) -> ColourMatrix {
@@ -17,13 +17,7 @@ pub fn to_matrix(colouring: &Colouring) -> ColourMatrix {
 /// The checker's claim for a specification.
 pub fn to_claim(spec: &RamseySpec) -> Claim {
     Claim {
-        clique_sizes: spec
-            .forbidden()
-            .iter()
-            .map(|g| match *g {
-                Forbidden::Clique(k) => k,
-            })
-            .collect(),
+        clique_sizes: spec.clique_sizes(),
     }
 }
 

@@ -50,6 +50,25 @@ fn plan_r44(dir: &Path) {
     assert!(out.contains("as 16 shards"), "{out}");
 }
 
+/// Merges the plan with a composed single trace; the bundle must pass as R(4,4) <= 18.
+fn merge_and_check(plan: &Path, bundle: &Path) -> ramsift_checker::bundle::BundleVerdict {
+    ok(
+        &ramsift(&[
+            "shard",
+            "merge",
+            s(plan),
+            "--out",
+            s(bundle),
+            "--single-trace",
+        ]),
+        20,
+    );
+    let verdict = check_bundle(bundle, &[]).unwrap();
+    assert!(verdict.passed(), "{:?}", verdict.failure);
+    assert_eq!(verdict.claim, "R(4,4) <= 18");
+    verdict
+}
+
 #[test]
 fn local_shards_merge_into_a_passing_bundle_and_damage_is_caught() {
     let base = tempfile::tempdir().unwrap();
@@ -78,20 +97,7 @@ fn local_shards_merge_into_a_passing_bundle_and_damage_is_caught() {
     assert_eq!(status["done"], 16);
 
     let bundle = base.path().join("bundle");
-    ok(
-        &ramsift(&[
-            "shard",
-            "merge",
-            s(&plan),
-            "--out",
-            s(&bundle),
-            "--single-trace",
-        ]),
-        20,
-    );
-    let verdict = check_bundle(&bundle, &[]).unwrap();
-    assert!(verdict.passed(), "{:?}", verdict.failure);
-    assert_eq!(verdict.claim, "R(4,4) <= 18");
+    let verdict = merge_and_check(&plan, &bundle);
     assert!(verdict
         .passed
         .iter()
@@ -299,18 +305,5 @@ fn slurm_job_array_refutes_and_survives_a_killed_shard() {
     ok(&ramsift(&["shard", "status", s(&plan)]), 0);
 
     let bundle = base.path().join("bundle");
-    ok(
-        &ramsift(&[
-            "shard",
-            "merge",
-            s(&plan),
-            "--out",
-            s(&bundle),
-            "--single-trace",
-        ]),
-        20,
-    );
-    let verdict = check_bundle(&bundle, &[]).unwrap();
-    assert!(verdict.passed(), "{:?}", verdict.failure);
-    assert_eq!(verdict.claim, "R(4,4) <= 18");
+    merge_and_check(&plan, &bundle);
 }

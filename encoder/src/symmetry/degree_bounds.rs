@@ -18,7 +18,7 @@
 //! ```
 
 use super::known_values::{upper_bound, BoundReason};
-use crate::spec::{Forbidden, Instance};
+use crate::spec::Instance;
 use crate::variables::VariableMap;
 
 /// A smaller Ramsey value the clauses rest on.
@@ -46,14 +46,7 @@ impl Premise {
 
 /// The degree bound of each colour (None: no usable bound), with its premise.
 pub fn colour_bounds(instance: &Instance) -> Vec<Option<(usize, Premise)>> {
-    let sizes: Vec<usize> = instance
-        .spec()
-        .forbidden()
-        .iter()
-        .map(|g| match *g {
-            Forbidden::Clique(k) => k,
-        })
-        .collect();
+    let sizes: Vec<usize> = instance.spec().clique_sizes();
     (0..sizes.len())
         .map(|c| {
             let mut smaller = sizes.clone();

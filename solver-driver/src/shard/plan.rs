@@ -9,7 +9,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use ramsift_encoder::{CliqueEncoding, Forbidden};
+use ramsift_encoder::CliqueEncoding;
 
 use super::propagate::{Propagation, Propagator};
 use crate::formula::Formula;
@@ -257,14 +257,7 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
     Plan {
         plan_format: PLAN_FORMAT.to_string(),
         spec: instance.spec().to_string(),
-        clique_sizes: instance
-            .spec()
-            .forbidden()
-            .iter()
-            .map(|g| match *g {
-                Forbidden::Clique(k) => k,
-            })
-            .collect(),
+        clique_sizes: instance.spec().clique_sizes(),
         order: instance.order(),
         symmetry: encoding
             .symmetry()
