@@ -7,6 +7,10 @@
 //!   global stop reach a solver that has no interrupt of its own.
 //! * [`seeding`] draws the random partial colourings.
 //! * [`portfolio`] runs the workers in parallel and collects the first answer.
+//! * [`structured`] searches circulant, Cayley and block-circulant colourings
+//!   exactly within each family; [`local`] is tabu search and simulated annealing
+//!   on full colourings; [`hybrid`] combines them with the SAT driver (the default
+//!   of `ramsift find`).
 //! * [`witness`] writes colourings (our text format, graph6) and the JSON summary.
 //! * [`refute`] proves unsatisfiability with a DRAT trace and writes the
 //!   certificate [`bundle`].
@@ -19,11 +23,14 @@ pub mod cadical_backend;
 pub mod exit_codes;
 pub mod formula;
 pub mod graph6;
+pub mod hybrid;
 pub mod interrupt;
+pub mod local;
 pub mod portfolio;
 pub mod refute;
 pub mod seeding;
 pub mod shard;
+pub mod structured;
 pub mod verify;
 pub mod witness;
 

@@ -30,8 +30,11 @@ struct Cli {
 
 #[derive(Subcommand)]
 enum Command {
-    /// Search for a colouring of K_N with no monochromatic forbidden clique.
+    /// Search for a colouring of K_N with no monochromatic forbidden clique
+    /// (structured families, local search and SAT; see --method).
     Find(commands::find::FindArgs),
+    /// Search a structured family (circulant by default) at every order of a range.
+    Scan(commands::scan::ScanArgs),
     /// Prove that no colouring exists and write a certificate bundle (CNF, DRAT, manifest).
     Refute(commands::refute::RefuteArgs),
     /// Sharded refutation: plan cubes, run them (locally or on Slurm), merge.
@@ -61,6 +64,7 @@ fn main() -> ExitCode {
         Command::Find(args) => commands::find::run(&args),
         Command::Encode(args) => commands::encode::run(&args),
         Command::Refute(args) => commands::refute::run(&args),
+        Command::Scan(args) => commands::scan::run(&args),
         Command::Shard(command) => commands::shard::run(&command),
         Command::Demo(args) => commands::demo::run(&args),
     };

@@ -27,6 +27,10 @@ pub enum SeedKind {
     Star,
     RandomSubset,
     CirculantSubset,
+    /// The edges of a circulant colouring of K_{n-1} (see [`crate::hybrid`]).
+    CirculantNeighbour,
+    /// The edges of a local-search near-solution in no monochromatic clique.
+    NearSolution,
 }
 
 impl fmt::Display for SeedKind {
@@ -35,6 +39,8 @@ impl fmt::Display for SeedKind {
             SeedKind::Star => "star",
             SeedKind::RandomSubset => "random-subset",
             SeedKind::CirculantSubset => "circulant-subset",
+            SeedKind::CirculantNeighbour => "circulant colouring of K_(n-1)",
+            SeedKind::NearSolution => "local-search near-solution",
         })
     }
 }

@@ -74,6 +74,8 @@ pub struct FindSummary {
     pub attempts: u64,
     pub threads: usize,
     pub seed: u64,
+    /// The search method (`auto`, `sat`, `circulant`, …).
+    pub method: String,
     pub solver: String,
     pub found_by: Option<String>,
     pub verified_by_checker: bool,
@@ -160,6 +162,7 @@ impl FindSummary {
             attempts: report.attempts,
             threads: report.threads,
             seed,
+            method: "sat".to_string(),
             solver: crate::SOLVER_NAME.to_string(),
             found_by,
             verified_by_checker: matches!(report.result, SearchResult::Found { .. }),

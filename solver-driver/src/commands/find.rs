@@ -1,13 +1,20 @@
-//! `ramsift find SPEC N`: the parallel witness search.
+//! `ramsift find SPEC N`: the witness search, by the method chosen with `--method`.
 
 use std::path::PathBuf;
-use std::sync::atomic::Ordering;
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::time::Instant;
 
 use anyhow::{Context, Result};
 use clap::Args;
 
 use ramsift_driver::formula::Formula;
-use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
+use ramsift_driver::hybrid::hybrid_search;
+use ramsift_driver::local::search::LocalProgress;
+use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
+use ramsift_driver::portfolio::{
+    search, SearchOptions, SearchProgress, SearchReport, SearchResult,
+};
+use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice};
 use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files, FindSummary};
 
 use super::instance_args::{timeout_of, InstanceArgs};
@@ -17,10 +24,28 @@ use super::progress::{seconds, ProgressLine};
 pub struct FindArgs {
     #[command(flatten)]
     pub instance: InstanceArgs,
-    /// Worker threads (default: all cores). Worker 0 is complete; the others are seeded.
+    /// Search method. auto: structured families, then local search feeding SAT, with
+    /// a complete SAT worker throughout; sat: the SAT portfolio alone; circulant,
+    /// cayley, block-circulant, structured: exhaustive within those families; local:
+    /// local search alone (tabu search, or annealing with --rule anneal).
+    #[arg(long, default_value = "auto", value_parser = ["auto", "sat", "circulant", "cayley", "block-circulant", "structured", "local"])]
+    pub method: String,
+    /// Shorthand for --method circulant.
+    #[arg(long, conflicts_with = "method")]
+    pub circulant: bool,
+    /// With --method cayley: only this group, e.g. Z3xZ5 or Z2^4 (its order must be N).
+    #[arg(long, value_name = "GROUP")]
+    pub group: Option<String>,
+    /// With --method block-circulant: only this many blocks (default: 2 and 3).
+    #[arg(long, value_name = "COUNT")]
+    pub blocks: Option<usize>,
+    /// With --method local: tabu (default) or anneal.
+    #[arg(long, default_value = "tabu", value_parser = ["tabu", "anneal"])]
+    pub rule: String,
+    /// Worker threads (default: all cores).
     #[arg(long, value_name = "COUNT")]
     pub threads: Option<usize>,
-    /// Seed of the random partial colourings; the same seed and thread count repeat a run.
+    /// Seed of every random choice; the same seed and thread count repeat a run.
     #[arg(long, default_value_t = 1)]
     pub seed: u64,
     /// Give up after this many seconds (exit code 1).
@@ -29,12 +54,13 @@ pub struct FindArgs {
     /// Write the witness (colouring file, graph6) and summary.json into this directory.
     #[arg(long, value_name = "DIR")]
     pub out: Option<PathBuf>,
-    /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
-    /// None is the default for searches (it slows satisfiable searches down).
+    /// Symmetry breaking for the SAT workers: none, or a comma list of colour-swap,
+    /// lex-leader, degree-bounds. None is the default for searches (it slows
+    /// satisfiable searches down).
     #[arg(long, default_value = "none", value_name = "SCHEMES")]
     pub symmetry: String,
     /// Solver backend: varisat (pure Rust, default) or cadical (needs a build with
-    /// `--features ramsift-driver/cadical`).
+    /// `--features ramsift-driver/cadical`; implies --method sat).
     #[arg(long, default_value = "varisat", value_parser = ["varisat", "cadical"])]
     pub solver: String,
     /// Print the summary as JSON on stdout instead of text.
@@ -45,9 +71,44 @@ pub struct FindArgs {
     pub quiet: bool,
 }
 
+impl FindArgs {
+    fn method(&self) -> &str {
+        if self.circulant {
+            "circulant"
+        } else if self.solver == "cadical" {
+            "sat"
+        } else {
+            &self.method
+        }
+    }
+
+    fn family_choice(&self) -> Result<Option<FamilyChoice>> {
+        anyhow::ensure!(
+            self.group.is_none() || self.method() == "cayley",
+            "--group goes with --method cayley"
+        );
+        anyhow::ensure!(
+            self.blocks.is_none() || self.method() == "block-circulant",
+            "--blocks goes with --method block-circulant"
+        );
+        Ok(match self.method() {
+            "circulant" => Some(FamilyChoice::Circulant),
+            "cayley" => Some(FamilyChoice::Cayley(
+                self.group
+                    .as_deref()
+                    .map(|g| g.parse::<AbelianGroup>())
+                    .transpose()
+                    .context("--group")?,
+            )),
+            "block-circulant" => Some(FamilyChoice::BlockCirculant(self.blocks)),
+            "structured" => Some(FamilyChoice::All),
+            _ => None,
+        })
+    }
+}
+
 pub fn run(args: &FindArgs) -> Result<u8> {
-    let encoding = args.instance.encoding(&args.symmetry)?;
-    let instance = encoding.instance().clone();
+    let instance = args.instance.instance()?;
     let timeout = timeout_of(args.timeout)?;
     let mut options = SearchOptions {
         seed: args.seed,
@@ -58,29 +119,48 @@ pub fn run(args: &FindArgs) -> Result<u8> {
         anyhow::ensure!(threads >= 1, "--threads 0: at least one worker is needed");
         options.threads = threads;
     }
-
-    let formula = Formula::from_encoding(&encoding);
-    let progress = SearchProgress::default();
     let line = ProgressLine::new(args.quiet);
-    let report = if args.solver == "cadical" {
-        search_with_cadical(&formula, &instance, &options)?
+    let method = args.method().to_string();
+
+    let mut family_note = None;
+    let report = if let Some(choice) = args.family_choice()? {
+        let (report, note) = find_in_family(&choice, &instance, &options, &line)?;
+        family_note = note;
+        report
+    } else if method == "local" {
+        find_by_local_search(args, &instance, &options, &line)?
     } else {
-        search(&formula, instance.spec(), &options, &progress, |elapsed| {
+        let encoding = args.instance.encoding(&args.symmetry)?;
+        let formula = Formula::from_encoding(&encoding);
+        let progress = SearchProgress::default();
+        let tick = |elapsed| {
             line.update(|| {
                 format!(
-                    "{instance}: {} attempts, {} elapsed, {} MiB of proof steps",
+                    "{instance}: {method}, {} attempts, {} elapsed, {} MiB of proof steps",
                     progress.attempts.load(Ordering::Relaxed),
                     seconds(elapsed),
                     progress.proof_bytes.load(Ordering::Relaxed) >> 20
                 )
             })
-        })?
+        };
+        if args.solver == "cadical" {
+            search_with_cadical(&formula, &instance, &options)?
+        } else if method == "sat" {
+            search(&formula, instance.spec(), &options, &progress, tick)?
+        } else {
+            hybrid_search(&formula, instance.spec(), &options, &progress, tick)?
+        }
     };
     line.finish();
 
     let mut summary = FindSummary::of_search(&instance, &report, args.seed);
+    summary.method = method.clone();
     if args.solver == "cadical" {
         summary.solver = "CaDiCaL (rustsat-cadical 0.7.5)".to_string();
+    }
+    if let Some(note) = &family_note {
+        summary.result = "none-in-family".to_string();
+        summary.proves = Some(note.clone());
     }
     if let Some(dir) = &args.out {
         if let SearchResult::Found {
@@ -97,7 +177,7 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                     instance.order()
                 ),
                 format!(
-                    "found by {found_by}; seed {}; checked by ramsift-checker before writing",
+                    "found by {found_by}; method {method}; seed {}; checked by ramsift-checker before writing",
                     args.seed
                 ),
             ];
@@ -132,11 +212,17 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                 instance.order(),
                 report.elapsed.as_secs_f64()
             ),
-            SearchResult::Unknown => println!(
-                "UNKNOWN {instance}: no answer within the time limit ({:.2}s, {} attempts)",
-                report.elapsed.as_secs_f64(),
-                report.attempts
-            ),
+            SearchResult::Unknown => match &family_note {
+                Some(note) => println!(
+                    "NONE-IN-FAMILY {instance}: {note} ({:.2}s); this says nothing about other colourings",
+                    report.elapsed.as_secs_f64()
+                ),
+                None => println!(
+                    "UNKNOWN {instance}: no answer within the time limit ({:.2}s, {} attempts)",
+                    report.elapsed.as_secs_f64(),
+                    report.attempts
+                ),
+            },
         }
         for file in &summary.files {
             println!("wrote {}", file.display());
@@ -145,12 +231,138 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     Ok(summary.exit_code)
 }
 
+/// An exhaustive search within families. A proof that the family is empty is
+/// returned as `Unknown` with a note saying so (exit code 1: nothing was found, and
+/// other colourings may still exist).
+fn find_in_family(
+    choice: &FamilyChoice,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+    line: &ProgressLine,
+) -> Result<(SearchReport, Option<String>)> {
+    let started = Instant::now();
+    let stop = AtomicBool::new(false);
+    let deadline = options.timeout.map(|t| started + t);
+    line.update(|| format!("{instance}: {choice} search"));
+    let order_report = search_order(choice, instance.spec(), instance.order(), &stop, deadline)?;
+    let attempts = order_report.families.len() as u64;
+    let (result, note) = match order_report.found() {
+        Some(found) => {
+            let ramsift_driver::structured::FamilyOutcome::Found {
+                colouring,
+                description,
+                ..
+            } = &found.outcome
+            else {
+                unreachable!("found() returns a Found outcome")
+            };
+            (
+                SearchResult::Found {
+                    colouring: colouring.clone(),
+                    found_by: format!("{} ({description})", found.family),
+                },
+                None,
+            )
+        }
+        None if order_report.verdict() == "none" => {
+            let families: Vec<&str> = order_report
+                .families
+                .iter()
+                .map(|f| f.family.as_str())
+                .collect();
+            (
+                SearchResult::Unknown,
+                Some(format!(
+                    "no colouring of these families exists at this order: {}",
+                    families.join(", ")
+                )),
+            )
+        }
+        None => (SearchResult::Unknown, None),
+    };
+    Ok((
+        SearchReport {
+            result,
+            attempts,
+            elapsed: started.elapsed(),
+            threads: 1,
+        },
+        note,
+    ))
+}
+
+fn find_by_local_search(
+    args: &FindArgs,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+    line: &ProgressLine,
+) -> Result<SearchReport> {
+    let local_options = LocalOptions {
+        method: if args.rule == "anneal" {
+            LocalMethod::Anneal
+        } else {
+            LocalMethod::Tabu
+        },
+        threads: options.threads,
+        seed: options.seed,
+        timeout: options.timeout,
+        ..LocalOptions::default()
+    };
+    let stop = AtomicBool::new(false);
+    let progress = LocalProgress::default();
+    let started = Instant::now();
+    let report = std::thread::scope(|scope| {
+        let worker = scope.spawn(|| {
+            local_search(
+                instance.spec(),
+                instance.order(),
+                &local_options,
+                &stop,
+                &progress,
+            )
+        });
+        while !worker.is_finished() {
+            std::thread::sleep(std::time::Duration::from_millis(100));
+            line.update(|| {
+                let best = progress.best_cost.load(Ordering::Relaxed);
+                format!(
+                    "{instance}: {}, {} steps, {} restarts, fewest monochromatic cliques {}, {} elapsed",
+                    local_options.method,
+                    progress.steps.load(Ordering::Relaxed),
+                    progress.restarts.load(Ordering::Relaxed),
+                    if best == u64::MAX { "-".to_string() } else { best.to_string() },
+                    seconds(started.elapsed())
+                )
+            });
+        }
+        worker.join().expect("local search thread")
+    })?;
+    if report.found.is_none() && !args.quiet && !args.json {
+        eprintln!(
+            "{instance}: best colouring seen has {} monochromatic forbidden cliques",
+            report.best_cost
+        );
+    }
+    Ok(SearchReport {
+        result: match report.found {
+            Some((colouring, found_by)) => SearchResult::Found {
+                colouring,
+                found_by,
+            },
+            None => SearchResult::Unknown,
+        },
+        attempts: report.restarts,
+        elapsed: report.elapsed,
+        threads: options.threads,
+    })
+}
+
 #[cfg(feature = "cadical")]
 fn search_with_cadical(
     formula: &Formula,
     instance: &ramsift_encoder::Instance,
     options: &SearchOptions,
-) -> Result<ramsift_driver::portfolio::SearchReport> {
+) -> Result<SearchReport> {
     Ok(ramsift_driver::cadical_backend::search_cadical(
         formula,
         instance.spec(),
@@ -163,6 +375,6 @@ fn search_with_cadical(
     _: &Formula,
     _: &ramsift_encoder::Instance,
     _: &SearchOptions,
-) -> Result<ramsift_driver::portfolio::SearchReport> {
+) -> Result<SearchReport> {
     anyhow::bail!("--solver cadical: this ramsift was built without CaDiCaL; rebuild with `cargo build --release --features ramsift-driver/cadical` (needs a C++ compiler and libclang)")
 }

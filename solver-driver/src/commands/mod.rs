@@ -6,4 +6,5 @@ pub mod find;
 pub mod instance_args;
 pub mod progress;
 pub mod refute;
+pub mod scan;
 pub mod shard;

@@ -1,0 +1,272 @@
+//! `ramsift scan SPEC --from A --to B`: a structured family at every order of a
+//! range, each found / none / unknown, and the largest order found.
+
+use std::path::PathBuf;
+use std::time::Duration;
+
+use anyhow::{Context, Result};
+use clap::Args;
+use serde::Serialize;
+
+use ramsift_driver::exit_codes;
+use ramsift_driver::structured::scan::scan;
+use ramsift_driver::structured::{FamilyChoice, FamilyOutcome, OrderReport};
+use ramsift_driver::witness::write_witness_files;
+use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::{Instance, RamseySpec};
+
+use super::progress::ProgressLine;
+
+#[derive(Args, Debug)]
+pub struct ScanArgs {
+    /// Forbidden clique size of each colour, comma separated (e.g. 4,4 or 3,3,3).
+    #[arg(value_name = "SPEC")]
+    pub spec: String,
+    /// First order of the range.
+    #[arg(long, value_name = "N")]
+    pub from: usize,
+    /// Last order of the range.
+    #[arg(long, value_name = "N")]
+    pub to: usize,
+    /// Family: circulant (default), cayley, block-circulant or structured (all three).
+    #[arg(long, default_value = "circulant")]
+    pub family: String,
+    /// Shorthand for --family circulant.
+    #[arg(long, conflicts_with = "family")]
+    pub circulant: bool,
+    /// Time limit for each order, in seconds (default: none).
+    #[arg(long, value_name = "SECONDS")]
+    pub per_order: Option<f64>,
+    /// Orders searched at once (default: all cores).
+    #[arg(long, value_name = "COUNT")]
+    pub threads: Option<usize>,
+    /// Write each colouring found into DIR/order-N/ and the report into DIR/scan.json.
+    #[arg(long, value_name = "DIR")]
+    pub out: Option<PathBuf>,
+    /// Print the report as JSON on stdout instead of a table.
+    #[arg(long)]
+    pub json: bool,
+    /// No progress line on stderr.
+    #[arg(long, short)]
+    pub quiet: bool,
+}
+
+#[derive(Serialize)]
+struct FamilyRow {
+    family: String,
+    result: &'static str,
+    orbits: usize,
+    clauses: usize,
+    seconds: f64,
+    colouring: Option<String>,
+}
+
+#[derive(Serialize)]
+struct OrderRow {
+    order: usize,
+    result: &'static str,
+    seconds: f64,
+    families: Vec<FamilyRow>,
+}
+
+#[derive(Serialize)]
+struct ScanSummary {
+    spec: String,
+    family: String,
+    from: usize,
+    to: usize,
+    orders: Vec<OrderRow>,
+    largest_found: Option<usize>,
+    proves: Option<String>,
+    seconds: f64,
+    files: Vec<PathBuf>,
+}
+
+fn row(report: &OrderReport) -> OrderRow {
+    OrderRow {
+        order: report.order,
+        result: report.verdict(),
+        seconds: report
+            .families
+            .iter()
+            .map(|f| f.elapsed.as_secs_f64())
+            .sum(),
+        families: report
+            .families
+            .iter()
+            .map(|f| {
+                let (result, colouring) = match &f.outcome {
+                    FamilyOutcome::Found { description, .. } => {
+                        ("found", Some(description.clone()))
+                    }
+                    FamilyOutcome::NoneInFamily => ("none", None),
+                    FamilyOutcome::Unknown => ("unknown", None),
+                };
+                FamilyRow {
+                    family: f.family.clone(),
+                    result,
+                    orbits: f.orbits,
+                    clauses: f.clauses,
+                    seconds: f.elapsed.as_secs_f64(),
+                    colouring,
+                }
+            })
+            .collect(),
+    }
+}
+
+pub fn run(args: &ScanArgs) -> Result<u8> {
+    let spec: RamseySpec = args
+        .spec
+        .parse()
+        .with_context(|| format!("specification {:?}", args.spec))?;
+    anyhow::ensure!(
+        args.from >= 2 && args.from <= args.to,
+        "--from {} --to {}: expected 2 <= FROM <= TO",
+        args.from,
+        args.to
+    );
+    anyhow::ensure!(
+        args.to - args.from < 10_000,
+        "--from {} --to {}: at most 10,000 orders in one scan",
+        args.from,
+        args.to
+    );
+    let choice: FamilyChoice = if args.circulant {
+        FamilyChoice::Circulant
+    } else {
+        args.family
+            .parse()
+            .map_err(|e: String| anyhow::anyhow!("--family: {e}"))?
+    };
+    let per_order = match args.per_order {
+        Some(t) if !(t.is_finite() && t > 0.0) => {
+            anyhow::bail!("--per-order {t}: expected a positive number of seconds")
+        }
+        t => t.map(Duration::from_secs_f64),
+    };
+    let threads = match args.threads {
+        Some(0) => anyhow::bail!("--threads 0: at least one worker is needed"),
+        Some(t) => t,
+        None => std::thread::available_parallelism().map_or(1, |n| n.get()),
+    };
+
+    let line = ProgressLine::new(args.quiet);
+    let mut done = 0usize;
+    let total = args.to - args.from + 1;
+    let report = scan(
+        &choice,
+        &spec,
+        args.from,
+        args.to,
+        per_order,
+        threads,
+        |order| {
+            done += 1;
+            line.update(|| {
+                format!(
+                    "{choice} scan of {spec}: order {} {} ({done}/{total})",
+                    order.order,
+                    order.verdict()
+                )
+            });
+        },
+    )?;
+    line.finish();
+
+    let largest = report.largest_found();
+    let mut summary = ScanSummary {
+        spec: spec.to_string(),
+        family: choice.to_string(),
+        from: args.from,
+        to: args.to,
+        orders: report.orders.iter().map(row).collect(),
+        largest_found: largest,
+        proves: largest.map(|n| format!("R({spec}) > {n}")),
+        seconds: report.elapsed.as_secs_f64(),
+        files: Vec::new(),
+    };
+
+    if let Some(dir) = &args.out {
+        ensure_dir(dir).with_context(|| format!("creating {}", dir.display()))?;
+        for order in &report.orders {
+            let Some(found) = order.found() else { continue };
+            let FamilyOutcome::Found {
+                colouring,
+                description,
+                ..
+            } = &found.outcome
+            else {
+                continue;
+            };
+            let instance = Instance::new(spec.clone(), order.order)?;
+            let comments = vec![
+                format!(
+                    "ramsift {} witness for {instance}: proves R({spec}) > {}",
+                    env!("CARGO_PKG_VERSION"),
+                    order.order
+                ),
+                format!(
+                    "{} ({description}); checked by ramsift-checker before writing",
+                    found.family
+                ),
+            ];
+            let sub = dir.join(format!("order-{}", order.order));
+            summary.files.extend(
+                write_witness_files(&sub, &instance, colouring, &comments)
+                    .with_context(|| format!("writing the witness into {}", sub.display()))?,
+            );
+        }
+        let path = dir.join("scan.json");
+        summary.files.push(path.clone());
+        let json = serde_json::to_string_pretty(&summary)?;
+        write_atomically(&path, |w| {
+            w.write_all(json.as_bytes())
+                .and_then(|_| w.write_all(b"\n"))
+        })
+        .with_context(|| format!("writing {}", path.display()))?;
+    }
+
+    if args.json {
+        println!("{}", serde_json::to_string_pretty(&summary)?);
+    } else {
+        println!(
+            "{choice} colourings for R({spec}), orders {} to {}:",
+            args.from, args.to
+        );
+        println!(
+            "{:>6}  {:<8}  {:>8}  family and colouring",
+            "order", "result", "seconds"
+        );
+        for order in &summary.orders {
+            let detail = order
+                .families
+                .iter()
+                .find(|f| f.result == "found")
+                .map(|f| format!("{}: {}", f.family, f.colouring.as_deref().unwrap_or("")))
+                .unwrap_or_else(|| {
+                    order
+                        .families
+                        .iter()
+                        .map(|f| format!("{} {}", f.family, f.result))
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                });
+            println!(
+                "{:>6}  {:<8}  {:>8.2}  {detail}",
+                order.order, order.result, order.seconds
+            );
+        }
+        match largest {
+            Some(n) => println!("largest order with a {choice} colouring: {n}, so R({spec}) > {n}"),
+            None => println!(
+                "no {choice} colouring at any order from {} to {}",
+                args.from, args.to
+            ),
+        }
+        for file in &summary.files {
+            println!("wrote {}", file.display());
+        }
+    }
+    Ok(exit_codes::SUCCESS)
+}

@@ -1,0 +1,340 @@
+//! The default strategy of `ramsift find` (`--method auto`): structured families
+//! first, then local search feeding the SAT driver, with one complete SAT worker
+//! running throughout so that "no colouring exists" stays a complete answer.
+//!
+//! 1. **Structured stage** (at most a quarter of the time limit, and 30 s without
+//!    one): circulant colourings at n; circulant colourings at n + 1 with a vertex
+//!    deleted (deleting a vertex keeps a colouring valid); the other abelian Cayley
+//!    families and the 2- and 3-block circulants at n. Each is exact for its family.
+//! 2. **Circulant neighbour seed**: a circulant colouring at n − 1, if one exists,
+//!    fixes every edge among the first n − 1 vertices; the SAT driver then only has
+//!    to colour the edges of the last vertex (one extension attempt).
+//! 3. **Local search and seeded SAT, alternating**: a slice of tabu search on the
+//!    helper threads; if it does not reach zero, each of its best near-solutions
+//!    becomes seeds for SAT attempts: all edges in no remaining monochromatic clique
+//!    fixed, then the same with a random fifth of them released. The slice doubles
+//!    each round.
+//!
+//! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
+//! one thread there is no helper: the structured stage runs, then worker 0 alone.
+
+use std::io;
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::Mutex;
+use std::time::{Duration, Instant};
+
+use rand::seq::SliceRandom;
+use rand::SeedableRng;
+use rand_chacha::ChaCha8Rng;
+
+use ramsift_encoder::edges::edge_index;
+use ramsift_encoder::{Colouring, RamseySpec};
+
+use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::formula::Formula;
+use crate::local::{local_search, LocalOptions, LocalState, MAX_LOCAL_ORDER};
+use crate::portfolio::{
+    luby, SearchError, SearchOptions, SearchProgress, SearchReport, SearchResult,
+};
+use crate::seeding::{Seed, SeedKind};
+use crate::structured::{
+    search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome, FamilySearchError,
+};
+use crate::verify::verify_witness;
+
+/// Runs the hybrid search on the formula of K_n (no symmetry breaking assumed).
+pub fn hybrid_search(
+    formula: &Formula,
+    spec: &RamseySpec,
+    options: &SearchOptions,
+    progress: &SearchProgress,
+    mut tick: impl FnMut(Duration),
+) -> Result<SearchReport, SearchError> {
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let threads = options.threads.max(1);
+    let stop = AtomicBool::new(false);
+    let answer: Mutex<Option<Result<SearchResult, SearchError>>> = Mutex::new(None);
+    let settle = |value: Result<SearchResult, SearchError>| {
+        let mut slot = answer.lock().expect("answer lock");
+        if slot.is_none() {
+            *slot = Some(value);
+        }
+        stop.store(true, Ordering::SeqCst);
+    };
+
+    std::thread::scope(|scope| {
+        let complete = scope.spawn(|| {
+            if threads < 2 {
+                return;
+            }
+            match complete_worker(formula, spec, &stop, deadline, progress) {
+                Ok(Some(result)) => settle(Ok(result)),
+                Ok(None) => {}
+                Err(e) => settle(Err(e)),
+            }
+        });
+        let helper = scope.spawn(|| {
+            let helpers = threads.saturating_sub(1).max(1);
+            let result = helper_stages(formula, spec, options, helpers, &stop, deadline, progress);
+            match result {
+                Ok(Some(found)) => settle(Ok(found)),
+                Ok(None) => {}
+                Err(e) => settle(Err(e)),
+            }
+            if threads < 2 && !stop.load(Ordering::SeqCst) {
+                match complete_worker(formula, spec, &stop, deadline, progress) {
+                    Ok(Some(result)) => settle(Ok(result)),
+                    Ok(None) => {}
+                    Err(e) => settle(Err(e)),
+                }
+            }
+        });
+        while !(complete.is_finished() && helper.is_finished()) {
+            std::thread::sleep(Duration::from_millis(50));
+            tick(started.elapsed());
+            if deadline.is_some_and(|d| Instant::now() >= d) {
+                stop.store(true, Ordering::SeqCst);
+            }
+            // The helper may end early (nothing left to try); the complete worker goes on.
+        }
+    });
+
+    let result = answer
+        .into_inner()
+        .expect("answer lock")
+        .unwrap_or(Ok(SearchResult::Unknown))?;
+    Ok(SearchReport {
+        result,
+        attempts: progress.attempts.load(Ordering::SeqCst),
+        elapsed: started.elapsed(),
+        threads,
+    })
+}
+
+fn verified(
+    spec: &RamseySpec,
+    colouring: Colouring,
+    by: String,
+) -> Result<SearchResult, SearchError> {
+    let verdict = verify_witness(spec, &colouring);
+    if verdict.is_valid() {
+        Ok(SearchResult::Found {
+            colouring,
+            found_by: by,
+        })
+    } else {
+        Err(SearchError::WitnessRejected(verdict.to_string()))
+    }
+}
+
+fn complete_worker(
+    formula: &Formula,
+    spec: &RamseySpec,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+    progress: &SearchProgress,
+) -> Result<Option<SearchResult>, SearchError> {
+    progress.attempts.fetch_add(1, Ordering::Relaxed);
+    let report = run_attempt::<io::Sink>(
+        formula,
+        &AttemptPlan::default(),
+        stop,
+        deadline,
+        None,
+        false,
+    )?;
+    Ok(match report.outcome {
+        AttemptOutcome::Satisfiable(c) => {
+            Some(verified(spec, c, "worker 0 (complete SAT)".into())?)
+        }
+        AttemptOutcome::Unsatisfiable => Some(SearchResult::NoneExists),
+        AttemptOutcome::Stopped(_) => None,
+    })
+}
+
+/// Deletes the last vertex of a colouring.
+fn drop_last_vertex(colouring: &Colouring) -> Colouring {
+    Colouring::from_fn(colouring.order() - 1, colouring.colours(), |i, j| {
+        colouring.colour(i, j)
+    })
+}
+
+/// Stages 1 to 3; `Some` when a colouring was found.
+fn helper_stages(
+    formula: &Formula,
+    spec: &RamseySpec,
+    options: &SearchOptions,
+    helpers: usize,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+    progress: &SearchProgress,
+) -> Result<Option<SearchResult>, SearchError> {
+    let started = Instant::now();
+    let order = formula.variables().order();
+    let structured_cap = options.timeout.map_or(Duration::from_secs(30), |t| t / 4);
+    let structured_deadline = Some(match deadline {
+        Some(d) => d.min(started + structured_cap),
+        None => started + structured_cap,
+    });
+
+    // Stage 1: circulant at n, circulant at n + 1 minus a vertex, other families at n.
+    let mut tries: Vec<EdgeOrbits> = Vec::new();
+    tries.extend(EdgeOrbits::circulant(order).ok());
+    tries.extend(EdgeOrbits::circulant(order + 1).ok());
+    for group in AbelianGroup::all_of_order(order).into_iter().skip(1) {
+        tries.extend(EdgeOrbits::cayley(&group).ok());
+    }
+    tries.extend(
+        FamilyChoice::BlockCirculant(None)
+            .families(order)
+            .unwrap_or_default(),
+    );
+    for orbits in tries {
+        if stop.load(Ordering::Relaxed) {
+            return Ok(None);
+        }
+        progress.attempts.fetch_add(1, Ordering::Relaxed);
+        let report =
+            search_family(&orbits, spec, stop, structured_deadline).map_err(|e| match e {
+                FamilySearchError::Search(e) => e,
+                FamilySearchError::Family(e) => SearchError::Backend(e.to_string()),
+            })?;
+        if let FamilyOutcome::Found {
+            colouring,
+            description,
+            ..
+        } = report.outcome
+        {
+            let at = orbits.order;
+            let (colouring, by) = if at > order {
+                (
+                    drop_last_vertex(&colouring),
+                    format!(
+                        "{} at order {at} with its last vertex deleted ({description})",
+                        report.family
+                    ),
+                )
+            } else {
+                (colouring, format!("{} ({description})", report.family))
+            };
+            return verified(spec, colouring, by).map(Some);
+        }
+    }
+
+    // Stage 2: extend a circulant colouring of K_{n−1}.
+    let vars = *formula.variables();
+    let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
+    let mut attempt_no = 0u64;
+    let try_seed = |seed: &Seed,
+                    rng: &mut ChaCha8Rng,
+                    attempt_no: &mut u64|
+     -> Result<Option<SearchResult>, SearchError> {
+        *attempt_no += 1;
+        let mut plan = AttemptPlan::shuffled(formula, rng);
+        plan.units = seed.units(&vars);
+        plan.budget_bytes = Some(options.base_budget_bytes.saturating_mul(luby(*attempt_no)));
+        progress.attempts.fetch_add(1, Ordering::Relaxed);
+        let report = run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?;
+        progress
+            .proof_bytes
+            .fetch_add(report.proof_bytes, Ordering::Relaxed);
+        match report.outcome {
+            AttemptOutcome::Satisfiable(c) => {
+                let by = format!(
+                    "SAT attempt {attempt_no} seeded by a {} ({} edges fixed)",
+                    seed.kind,
+                    seed.fixed.len()
+                );
+                verified(spec, c, by).map(Some)
+            }
+            _ => Ok(None),
+        }
+    };
+    if order >= 3 && !stop.load(Ordering::Relaxed) {
+        if let Ok(orbits) = EdgeOrbits::circulant(order - 1) {
+            if let Ok(report) = search_family(&orbits, spec, stop, structured_deadline) {
+                if let FamilyOutcome::Found { colouring, .. } = report.outcome {
+                    let fixed = (0..order - 1)
+                        .flat_map(|j| (0..j).map(move |i| (i, j)))
+                        .map(|(i, j)| (edge_index(i, j), colouring.colour(i, j) as usize))
+                        .collect();
+                    let seed = Seed {
+                        kind: SeedKind::CirculantNeighbour,
+                        fixed,
+                    };
+                    if let Some(found) = try_seed(&seed, &mut rng, &mut attempt_no)? {
+                        return Ok(Some(found));
+                    }
+                }
+            }
+        }
+    }
+
+    // Stage 3: local search slices and seeded SAT attempts.
+    if order > MAX_LOCAL_ORDER {
+        return Ok(None);
+    }
+    let mut slice = Duration::from_secs(1);
+    let mut round = 0u64;
+    while !stop.load(Ordering::Relaxed) && deadline.is_none_or(|d| Instant::now() < d) {
+        round += 1;
+        let local_options = LocalOptions {
+            threads: helpers,
+            seed: options.seed.wrapping_add(round),
+            timeout: Some(match deadline {
+                Some(d) => slice.min(d.saturating_duration_since(Instant::now())),
+                None => slice,
+            }),
+            ..LocalOptions::default()
+        };
+        // A colouring found by local search sets `stop`, ending the complete worker too.
+        let local_progress = crate::local::search::LocalProgress::default();
+        let report = local_search(spec, order, &local_options, stop, &local_progress)?;
+        progress
+            .attempts
+            .fetch_add(report.restarts, Ordering::Relaxed);
+        if let Some((colouring, by)) = report.found {
+            return verified(spec, colouring, format!("{by}, round {round}")).map(Some);
+        }
+        for (_, near) in &report.near {
+            for seed in near_solution_seeds(near, spec, &mut rng) {
+                if stop.load(Ordering::Relaxed) {
+                    return Ok(None);
+                }
+                if let Some(found) = try_seed(&seed, &mut rng, &mut attempt_no)? {
+                    return Ok(Some(found));
+                }
+            }
+        }
+        slice *= 2;
+    }
+    Ok(None)
+}
+
+/// Seeds from a near-solution: every edge in no monochromatic forbidden clique
+/// fixed; then the same with a random fifth of those edges released.
+pub fn near_solution_seeds(near: &Colouring, spec: &RamseySpec, rng: &mut ChaCha8Rng) -> Vec<Seed> {
+    let state = LocalState::new(near, &spec.clique_sizes());
+    let bad: std::collections::HashSet<(usize, usize)> = state.bad_edges().into_iter().collect();
+    let n = near.order();
+    let good: Vec<(usize, usize)> = (0..n)
+        .flat_map(|j| (0..j).map(move |i| (i, j)))
+        .filter(|e| !bad.contains(e))
+        .map(|(i, j)| (edge_index(i, j), near.colour(i, j) as usize))
+        .collect();
+    let mut released = good.clone();
+    released.shuffle(rng);
+    released.truncate(good.len() * 4 / 5);
+    released.sort_unstable();
+    vec![
+        Seed {
+            kind: SeedKind::NearSolution,
+            fixed: good,
+        },
+        Seed {
+            kind: SeedKind::NearSolution,
+            fixed: released,
+        },
+    ]
+}

@@ -1,0 +1,138 @@
+//! The two move rules of local search, one step each.
+//!
+//! * **Tabu search**: evaluate every recolouring of every edge, take the best one
+//!   whose edge was not recoloured in the last `tenure` steps (a tabu move is still
+//!   allowed when it reaches a new best cost, the usual aspiration rule), ties broken
+//!   at random. Glover, "Tabu search — Part I", ORSA J. Computing 1989.
+//! * **Simulated annealing**: recolour a random edge to a random other colour and
+//!   keep the change with the Metropolis probability exp(−Δ/T). Kirkpatrick, Gelatt
+//!   & Vecchi, Science 1983.
+
+use rand::Rng;
+
+use ramsift_encoder::edges::{edge_count, edge_endpoints};
+
+use super::state::LocalState;
+
+/// Tabu memory: the step until which each edge may not be recoloured.
+#[derive(Clone, Debug)]
+pub struct TabuList {
+    until: Vec<u64>,
+    step: u64,
+}
+
+impl TabuList {
+    pub fn new(order: usize) -> Self {
+        TabuList {
+            until: vec![0; edge_count(order)],
+            step: 0,
+        }
+    }
+}
+
+/// One tabu step; returns false when no move was allowed.
+pub fn tabu_step(
+    state: &mut LocalState,
+    tabu: &mut TabuList,
+    best_cost: u64,
+    rng: &mut impl Rng,
+) -> bool {
+    let n = state.order();
+    let r = state.colours() as u8;
+    tabu.step += 1;
+    let mut best: Option<(i64, usize, usize, u8)> = None;
+    let mut ties = 0u32;
+    for v in 1..n {
+        for u in 0..v {
+            let e = ramsift_encoder::edges::edge_index(u, v);
+            let from = state.colour(u, v);
+            // Edges in no monochromatic clique can only make things worse or stay
+            // level; they are still candidates, so that plateaus can be crossed.
+            let loss = state.cliques_through(u, v, from) as i64;
+            for to in (1..=r).filter(|&c| c != from) {
+                let delta = state.cliques_through(u, v, to) as i64 - loss;
+                let allowed =
+                    tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
+                if !allowed {
+                    continue;
+                }
+                match best {
+                    Some((d, ..)) if delta > d => {}
+                    Some((d, ..)) if delta == d => {
+                        ties += 1;
+                        if rng.gen_range(0..ties) == 0 {
+                            best = Some((delta, u, v, to));
+                        }
+                    }
+                    _ => {
+                        ties = 1;
+                        best = Some((delta, u, v, to));
+                    }
+                }
+            }
+        }
+    }
+    let Some((_, u, v, to)) = best else {
+        return false;
+    };
+    state.recolour(u, v, to);
+    let edges = edge_count(n) as u64;
+    let tenure = 5 + rng.gen_range(0..=edges / 16 + 1);
+    tabu.until[ramsift_encoder::edges::edge_index(u, v)] = tabu.step + tenure;
+    true
+}
+
+/// One annealing step at temperature `temperature`; returns whether the move was kept.
+pub fn anneal_step(state: &mut LocalState, temperature: f64, rng: &mut impl Rng) -> bool {
+    let n = state.order();
+    let r = state.colours() as u8;
+    let (u, v) = edge_endpoints(rng.gen_range(0..edge_count(n)));
+    let from = state.colour(u, v);
+    let mut to = rng.gen_range(1..r);
+    if to >= from {
+        to += 1;
+    }
+    let delta = state.delta(u, v, to);
+    let keep = delta <= 0 || rng.gen::<f64>() < (-(delta as f64) / temperature).exp();
+    if keep {
+        state.recolour(u, v, to);
+    }
+    keep
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use rand::SeedableRng;
+    use rand_chacha::ChaCha8Rng;
+
+    #[test]
+    fn tabu_reaches_a_pentagon_from_random_starts() {
+        // (3,3;5) colourings exist (C5 and its complement, Radziszowski DS1).
+        for seed in 0..10 {
+            let mut rng = ChaCha8Rng::seed_from_u64(seed);
+            let mut state = LocalState::random(5, &[3, 3], &mut rng);
+            let mut tabu = TabuList::new(5);
+            let mut best = state.cost();
+            for _ in 0..500 {
+                if state.cost() == 0 {
+                    break;
+                }
+                tabu_step(&mut state, &mut tabu, best, &mut rng);
+                best = best.min(state.cost());
+            }
+            assert_eq!(state.cost(), 0, "seed {seed}");
+            assert_eq!(state.recount(), 0);
+        }
+    }
+
+    #[test]
+    fn annealing_keeps_the_cost_exact() {
+        let mut rng = ChaCha8Rng::seed_from_u64(1);
+        let mut state = LocalState::random(12, &[3, 4], &mut rng);
+        for _ in 0..2000 {
+            anneal_step(&mut state, 0.5, &mut rng);
+        }
+        assert_eq!(state.cost(), state.recount());
+    }
+}

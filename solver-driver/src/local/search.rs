@@ -1,0 +1,314 @@
+//! The parallel local search: one independent run per thread, each restarting from
+//! a fresh random colouring (or a given start) when it stops improving. Worker w
+//! draws from a ChaCha8 stream seeded with (seed, w), so a run with the same seed
+//! and thread count repeats the same moves until the first answer.
+
+use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
+use std::sync::Mutex;
+use std::time::{Duration, Instant};
+
+use rand::SeedableRng;
+use rand_chacha::ChaCha8Rng;
+
+use ramsift_encoder::edges::edge_count;
+use ramsift_encoder::{Colouring, RamseySpec};
+
+use super::moves::{anneal_step, tabu_step, TabuList};
+use super::state::{LocalState, MAX_LOCAL_ORDER};
+use crate::portfolio::SearchError;
+use crate::verify::verify_witness;
+
+/// Which move rule.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum LocalMethod {
+    Tabu,
+    Anneal,
+}
+
+impl std::fmt::Display for LocalMethod {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            LocalMethod::Tabu => "tabu search",
+            LocalMethod::Anneal => "simulated annealing",
+        })
+    }
+}
+
+/// How a local search runs.
+#[derive(Clone, Debug)]
+pub struct LocalOptions {
+    pub method: LocalMethod,
+    pub threads: usize,
+    pub seed: u64,
+    pub timeout: Option<Duration>,
+    /// Starting colourings, used in turn by the restarts before random ones.
+    pub starts: Vec<Colouring>,
+    /// Restart after this many steps without a new best of the current run
+    /// (default: 50 times the number of edges).
+    pub stall_steps: Option<u64>,
+    /// How many near-solutions (best colourings of distinct restarts) to keep.
+    pub keep_near: usize,
+}
+
+impl Default for LocalOptions {
+    fn default() -> Self {
+        LocalOptions {
+            method: LocalMethod::Tabu,
+            threads: std::thread::available_parallelism().map_or(1, |n| n.get()),
+            seed: 0,
+            timeout: None,
+            starts: Vec::new(),
+            stall_steps: None,
+            keep_near: 8,
+        }
+    }
+}
+
+/// Counters readable while the search runs.
+#[derive(Debug)]
+pub struct LocalProgress {
+    pub steps: AtomicU64,
+    pub restarts: AtomicU64,
+    pub best_cost: AtomicU64,
+}
+
+impl Default for LocalProgress {
+    fn default() -> Self {
+        LocalProgress {
+            steps: AtomicU64::new(0),
+            restarts: AtomicU64::new(0),
+            best_cost: AtomicU64::new(u64::MAX),
+        }
+    }
+}
+
+/// What a local search achieved.
+#[derive(Clone, Debug)]
+pub struct LocalReport {
+    /// A verified colouring with no monochromatic forbidden clique, and who found it.
+    pub found: Option<(Colouring, String)>,
+    /// Near-solutions, fewest monochromatic cliques first.
+    pub near: Vec<(u64, Colouring)>,
+    pub best_cost: u64,
+    pub steps: u64,
+    pub restarts: u64,
+    pub elapsed: Duration,
+}
+
+/// Runs local search on K_order for the specification's clique sizes.
+pub fn local_search(
+    spec: &RamseySpec,
+    order: usize,
+    options: &LocalOptions,
+    stop: &AtomicBool,
+    progress: &LocalProgress,
+) -> Result<LocalReport, SearchError> {
+    if !(2..=MAX_LOCAL_ORDER).contains(&order) {
+        return Err(SearchError::Backend(format!(
+            "local search handles orders 2 to {MAX_LOCAL_ORDER}; {order} is outside"
+        )));
+    }
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let threads = options.threads.max(1);
+    let sizes = spec.clique_sizes();
+    let found: Mutex<Option<(Colouring, String)>> = Mutex::new(None);
+    let near: Mutex<Vec<(u64, Colouring)>> = Mutex::new(Vec::new());
+    let start_index = AtomicU64::new(0);
+    let pool = rayon::ThreadPoolBuilder::new()
+        .num_threads(threads)
+        .build()
+        .map_err(|e| SearchError::Threads {
+            threads,
+            message: e.to_string(),
+        })?;
+    let stall = options
+        .stall_steps
+        .unwrap_or(50 * edge_count(order) as u64)
+        .max(1);
+    pool.scope(|scope| {
+        for worker in 0..threads {
+            let (found, near, start_index, sizes) = (&found, &near, &start_index, &sizes);
+            scope.spawn(move |_| {
+                let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
+                rng.set_stream(worker as u64 + 1000);
+                let stopped = || {
+                    stop.load(Ordering::Relaxed) || deadline.is_some_and(|d| Instant::now() >= d)
+                };
+                while !stopped() {
+                    let index = start_index.fetch_add(1, Ordering::Relaxed) as usize;
+                    let mut state = match options.starts.get(index) {
+                        Some(start) => LocalState::new(start, sizes),
+                        None => LocalState::random(order, sizes, &mut rng),
+                    };
+                    progress.restarts.fetch_add(1, Ordering::Relaxed);
+                    let (cost, best) = run_once(
+                        &mut state,
+                        options.method,
+                        stall,
+                        &mut rng,
+                        &stopped,
+                        progress,
+                    );
+                    progress.best_cost.fetch_min(cost, Ordering::Relaxed);
+                    if cost == 0 {
+                        let mut slot = found.lock().expect("found lock");
+                        if slot.is_none() {
+                            *slot = Some((
+                                best,
+                                format!(
+                                    "{} (thread {worker}, restart {})",
+                                    options.method,
+                                    index + 1
+                                ),
+                            ));
+                        }
+                        stop.store(true, Ordering::SeqCst);
+                        return;
+                    }
+                    let mut kept = near.lock().expect("near lock");
+                    kept.push((cost, best));
+                    kept.sort_by_key(|(c, _)| *c);
+                    kept.truncate(options.keep_near.max(1));
+                }
+            });
+        }
+    });
+    let found = found.into_inner().expect("found lock");
+    if let Some((colouring, _)) = &found {
+        let verdict = verify_witness(spec, colouring);
+        if !verdict.is_valid() {
+            return Err(SearchError::WitnessRejected(verdict.to_string()));
+        }
+    }
+    let near = near.into_inner().expect("near lock");
+    let best_cost = if found.is_some() {
+        0
+    } else {
+        near.first().map_or(u64::MAX, |(c, _)| *c)
+    };
+    Ok(LocalReport {
+        found,
+        near,
+        best_cost,
+        steps: progress.steps.load(Ordering::Relaxed),
+        restarts: progress.restarts.load(Ordering::Relaxed),
+        elapsed: started.elapsed(),
+    })
+}
+
+/// One run from `state` until the cost reaches 0, `stall` steps pass without a new
+/// best, or the search stops. Returns the best cost and colouring seen.
+fn run_once(
+    state: &mut LocalState,
+    method: LocalMethod,
+    stall: u64,
+    rng: &mut ChaCha8Rng,
+    stopped: &dyn Fn() -> bool,
+    progress: &LocalProgress,
+) -> (u64, Colouring) {
+    let mut best_cost = state.cost();
+    let mut best = state.to_colouring();
+    let mut since_best = 0u64;
+    let mut tabu = TabuList::new(state.order());
+    // A tabu step evaluates every edge; an annealing step evaluates one. Annealing
+    // runs cool geometrically from 2.0 to 0.05 over (edges / 4 + 1) times the stall
+    // length, then end (the restart reheats).
+    let anneal_length = stall.saturating_mul(edge_count(state.order()) as u64 / 4 + 1);
+    let cooling = (0.05f64 / 2.0).powf(1.0 / anneal_length as f64);
+    let mut temperature = 2.0f64;
+    let mut steps = 0u64;
+    while best_cost > 0 {
+        let ended = match method {
+            LocalMethod::Tabu => since_best >= stall,
+            LocalMethod::Anneal => steps >= anneal_length,
+        };
+        if ended {
+            break;
+        }
+        if steps % 64 == 0 {
+            progress.steps.fetch_add(64, Ordering::Relaxed);
+            if stopped() {
+                break;
+            }
+        }
+        steps += 1;
+        match method {
+            LocalMethod::Tabu => {
+                if !tabu_step(state, &mut tabu, best_cost, rng) {
+                    break;
+                }
+            }
+            LocalMethod::Anneal => {
+                anneal_step(state, temperature, rng);
+                temperature *= cooling;
+            }
+        }
+        if state.cost() < best_cost {
+            best_cost = state.cost();
+            best = state.to_colouring();
+            since_best = 0;
+        } else {
+            since_best += 1;
+        }
+    }
+    (best_cost, best)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn run(method: LocalMethod, sizes: &[usize], n: usize, threads: usize) -> LocalReport {
+        let options = LocalOptions {
+            method,
+            threads,
+            seed: 3,
+            timeout: Some(Duration::from_secs(60)),
+            ..LocalOptions::default()
+        };
+        let stop = AtomicBool::new(false);
+        local_search(
+            &RamseySpec::cliques(sizes).unwrap(),
+            n,
+            &options,
+            &stop,
+            &LocalProgress::default(),
+        )
+        .unwrap()
+    }
+
+    #[test]
+    fn both_methods_find_classical_witnesses() {
+        // R(3,5) = 14 and R(3,3,3) = 17 (Radziszowski DS1): colourings exist at 13, 16.
+        for method in [LocalMethod::Tabu, LocalMethod::Anneal] {
+            let report = run(method, &[3, 4], 8, 2);
+            assert!(report.found.is_some(), "{method}: (3,4;8)");
+            assert_eq!(report.best_cost, 0);
+        }
+        assert!(run(LocalMethod::Tabu, &[3, 5], 13, 2).found.is_some());
+    }
+
+    #[test]
+    fn no_colouring_means_a_positive_best_cost() {
+        // R(3,3) = 6 (DS1): every colouring of K6 has a monochromatic triangle.
+        let options = LocalOptions {
+            threads: 1,
+            timeout: Some(Duration::from_millis(300)),
+            ..LocalOptions::default()
+        };
+        let stop = AtomicBool::new(false);
+        let report = local_search(
+            &RamseySpec::cliques(&[3, 3]).unwrap(),
+            6,
+            &options,
+            &stop,
+            &LocalProgress::default(),
+        )
+        .unwrap();
+        assert!(report.found.is_none());
+        // Goodman 1959: every 2-colouring of K6 has at least 2 monochromatic triangles.
+        assert!(report.best_cost >= 2, "{}", report.best_cost);
+        assert!(!report.near.is_empty());
+    }
+}

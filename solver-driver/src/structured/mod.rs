@@ -1,0 +1,168 @@
+//! Structured searches for lower bounds: colourings invariant under a group acting
+//! on the vertices (circulant, Cayley over abelian groups, block-circulant).
+//!
+//! The unknowns are the edge orbits, not the edges, so the formulas are small and
+//! the searches exhaustive *within the family*: "no circulant colouring exists at
+//! this order" is a result, and a scan over orders gives the largest circulant lower
+//! bound in one run. Most of the best published lower bounds for small classical
+//! Ramsey numbers come from such colourings (Radziszowski, "Small Ramsey Numbers",
+//! EJC DS1, §2).
+//!
+//! * [`families`] builds the edge orbits of each family.
+//! * [`orbit_formula`] writes the exact CNF over orbits.
+//! * [`solve`] solves it and verifies the colouring with the checker's code.
+//! * [`scan`] runs a family over a range of orders.
+
+pub mod families;
+pub mod orbit_formula;
+pub mod scan;
+pub mod solve;
+
+use std::fmt;
+use std::str::FromStr;
+use std::sync::atomic::AtomicBool;
+use std::time::Instant;
+
+use ramsift_encoder::RamseySpec;
+
+pub use families::{AbelianGroup, EdgeOrbits, FamilyError, FamilyKind};
+pub use solve::{search_family, FamilyOutcome, FamilyReport, FamilySearchError};
+
+/// Which families a structured search tries at an order.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum FamilyChoice {
+    /// Cayley colourings of Z_n.
+    Circulant,
+    /// Cayley colourings of every product of cyclic groups of order n (Z_n first),
+    /// or of one given group.
+    Cayley(Option<AbelianGroup>),
+    /// Block-circulant colourings with the given number of blocks, or with 2 and 3.
+    BlockCirculant(Option<usize>),
+    /// All of the above, in that order.
+    All,
+}
+
+impl fmt::Display for FamilyChoice {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            FamilyChoice::Circulant => f.write_str("circulant"),
+            FamilyChoice::Cayley(None) => f.write_str("cayley"),
+            FamilyChoice::Cayley(Some(g)) => write!(f, "cayley {g}"),
+            FamilyChoice::BlockCirculant(None) => f.write_str("block-circulant"),
+            FamilyChoice::BlockCirculant(Some(b)) => write!(f, "block-circulant {b}"),
+            FamilyChoice::All => f.write_str("structured"),
+        }
+    }
+}
+
+impl FromStr for FamilyChoice {
+    type Err = String;
+
+    /// `circulant`, `cayley`, `block-circulant`, `structured`.
+    fn from_str(text: &str) -> Result<Self, String> {
+        match text {
+            "circulant" => Ok(FamilyChoice::Circulant),
+            "cayley" => Ok(FamilyChoice::Cayley(None)),
+            "block-circulant" => Ok(FamilyChoice::BlockCirculant(None)),
+            "structured" => Ok(FamilyChoice::All),
+            other => Err(format!(
+                "family {other:?}: expected circulant, cayley, block-circulant or structured"
+            )),
+        }
+    }
+}
+
+impl FamilyChoice {
+    /// The families tried at `order`, in order. Families that do not exist at this
+    /// order (a group of another size, blocks that do not divide it) are left out;
+    /// one named explicitly that does not fit is an error.
+    pub fn families(&self, order: usize) -> Result<Vec<EdgeOrbits>, FamilyError> {
+        let mut out = Vec::new();
+        match self {
+            FamilyChoice::Circulant => out.push(EdgeOrbits::circulant(order)?),
+            FamilyChoice::Cayley(Some(group)) => {
+                if group.size() != order {
+                    return Err(FamilyError::GroupOrder {
+                        group: group.to_string(),
+                        size: group.size(),
+                        order,
+                    });
+                }
+                out.push(EdgeOrbits::cayley(group)?);
+            }
+            FamilyChoice::Cayley(None) => {
+                for group in AbelianGroup::all_of_order(order) {
+                    out.push(EdgeOrbits::cayley(&group)?);
+                }
+            }
+            FamilyChoice::BlockCirculant(Some(blocks)) => {
+                out.push(EdgeOrbits::block_circulant(order, *blocks)?)
+            }
+            FamilyChoice::BlockCirculant(None) => {
+                for blocks in [2, 3] {
+                    if let Ok(orbits) = EdgeOrbits::block_circulant(order, blocks) {
+                        out.push(orbits);
+                    }
+                }
+            }
+            FamilyChoice::All => {
+                out.extend(FamilyChoice::Cayley(None).families(order)?);
+                out.extend(FamilyChoice::BlockCirculant(None).families(order)?);
+            }
+        }
+        Ok(out)
+    }
+}
+
+/// What trying every family of a choice at one order gave.
+#[derive(Clone, Debug)]
+pub struct OrderReport {
+    pub order: usize,
+    pub families: Vec<FamilyReport>,
+}
+
+impl OrderReport {
+    /// The first colouring found, if any.
+    pub fn found(&self) -> Option<&FamilyReport> {
+        self.families
+            .iter()
+            .find(|r| matches!(r.outcome, FamilyOutcome::Found { .. }))
+    }
+
+    /// "found", "none" (every family proved empty) or "unknown".
+    pub fn verdict(&self) -> &'static str {
+        if self.found().is_some() {
+            "found"
+        } else if !self.families.is_empty()
+            && self
+                .families
+                .iter()
+                .all(|r| r.outcome == FamilyOutcome::NoneInFamily)
+        {
+            "none"
+        } else {
+            "unknown"
+        }
+    }
+}
+
+/// Tries the families of `choice` at `order` one after the other, stopping at the
+/// first colouring found.
+pub fn search_order(
+    choice: &FamilyChoice,
+    spec: &RamseySpec,
+    order: usize,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<OrderReport, FamilySearchError> {
+    let mut families = Vec::new();
+    for orbits in choice.families(order)? {
+        let report = search_family(&orbits, spec, stop, deadline)?;
+        let done = matches!(report.outcome, FamilyOutcome::Found { .. });
+        families.push(report);
+        if done {
+            break;
+        }
+    }
+    Ok(OrderReport { order, families })
+}

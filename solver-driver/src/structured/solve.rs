@@ -1,0 +1,171 @@
+//! Solving a family's orbit formula with varisat, under the same stop flag and
+//! deadline as every other search, and turning a model into a verified colouring.
+
+use std::io;
+use std::sync::atomic::AtomicBool;
+use std::time::{Duration, Instant};
+
+use varisat::{ExtendFormula, Lit, ProofFormat, Solver};
+
+use ramsift_encoder::{Colouring, RamseySpec};
+
+use super::families::{EdgeOrbits, FamilyError};
+use super::orbit_formula::{orbit_literal, OrbitFormula};
+use crate::interrupt::{InterruptSink, Limits, SinkReport};
+use crate::portfolio::SearchError;
+use crate::verify::verify_witness;
+
+/// How a family search at one order ended.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum FamilyOutcome {
+    /// A colouring of the family, verified by the checker's code.
+    Found {
+        colouring: Colouring,
+        /// Colour of each orbit.
+        orbit_colours: Vec<u8>,
+        /// E.g. "colour 1: distances {1,2,4,8}; colour 2: distances {3,5,6,7}".
+        description: String,
+    },
+    /// The orbit formula is unsatisfiable: no colouring of this family exists.
+    NoneInFamily,
+    /// Stopped by the deadline or the stop flag.
+    Unknown,
+}
+
+/// A family search's outcome and what it cost.
+#[derive(Clone, Debug)]
+pub struct FamilyReport {
+    pub family: String,
+    pub order: usize,
+    pub outcome: FamilyOutcome,
+    pub orbits: usize,
+    pub clauses: usize,
+    pub elapsed: Duration,
+}
+
+/// Errors of a family search: the family cannot be built, or the solver failed.
+#[derive(Debug, thiserror::Error)]
+pub enum FamilySearchError {
+    #[error(transparent)]
+    Family(#[from] FamilyError),
+    #[error(transparent)]
+    Search(#[from] SearchError),
+}
+
+/// Searches one family for a colouring of K_n avoiding the specification's cliques.
+pub fn search_family(
+    orbits: &EdgeOrbits,
+    spec: &RamseySpec,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<FamilyReport, FamilySearchError> {
+    let started = Instant::now();
+    let formula = OrbitFormula::new(orbits, spec);
+    let outcome = solve_orbit_formula(&formula, stop, deadline)?;
+    let outcome = match outcome {
+        Some(Some(values)) => {
+            let r = formula.colours;
+            let orbit_colours: Vec<u8> = (0..orbits.orbit_count)
+                .map(|o| {
+                    (1..=r)
+                        .find(|&c| {
+                            let lit = orbit_literal(o, c, r);
+                            values[lit.unsigned_abs() as usize - 1] == (lit > 0)
+                        })
+                        .unwrap_or(1) as u8
+                })
+                .collect();
+            let colouring = orbits.expand(&orbit_colours, r);
+            let verdict = verify_witness(spec, &colouring);
+            if !verdict.is_valid() {
+                return Err(SearchError::WitnessRejected(verdict.to_string()).into());
+            }
+            FamilyOutcome::Found {
+                description: orbits.describe(&orbit_colours, r),
+                colouring,
+                orbit_colours,
+            }
+        }
+        Some(None) => FamilyOutcome::NoneInFamily,
+        None => FamilyOutcome::Unknown,
+    };
+    Ok(FamilyReport {
+        family: orbits.kind.to_string(),
+        order: orbits.order,
+        outcome,
+        orbits: orbits.orbit_count,
+        clauses: formula.clauses.len(),
+        elapsed: started.elapsed(),
+    })
+}
+
+/// `Some(Some(model))` satisfiable, `Some(None)` unsatisfiable, `None` stopped.
+fn solve_orbit_formula(
+    formula: &OrbitFormula,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<Option<Option<Vec<bool>>>, SearchError> {
+    let report = SinkReport::default();
+    let limits = Limits {
+        stop,
+        deadline,
+        budget_bytes: None,
+        bytes_seen: None,
+    };
+    let mut solver = Solver::new();
+    // The proof is discarded; it is only how the deadline reaches the solver.
+    solver.write_proof(
+        InterruptSink::<io::Sink>::new(limits, None, &report),
+        ProofFormat::BinaryDrat,
+    );
+    let mut buffer = Vec::new();
+    for clause in &formula.clauses {
+        buffer.clear();
+        buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
+        solver.add_clause(&buffer);
+    }
+    // Variables that occur in no clause still need a value.
+    let mut values = vec![false; formula.variable_count];
+    match solver.solve() {
+        Ok(true) => {
+            for lit in solver.model().unwrap_or_default() {
+                let var = lit.var().to_dimacs() as usize;
+                if var >= 1 && var <= values.len() {
+                    values[var - 1] = lit.is_positive();
+                }
+            }
+            Ok(Some(Some(values)))
+        }
+        Ok(false) => Ok(Some(None)),
+        Err(_) if report.reason.get().is_some() => Ok(None),
+        Err(e) => Err(SearchError::Backend(e.to_string())),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn run(orbits: &EdgeOrbits, sizes: &[usize]) -> FamilyOutcome {
+        let stop = AtomicBool::new(false);
+        search_family(orbits, &RamseySpec::cliques(sizes).unwrap(), &stop, None)
+            .unwrap()
+            .outcome
+    }
+
+    #[test]
+    fn pentagon_is_the_circulant_triangle_free_colouring_of_k5() {
+        // C5 and its complement: the (3,3;5) colouring (Radziszowski DS1).
+        let FamilyOutcome::Found { colouring, .. } =
+            run(&EdgeOrbits::circulant(5).unwrap(), &[3, 3])
+        else {
+            panic!("C5 is circulant");
+        };
+        assert_ne!(colouring.colour(0, 1), colouring.colour(0, 2));
+        // R(3,3) = 6: nothing at all at 6, so no circulant either.
+        assert_eq!(
+            run(&EdgeOrbits::circulant(6).unwrap(), &[3, 3]),
+            FamilyOutcome::NoneInFamily
+        );
+    }
+}
