@@ -16,7 +16,7 @@
 //!    each round.
 //!
 //! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
-//! one thread there is no helper: the structured stage runs, then worker 0 alone.
+//! one thread, stages 1 and 2 run first and then worker 0 alone (no stage 3).
 
 use std::io;
 use std::sync::atomic::{AtomicBool, Ordering};
@@ -271,8 +271,9 @@ fn helper_stages(
         }
     }
 
-    // Stage 3: local search slices and seeded SAT attempts.
-    if order > MAX_LOCAL_ORDER {
+    // Stage 3: local search slices and seeded SAT attempts, only beside a complete
+    // worker (with one thread the complete worker runs next, on this thread).
+    if order > MAX_LOCAL_ORDER || options.threads < 2 {
         return Ok(None);
     }
     let mut slice = Duration::from_secs(1);

@@ -310,3 +310,122 @@ fn cadical_backend_answers_both_ways() {
         Some(20)
     );
 }
+
+#[test]
+fn circulant_find_reports_found_and_none_in_family() {
+    // Paley(17) is circulant and R(4,4) = 18 (Radziszowski DS1).
+    let o = ramsift(&["find", "4,4", "17", "--circulant", "--json"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["result"], "found");
+    assert_eq!(summary["method"], "circulant");
+    assert!(summary["found_by"].as_str().unwrap().contains("Z17"));
+    // (3,6;17): colourings exist (R(3,6) = 18) but none is circulant (OEIS A000789:
+    // the largest circulant (3,6)-colouring has order 16). Exit 1, not 20.
+    let o = ramsift(&["find", "3,6", "17", "--circulant"]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    assert!(stdout(&o).contains("NONE-IN-FAMILY"), "{}", stdout(&o));
+    let o = ramsift(&[
+        "find", "3,3,3", "16", "--method", "cayley", "--group", "Z2^4", "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+}
+
+#[test]
+fn scan_reports_every_order_and_writes_witnesses() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("scan");
+    let o = ramsift(&[
+        "scan",
+        "3,5",
+        "--circulant",
+        "--from",
+        "12",
+        "--to",
+        "14",
+        "--json",
+        "--out",
+        out.to_str().unwrap(),
+    ]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    // R(3,5) = 14 with the cyclic (3,5;13) colouring (DS1): found at 13, none at 14.
+    let verdicts: Vec<&str> = summary["orders"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|o| o["result"].as_str().unwrap())
+        .collect();
+    assert_eq!(verdicts[1..], ["found", "none"]);
+    assert_eq!(summary["largest_found"], 13);
+    let file = parse_colouring_file(
+        "w",
+        &std::fs::read_to_string(out.join("order-13/witness.colouring")).unwrap(),
+    )
+    .unwrap();
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    assert!(out.join("scan.json").exists());
+}
+
+#[test]
+fn local_search_method_finds_a_witness() {
+    let o = ramsift(&[
+        "find", "3,5", "13", "--method", "local", "--seed", "2", "--json",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["method"], "local");
+    assert!(summary["found_by"].as_str().unwrap().contains("tabu"));
+}
+
+#[test]
+fn bad_structured_options_are_refused() {
+    assert_bad_input(
+        &["find", "3,3", "5", "--method", "cayley", "--group", "Z1"],
+        "--group",
+    );
+    assert_bad_input(
+        &["find", "3,3", "5", "--method", "cayley", "--group", "Z2xZ3"],
+        "has 6 elements",
+    );
+    assert_bad_input(
+        &["find", "3,3", "5", "--group", "Z5"],
+        "goes with --method cayley",
+    );
+    assert_bad_input(
+        &[
+            "find",
+            "3,3",
+            "7",
+            "--method",
+            "block-circulant",
+            "--blocks",
+            "3",
+        ],
+        "divisible by 3",
+    );
+    assert_bad_input(
+        &["find", "3,3", "200", "--method", "local"],
+        "orders 2 to 128",
+    );
+    assert_bad_input(&["scan", "3,3", "--from", "9", "--to", "5"], "FROM <= TO");
+    assert_bad_input(
+        &[
+            "scan", "3,3", "--from", "5", "--to", "9", "--family", "petersen",
+        ],
+        "--family",
+    );
+    assert_bad_input(
+        &[
+            "scan",
+            "3,3",
+            "--from",
+            "5",
+            "--to",
+            "9",
+            "--per-order",
+            "0",
+        ],
+        "--per-order",
+    );
+}

@@ -41,3 +41,12 @@ pub const CLASSICAL: &[RamseyValue] = &[
 /// a pentagon and its complement, and there are 4!/2 = 12 labelled 5-cycles
 /// (common practice, derivable by hand).
 pub const TRIANGLE_FREE_K5_COLOURINGS: usize = 12;
+
+/// The largest order of a circulant (3,t)-colouring (a cyclic triangle-free graph
+/// with independence number below t), for t = 3..=6: OEIS A000789, terms due to
+/// Kalbfleisch, "Construction of special edge-chromatic graphs", Canad. Math. Bull.
+/// 8 (1965), and tabulated by Harborth & Krause, "Ramsey numbers for circulant
+/// colorings", Congressus Numerantium 161 (2003). For t ≤ 5 it equals R(3,t) − 1;
+/// t = 6 is the first strict case (16 < R(3,6) − 1 = 17), witnessed by the circulant
+/// graph on 16 vertices with distances {1, 3, 8} (OEIS A000789, example).
+pub const LARGEST_CIRCULANT_3T: &[(usize, usize)] = &[(3, 5), (4, 8), (5, 13), (6, 16)];
