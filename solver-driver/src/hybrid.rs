@@ -3,7 +3,7 @@
 //! running throughout so that "no colouring exists" stays a complete answer.
 //!
 //! 1. **Structured stage** (at most a quarter of the time limit, and 30 s without
-//!    one): circulant colourings at n; circulant colourings at n + 1 with a vertex
+//!    one; each family at most a twentieth, 2 s at least): circulant colourings at n; circulant colourings at n + 1 with a vertex
 //!    deleted (deleting a vertex keeps a colouring valid); the other abelian Cayley
 //!    families and the 2- and 3-block circulants at n. Each is exact for its family.
 //! 2. **Circulant neighbour seed**: a circulant colouring at n − 1, if one exists,
