@@ -15,6 +15,7 @@ use std::path::{Path, PathBuf};
 use serde_json::Value;
 use sha2::{Digest, Sha256};
 
+use crate::claim::Claim;
 use crate::cnf::parse_cnf;
 use crate::drat_check::check_drat;
 use crate::drat_parse::parse_drat;
@@ -37,8 +38,9 @@ pub struct PremiseStatus {
 /// The verdict on a bundle.
 #[derive(Clone, Debug)]
 pub struct BundleVerdict {
-    /// The claim exactly as proven (`R(4,4) <= 18`).
+    /// The claim exactly as proven (`R(4,4) <= 18`, `R(C4,4) <= 10`).
     pub claim: String,
+    /// The clique sizes (empty when a colour forbids another graph).
     pub clique_sizes: Vec<usize>,
     pub order: usize,
     pub symmetry: Vec<String>,
@@ -110,18 +112,54 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
             format!("bundle_format is {format:?}, expected {BUNDLE_FORMAT:?}"),
         ));
     }
-    let clique_sizes = usize_list(
-        field(&manifest, &["claim", "clique_sizes"], &name)?,
-        "claim.clique_sizes",
-        &name,
-    )?;
     let order = field(&manifest, &["claim", "order"], &name)?
         .as_u64()
         .ok_or_else(|| InputError::whole(&name, "claim.order must be a whole number"))?
         as usize;
-    if clique_sizes.len() < 2 || clique_sizes.iter().any(|&k| k < 2 || k > order) || order > 10_000
+    // Forbidden graphs other than cliques are named in claim.forbidden (the
+    // specification's entries, read with the checker's own parser); clique claims
+    // may give claim.clique_sizes alone.
+    let claim_graphs = match manifest.get("claim").and_then(|c| c.get("forbidden")) {
+        Some(list) => {
+            let entries: Vec<String> = list
+                .as_array()
+                .map(|a| {
+                    a.iter()
+                        .filter_map(|s| s.as_str().map(String::from))
+                        .collect()
+                })
+                .filter(|e: &Vec<String>| e.len() == list.as_array().map_or(0, Vec::len))
+                .ok_or_else(|| {
+                    InputError::whole(&name, "claim.forbidden must be a list of graph names")
+                })?;
+            let parsed = Claim::parse(&entries.join(","))
+                .map_err(|e| InputError::whole(&name, format!("claim.forbidden: {e}")))?;
+            if let Some(sizes) = manifest.get("claim").and_then(|c| c.get("clique_sizes")) {
+                let sizes = usize_list(sizes, "claim.clique_sizes", &name)?;
+                if parsed.clique_sizes() != Some(sizes) {
+                    return Err(InputError::whole(
+                        &name,
+                        "claim.forbidden and claim.clique_sizes disagree",
+                    ));
+                }
+            }
+            parsed
+        }
+        None => Claim::cliques(&usize_list(
+            field(&manifest, &["claim", "clique_sizes"], &name)?,
+            "claim.clique_sizes",
+            &name,
+        )?),
+    };
+    let clique_sizes = claim_graphs.clique_sizes().unwrap_or_default();
+    if claim_graphs.forbidden.len() < 2
+        || claim_graphs
+            .forbidden
+            .iter()
+            .any(|g| g.vertices() < 2 || g.vertices() > order)
+        || order > 10_000
     {
-        return Err(InputError::whole(&name, format!("claim {clique_sizes:?} at order {order} is not a Ramsey question this checker accepts")));
+        return Err(InputError::whole(&name, format!("claim {claim_graphs} at order {order} is not a Ramsey question this checker accepts")));
     }
     let symmetry: Vec<String> = field(&manifest, &["encoding", "symmetry"], &name)?
         .as_array()
@@ -156,8 +194,7 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
         );
         premises.push(PremiseBound { cliques, bound });
     }
-    let list: Vec<String> = clique_sizes.iter().map(|k| k.to_string()).collect();
-    let claim = format!("R({}) <= {}", list.join(","), order);
+    let claim = format!("R({claim_graphs}) <= {order}");
 
     let mut verdict = BundleVerdict {
         claim: claim.clone(),
@@ -242,7 +279,7 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
 
     // 2. The formula says exactly what the claim says.
     let statement = Statement {
-        cliques: clique_sizes.clone(),
+        forbidden: claim_graphs.forbidden.clone(),
         order,
         symmetry,
         premises,

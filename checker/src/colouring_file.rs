@@ -178,7 +178,7 @@ mod tests {
     #[test]
     fn reads_the_pentagon() {
         let file = parse_colouring_file("p.txt", PENTAGON).unwrap();
-        assert_eq!(file.claim.clique_sizes, vec![3, 3]);
+        assert_eq!(file.claim.clique_sizes(), Some(vec![3, 3]));
         assert_eq!(file.matrix.order(), 5);
         assert_eq!(file.matrix.colour(0, 1), 1);
         assert_eq!(file.matrix.colour(3, 0), 2);

@@ -191,10 +191,15 @@ fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
 
 fn describe(claim: &Claim) -> String {
     claim
-        .clique_sizes
+        .forbidden
         .iter()
         .enumerate()
-        .map(|(i, k)| format!("colour {} forbids K{}", i + 1, k))
+        .map(|(i, g)| match g {
+            ramsift_checker::ClaimGraph::Clique(k) => format!("colour {} forbids K{k}", i + 1),
+            ramsift_checker::ClaimGraph::Graph { token, .. } => {
+                format!("colour {} forbids {token}", i + 1)
+            }
+        })
         .collect::<Vec<_>>()
         .join(", ")
 }

@@ -7,10 +7,17 @@
 //! * edge {i,j}, i < j, has index e = j(j-1)/2 + i; with two colours variable e+1
 //!   is "colour 1", with r >= 3 colours variable e·r + c is "may have colour c";
 //! * r >= 3: one at-least-one clause per edge; then, colour by colour, one clause
-//!   per k-subset saying "not all of its edges have this colour";
+//!   per k-subset saying "not all of its edges have this colour"; for a forbidden
+//!   graph other than a clique, one clause per copy of it in K_n, found here by
+//!   running through every injective placement of its vertices and keeping each
+//!   distinct edge set once;
 //! * symmetry breaking: colour-swap units on the anchor edge {0,n-1}; lex-leader
 //!   comparators on consecutive rows of the colour-1 graph; degree bounds as
 //!   sequential counters, with the bound taken from the premises.
+
+use std::collections::BTreeSet;
+
+use crate::claim::ClaimGraph;
 
 /// One claimed upper bound R(cliques) <= bound used as a premise.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -22,7 +29,8 @@ pub struct PremiseBound {
 /// What to regenerate.
 #[derive(Clone, Debug)]
 pub struct Statement {
-    pub cliques: Vec<usize>,
+    /// The forbidden graph of each colour.
+    pub forbidden: Vec<ClaimGraph>,
     pub order: usize,
     pub symmetry: Vec<String>,
     pub premises: Vec<PremiseBound>,
@@ -79,6 +87,21 @@ fn subsets(
     }
 }
 
+/// Every injective placement of `v` graph vertices into 0..n.
+fn placements(n: usize, v: usize, chosen: &mut Vec<usize>, visit: &mut dyn FnMut(&[usize])) {
+    if chosen.len() == v {
+        visit(chosen);
+        return;
+    }
+    for x in 0..n {
+        if !chosen.contains(&x) {
+            chosen.push(x);
+            placements(n, v, chosen, visit);
+            chosen.pop();
+        }
+    }
+}
+
 /// Bounds that hold by definition: R(..,1,..) = 1, and entries 2 can be dropped.
 fn elementary_or_premise(
     smaller: &[usize],
@@ -107,7 +130,7 @@ fn elementary_or_premise(
 /// Regenerates the clauses; an unknown scheme name is an error.
 pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
     let n = statement.order;
-    let r = statement.cliques.len();
+    let r = statement.forbidden.len();
     let num = Numbering { colours: r };
     for name in &statement.symmetry {
         if !["colour-swap", "lex-leader", "degree-bounds"].contains(&name.as_str()) {
@@ -126,29 +149,46 @@ pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
             }
         }
     }
-    for (index, &k) in statement.cliques.iter().enumerate() {
+    for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
-        subsets(n, k, 0, &mut Vec::new(), &mut |s| {
-            let mut clause = Vec::new();
-            for (p, &a) in s.iter().enumerate() {
-                for &b in &s[p + 1..] {
-                    clause.push(-num.lit(a, b, colour));
+        match graph {
+            ClaimGraph::Clique(k) => subsets(n, *k, 0, &mut Vec::new(), &mut |s| {
+                let mut clause = Vec::new();
+                for (p, &a) in s.iter().enumerate() {
+                    for &b in &s[p + 1..] {
+                        clause.push(-num.lit(a, b, colour));
+                    }
                 }
+                clauses.push(clause);
+            }),
+            ClaimGraph::Graph {
+                vertices, edges, ..
+            } => {
+                let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
+                placements(n, *vertices, &mut Vec::new(), &mut |place| {
+                    let mut clause: Vec<i32> = edges
+                        .iter()
+                        .map(|&(a, b)| -num.lit(place[a], place[b], colour))
+                        .collect();
+                    clause.sort_unstable();
+                    copies.insert(clause);
+                });
+                clauses.extend(copies);
             }
-            clauses.push(clause);
-        });
+        }
     }
 
     if has("colour-swap") && n >= 2 {
-        let mut seen: Vec<usize> = Vec::new();
+        let mut seen: Vec<&ClaimGraph> = Vec::new();
         for c in 1..=r {
-            let k = statement.cliques[c - 1];
-            if seen.contains(&k) {
+            let graph = &statement.forbidden[c - 1];
+            if seen.contains(&graph) {
                 continue;
             }
-            seen.push(k);
-            let mut class: Vec<usize> =
-                (1..=r).filter(|&d| statement.cliques[d - 1] == k).collect();
+            seen.push(graph);
+            let mut class: Vec<usize> = (1..=r)
+                .filter(|&d| statement.forbidden[d - 1] == *graph)
+                .collect();
             if has("lex-leader") && class[0] == 1 && r > 2 {
                 class.remove(0);
             }
@@ -193,8 +233,18 @@ pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
 
     let mut used_premises = Vec::new();
     if has("degree-bounds") {
+        let cliques: Vec<usize> = statement
+            .forbidden
+            .iter()
+            .map(|g| match g {
+                ClaimGraph::Clique(k) => Ok(*k),
+                ClaimGraph::Graph { token, .. } => Err(format!(
+                    "degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"
+                )),
+            })
+            .collect::<Result<_, _>>()?;
         for colour in 1..=r {
-            let mut smaller = statement.cliques.clone();
+            let mut smaller: Vec<usize> = cliques.clone();
             smaller[colour - 1] -= 1;
             let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises)
             else {

@@ -3,9 +3,10 @@
 
 use std::fmt;
 
-use crate::claim::Claim;
+use crate::claim::{Claim, ClaimGraph};
 use crate::cliques::find_monochromatic_clique;
 use crate::matrix::ColourMatrix;
+use crate::subgraphs::find_monochromatic_copy;
 
 /// Outcome of checking a colouring against a claim.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -56,9 +57,15 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
             colours: claim.colours(),
         };
     }
-    for (index, &k) in claim.clique_sizes.iter().enumerate() {
+    for (index, graph) in claim.forbidden.iter().enumerate() {
         let colour = index + 1;
-        if let Some(vertices) = find_monochromatic_clique(matrix, colour as u8, k) {
+        let copy = match graph {
+            ClaimGraph::Clique(k) => find_monochromatic_clique(matrix, colour as u8, *k),
+            ClaimGraph::Graph {
+                vertices, edges, ..
+            } => find_monochromatic_copy(matrix, colour as u8, *vertices, edges),
+        };
+        if let Some(vertices) = copy {
             return Verdict::Monochromatic { colour, vertices };
         }
     }

@@ -228,7 +228,15 @@ fn malformed_manifests_exit_2() {
         "manifest.json",
         b"{ \"bundle_format\": \"ramsift-bundle 1\" }",
     );
+    assert_unreadable(&["bundle", p(d)], "no field claim.order");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"order": 6} }"#);
     assert_unreadable(&["bundle", p(d)], "no field claim.clique_sizes");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", "Q9"], "order": 6} }"#);
+    assert_unreadable(&["bundle", p(d)], "claim.forbidden: entry 2");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", 4], "order": 6} }"#);
+    assert_unreadable(&["bundle", p(d)], "list of graph names");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["4", "4"], "clique_sizes": [3, 4], "order": 6} }"#);
+    assert_unreadable(&["bundle", p(d)], "disagree");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, "x"], "order": 6} }"#);
     assert_unreadable(&["bundle", p(d)], "list of whole numbers");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, 3], "order": 99999999} }"#);

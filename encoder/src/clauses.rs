@@ -1,7 +1,10 @@
 //! The clauses of the clique encoding, generated as a stream.
 //!
 //! For each colour c with forbidden clique K_k and each k-subset S of the vertices,
-//! one clause says "not every edge inside S has colour c". With three or more colours
+//! one clause says "not every edge inside S has colour c". For another forbidden
+//! graph H on v vertices, each v-subset S gets one clause per distinct labelling of
+//! H on S ([`crate::graphs::SmallGraph::labellings`], in their sorted order): one
+//! clause per copy of H in K_n, C(n,v)·v!/|Aut H| in all. With three or more colours
 //! each edge also gets an at-least-one clause (see [`crate::variables`]). Clauses are
 //! produced in a fixed order (at-least-one clauses, then colour by colour, subsets in
 //! lexicographic order, literals by edge pairs in lexicographic order), so the same
@@ -43,6 +46,8 @@ pub enum EncodeError {
     },
     #[error("{instance} needs {count} variables, more than DIMACS literals (32-bit) can name")]
     TooManyVariables { instance: String, count: u128 },
+    #[error("the degree-bounds scheme rests on clique Ramsey numbers; {instance} forbids other graphs, so use colour-swap and lex-leader only")]
+    DegreeBoundsNeedCliques { instance: String },
 }
 
 /// The clique encoding of one instance, with its symmetry-breaking clauses.
@@ -77,6 +82,11 @@ impl CliqueEncoding {
                 count: var_count,
             });
         }
+        if symmetry.contains(Scheme::DegreeBounds) && !instance.spec().is_cliques() {
+            return Err(EncodeError::DegreeBoundsNeedCliques {
+                instance: instance.to_string(),
+            });
+        }
         let count = Self::count_clauses(instance);
         match count {
             Some(count) if count <= limits.max_clauses as u128 => Ok(CliqueEncoding {
@@ -103,8 +113,12 @@ impl CliqueEncoding {
             0
         };
         for graph in instance.spec().forbidden() {
-            let Forbidden::Clique(k) = *graph;
-            total = total.checked_add(binomial(n, k as u128)?)?;
+            let copies_per_subset = match graph {
+                Forbidden::Clique(_) => 1,
+                Forbidden::Graph(g) => g.graph.labellings().len() as u128,
+            };
+            let subsets = binomial(n, graph.vertex_count() as u128)?;
+            total = total.checked_add(subsets.checked_mul(copies_per_subset)?)?;
         }
         Some(total)
     }
@@ -175,16 +189,30 @@ impl CliqueEncoding {
             }
         }
         for colour in 1..=r {
-            let Forbidden::Clique(k) = self.instance.spec().forbidden_in(colour);
-            for_each_subset(n, k, |subset| {
-                clause.clear();
-                for (pos, &a) in subset.iter().enumerate() {
-                    for &b in &subset[pos + 1..] {
-                        clause.push(-vars.edge_colour_literal(a, b, colour));
+            match self.instance.spec().forbidden_in(colour) {
+                Forbidden::Clique(k) => for_each_subset(n, *k, |subset| {
+                    clause.clear();
+                    for (pos, &a) in subset.iter().enumerate() {
+                        for &b in &subset[pos + 1..] {
+                            clause.push(-vars.edge_colour_literal(a, b, colour));
+                        }
                     }
+                    emit(&clause)
+                })?,
+                Forbidden::Graph(g) => {
+                    let labellings = g.graph.labellings();
+                    for_each_subset(n, g.graph.vertex_count(), |subset| {
+                        for edges in &labellings {
+                            clause.clear();
+                            clause.extend(edges.iter().map(|&(a, b)| {
+                                -vars.edge_colour_literal(subset[a], subset[b], colour)
+                            }));
+                            emit(&clause)?;
+                        }
+                        Ok(())
+                    })?
                 }
-                emit(&clause)
-            })?;
+            }
         }
         for clause in &self.symmetry_clauses.clauses {
             emit(clause)?;

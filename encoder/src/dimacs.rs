@@ -23,8 +23,23 @@ pub fn header_lines(encoding: &CliqueEncoding) -> Vec<String> {
         format!("spec {} order {}", instance.spec(), instance.order()),
     ];
     for colour in 1..=r {
-        let Forbidden::Clique(k) = instance.spec().forbidden_in(colour);
-        lines.push(format!("colour {colour} forbids K{k}"));
+        match instance.spec().forbidden_in(colour) {
+            Forbidden::Clique(k) => lines.push(format!("colour {colour} forbids K{k}")),
+            Forbidden::Graph(g) => {
+                let edges: Vec<String> = g
+                    .graph
+                    .edges()
+                    .iter()
+                    .map(|(a, b)| format!("{a}-{b}"))
+                    .collect();
+                lines.push(format!(
+                    "colour {colour} forbids {} ({} vertices, edges {}; one clause per copy)",
+                    g.token,
+                    g.graph.vertex_count(),
+                    edges.join(" ")
+                ));
+            }
+        }
     }
     lines.push("edge {i,j} with 0 <= i < j has index e = j(j-1)/2 + i".to_string());
     if r == 2 {

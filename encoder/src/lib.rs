@@ -2,7 +2,8 @@
 //! edges of K_n with no monochromatic copy of the forbidden graph of each colour?")
 //! into a CNF formula whose models are exactly such colourings.
 //!
-//! * [`spec`] holds the problem specification ([`RamseySpec`], [`Instance`]).
+//! * [`spec`] holds the problem specification ([`RamseySpec`], [`Instance`]);
+//!   [`graphs`] the small forbidden graphs other than cliques.
 //! * [`edges`] numbers the edges of K_n; [`variables`] maps edges and colours to
 //!   CNF variables and decodes models back into a [`Colouring`].
 //! * [`clauses`] generates the clauses as a stream, so that large instances never
@@ -16,13 +17,15 @@ pub mod colouring;
 pub mod combinations;
 pub mod dimacs;
 pub mod edges;
+pub mod graphs;
 pub mod spec;
 pub mod symmetry;
 pub mod variables;
 
 pub use clauses::{CliqueEncoding, EncodingLimits};
 pub use colouring::Colouring;
-pub use spec::{Forbidden, Instance, RamseySpec, SpecError};
+pub use graphs::SmallGraph;
+pub use spec::{Forbidden, Instance, NamedGraph, RamseySpec, SpecError};
 pub use symmetry::{Scheme, SymmetrySet};
 pub use variables::VariableMap;
 

@@ -1,15 +1,32 @@
 //! The problem specification: how many colours, the forbidden graph of each colour,
 //! and the order n of the complete graph whose edges are coloured.
 //!
-//! On the command line a specification is a comma list with one entry per colour,
-//! `4,4` or `3,3,3` (a bare number k, or `Kk`, means the complete graph K_k); the
-//! order is given separately. [`Forbidden`] is an enum so that other small graphs
-//! can take the place of cliques without changing the rest of the pipeline.
+//! On the command line a specification is a comma list with one entry per colour;
+//! the order is given separately. Each entry names a graph:
+//!
+//! | entry | graph |
+//! |---|---|
+//! | `4` or `K4` | the complete graph K_4 |
+//! | `K4-e` | K_4 minus an edge |
+//! | `C5` | the cycle on 5 vertices |
+//! | `P4` | the path on 4 vertices |
+//! | `S3` | the star K_{1,3} (3 leaves) |
+//! | `K2:3` | the complete bipartite graph K_{2,3} |
+//! | `W5` | the wheel: a hub joined to every vertex of C_5 (6 vertices) |
+//! | `B3` | the book: 3 triangles sharing one edge (5 vertices) |
+//! | `G6:Dhc` | any graph in graph6 |
+//! | `E:0-1/1-2/2-0` | any graph as an edge list (vertices 0..max) |
+//!
+//! So `C4,K4` asks for 2-colourings with no colour-1 C_4 and no colour-2 K_4. An
+//! entry that describes a complete graph (`C3`, `P2`, `K1:1`) is read as that clique,
+//! so that clique specifications keep every clique-only feature.
 
 use std::fmt;
 use std::str::FromStr;
 
 use thiserror::Error;
+
+use crate::graphs::{SmallGraph, MAX_GRAPH_VERTICES};
 
 /// The most colours a specification may have. Beyond four colours no Ramsey
 /// question is within reach of SAT solving, so this bound only rejects typos.
@@ -24,9 +41,15 @@ pub const MAX_ORDER: usize = 65_536;
 pub enum SpecError {
     #[error("empty specification: expected a comma list of clique sizes such as 4,4")]
     Empty,
-    #[error("entry {position} of the specification is {token:?}: expected a clique size such as 4 or K4")]
+    #[error("entry {position} of the specification is {token:?}: expected a clique size such as 4 or K4, or a graph such as C5, P4, S3, K2:3, W5, B3, K4-e, G6:Dhc or E:0-1/1-2")]
     BadEntry { position: usize, token: String },
-    #[error("entry {position} of the specification forbids K{size}: a forbidden clique needs at least 2 vertices")]
+    #[error("entry {position} of the specification ({token}) is not usable: {reason}")]
+    BadGraph {
+        position: usize,
+        token: String,
+        reason: String,
+    },
+    #[error("entry {position} of the specification forbids a graph on {size} vertex(es): a forbidden graph needs at least 2 vertices")]
     CliqueTooSmall { position: usize, size: usize },
     #[error("the specification has {count} colour(s): a Ramsey question needs at least 2 and at most {MAX_COLOURS}")]
     ColourCount { count: usize },
@@ -34,7 +57,7 @@ pub enum SpecError {
     ZeroOrder,
     #[error("order {order} is above the largest supported order {MAX_ORDER}")]
     OrderTooLarge { order: usize },
-    #[error("colour {colour} forbids K{size}, which has more vertices than K_{order}: the question is trivial; use an order of at least {size}")]
+    #[error("colour {colour} forbids a graph on {size} vertices, more vertices than K_{order} has: the question is trivial; use an order of at least {size}")]
     GraphLargerThanOrder {
         colour: usize,
         size: usize,
@@ -42,26 +65,172 @@ pub enum SpecError {
     },
 }
 
+/// A forbidden graph other than a clique, with the entry that named it.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub struct NamedGraph {
+    /// The entry in canonical form (`C5`, `K2:3`, `G6:Dhc`); equal entries mean
+    /// equal graphs, which is what the colour-swap scheme compares.
+    pub token: String,
+    pub graph: SmallGraph,
+}
+
 /// The graph that must not appear monochromatic in one colour.
-#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum Forbidden {
     /// The complete graph on this many vertices.
     Clique(usize),
+    /// Any other small graph.
+    Graph(NamedGraph),
 }
 
 impl Forbidden {
     /// Number of vertices of the forbidden graph.
     pub fn vertex_count(&self) -> usize {
-        match *self {
-            Forbidden::Clique(k) => k,
+        match self {
+            Forbidden::Clique(k) => *k,
+            Forbidden::Graph(g) => g.graph.vertex_count(),
         }
+    }
+
+    /// The clique size, for a clique.
+    pub fn clique_size(&self) -> Option<usize> {
+        match self {
+            Forbidden::Clique(k) => Some(*k),
+            Forbidden::Graph(_) => None,
+        }
+    }
+
+    /// The graph itself (cliques too).
+    pub fn graph(&self) -> SmallGraph {
+        match self {
+            Forbidden::Clique(k) => SmallGraph::complete(*k),
+            Forbidden::Graph(g) => g.graph.clone(),
+        }
+    }
+
+    /// Reads one entry of a specification (see the module documentation).
+    pub fn parse_entry(position: usize, token: &str) -> Result<Forbidden, SpecError> {
+        let bad = || SpecError::BadEntry {
+            position,
+            token: token.to_string(),
+        };
+        let unusable = |reason: String| SpecError::BadGraph {
+            position,
+            token: token.to_string(),
+            reason,
+        };
+        let number = |text: &str| -> Result<usize, SpecError> {
+            text.parse::<usize>()
+                .ok()
+                .filter(|_| !text.is_empty() && text.bytes().all(|b| b.is_ascii_digit()))
+                .ok_or_else(bad)
+        };
+        let (graph, canonical) = if let Some(code) = token.strip_prefix("G6:") {
+            let g = SmallGraph::from_graph6(code).map_err(unusable)?;
+            (g, format!("G6:{code}"))
+        } else if let Some(list) = token.strip_prefix("E:") {
+            let mut pairs = Vec::new();
+            for pair in list.split('/') {
+                let (a, b) = pair.split_once('-').ok_or_else(bad)?;
+                pairs.push((number(a)?, number(b)?));
+            }
+            let vertices = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
+            let g = SmallGraph::new(vertices, pairs).map_err(unusable)?;
+            let text: Vec<String> = g.edges().iter().map(|(a, b)| format!("{a}-{b}")).collect();
+            (g, format!("E:{}", text.join("/")))
+        } else {
+            let upper = token.to_ascii_uppercase();
+            let (letter, rest) = upper.split_at(upper.chars().next().map_or(0, |c| c.len_utf8()));
+            if letter.is_empty() || letter.bytes().all(|b| b.is_ascii_digit()) {
+                return Ok(Forbidden::Clique(number(token)?));
+            }
+            match letter {
+                "K" => {
+                    if let Some(k) = rest.strip_suffix("-E") {
+                        let k = number(k)?;
+                        if k < 3 {
+                            return Err(unusable("K_k − e needs k ≥ 3".into()));
+                        }
+                        (SmallGraph::complete_minus_edge(k), format!("K{k}-e"))
+                    } else if let Some((a, b)) = rest.split_once(':') {
+                        let (a, b) = (number(a)?, number(b)?);
+                        if a == 0 || b == 0 {
+                            return Err(unusable("both parts need a vertex".into()));
+                        }
+                        let (a, b) = (a.min(b), a.max(b));
+                        (SmallGraph::complete_bipartite(a, b), format!("K{a}:{b}"))
+                    } else {
+                        return Ok(Forbidden::Clique(number(rest)?));
+                    }
+                }
+                "C" => {
+                    let k = number(rest)?;
+                    if k < 3 {
+                        return Err(unusable("a cycle needs at least 3 vertices".into()));
+                    }
+                    (SmallGraph::cycle(k), format!("C{k}"))
+                }
+                "P" => {
+                    let k = number(rest)?;
+                    if k < 2 {
+                        return Err(unusable("a path needs at least 2 vertices".into()));
+                    }
+                    (SmallGraph::path(k), format!("P{k}"))
+                }
+                "S" => {
+                    let k = number(rest)?;
+                    if k < 1 {
+                        return Err(unusable("a star needs at least 1 leaf".into()));
+                    }
+                    (SmallGraph::complete_bipartite(1, k), format!("K1:{k}"))
+                }
+                "W" => {
+                    let k = number(rest)?;
+                    if k < 3 {
+                        return Err(unusable(
+                            "a wheel needs a rim of at least 3 vertices".into(),
+                        ));
+                    }
+                    (SmallGraph::wheel(k), format!("W{k}"))
+                }
+                "B" => {
+                    let k = number(rest)?;
+                    if k < 1 {
+                        return Err(unusable("a book needs at least 1 page".into()));
+                    }
+                    (SmallGraph::book(k), format!("B{k}"))
+                }
+                _ => return Err(bad()),
+            }
+        };
+        if graph.edges().is_empty() {
+            return Err(unusable(
+                "the graph has no edge, so every colouring contains it".into(),
+            ));
+        }
+        if graph.vertex_count() > MAX_GRAPH_VERTICES {
+            return Err(unusable(format!(
+                "{} vertices; forbidden graphs may have at most {MAX_GRAPH_VERTICES}",
+                graph.vertex_count()
+            )));
+        }
+        // Isolated vertices do not change which colourings contain the graph once the
+        // order is large enough, but they do change its vertex count: keep them.
+        if graph.is_complete() {
+            return Ok(Forbidden::Clique(graph.vertex_count()));
+        }
+        Ok(Forbidden::Graph(NamedGraph {
+            token: canonical,
+            graph,
+        }))
     }
 }
 
 impl fmt::Display for Forbidden {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        match *self {
+        match self {
             Forbidden::Clique(k) => write!(f, "K{k}"),
+            Forbidden::Graph(g) => f.write_str(&g.token),
         }
     }
 }
@@ -105,18 +274,25 @@ impl RamseySpec {
     }
 
     /// The forbidden graph of colour `colour` (1-based).
-    pub fn forbidden_in(&self, colour: usize) -> Forbidden {
-        self.forbidden[colour - 1]
+    pub fn forbidden_in(&self, colour: usize) -> &Forbidden {
+        &self.forbidden[colour - 1]
     }
 
-    /// The forbidden clique size of each colour, in colour order.
+    /// Whether every colour forbids a clique (the classical Ramsey numbers).
+    pub fn is_cliques(&self) -> bool {
+        self.forbidden.iter().all(|g| g.clique_size().is_some())
+    }
+
+    /// The forbidden clique size of each colour, in colour order, when every colour
+    /// forbids a clique.
+    pub fn clique_sizes_if_cliques(&self) -> Option<Vec<usize>> {
+        self.forbidden.iter().map(Forbidden::clique_size).collect()
+    }
+
+    /// The forbidden clique size of each colour; for a graph entry, its vertex
+    /// count (callers that need true cliques check [`Self::is_cliques`] first).
     pub fn clique_sizes(&self) -> Vec<usize> {
-        self.forbidden
-            .iter()
-            .map(|g| match *g {
-                Forbidden::Clique(k) => k,
-            })
-            .collect()
+        self.forbidden.iter().map(Forbidden::vertex_count).collect()
     }
 }
 
@@ -130,20 +306,7 @@ impl FromStr for RamseySpec {
         }
         let mut forbidden = Vec::new();
         for (index, raw) in text.split(',').enumerate() {
-            let token = raw.trim();
-            let digits = token
-                .strip_prefix('K')
-                .or_else(|| token.strip_prefix('k'))
-                .unwrap_or(token);
-            let size = digits
-                .parse::<usize>()
-                .ok()
-                .filter(|_| digits.bytes().all(|b| b.is_ascii_digit()))
-                .ok_or_else(|| SpecError::BadEntry {
-                    position: index + 1,
-                    token: token.to_string(),
-                })?;
-            forbidden.push(Forbidden::Clique(size));
+            forbidden.push(Forbidden::parse_entry(index + 1, raw.trim())?);
         }
         RamseySpec::new(forbidden)
     }
@@ -158,6 +321,7 @@ impl fmt::Display for RamseySpec {
             }
             match graph {
                 Forbidden::Clique(k) => write!(f, "{k}")?,
+                Forbidden::Graph(g) => f.write_str(&g.token)?,
             }
         }
         Ok(())

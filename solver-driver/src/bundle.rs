@@ -44,7 +44,13 @@ pub struct Claim {
     /// `R(4,4) <= 18`
     pub statement: String,
     pub spec: String,
-    pub clique_sizes: Vec<usize>,
+    /// Present when every colour forbids a clique.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub clique_sizes: Option<Vec<usize>>,
+    /// The specification's entries, present when a colour forbids another graph
+    /// (`["C4", "4"]`); the checker reads them with its own parser.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub forbidden: Option<Vec<String>>,
     pub order: usize,
     pub meaning: String,
 }
@@ -126,16 +132,19 @@ pub fn hash_file(path: &Path) -> io::Result<(String, u64)> {
 /// The claim part of a manifest.
 pub fn claim_of(encoding: &CliqueEncoding) -> Claim {
     let instance = encoding.instance();
-    let sizes: Vec<usize> = instance.spec().clique_sizes();
-    let colours: Vec<String> = sizes
+    let spec = instance.spec();
+    let colours: Vec<String> = spec
+        .forbidden()
         .iter()
         .enumerate()
-        .map(|(i, k)| format!("a colour-{} K{}", i + 1, k))
+        .map(|(i, g)| format!("a colour-{} {g}", i + 1))
         .collect();
+    let entries: Vec<String> = spec.to_string().split(',').map(String::from).collect();
     Claim {
         statement: format!("R({}) <= {}", instance.spec(), instance.order()),
         spec: instance.spec().to_string(),
-        clique_sizes: sizes,
+        clique_sizes: spec.clique_sizes_if_cliques(),
+        forbidden: (!spec.is_cliques()).then_some(entries),
         order: instance.order(),
         meaning: format!(
             "every {}-colouring of the edges of K_{} contains {}",

@@ -15,6 +15,9 @@
 //!    fixed, then the same with a random fifth of them released. The slice doubles
 //!    each round.
 //!
+//! Specifications with forbidden graphs other than cliques go to the SAT portfolio
+//! ([`crate::portfolio`]) alone.
+//!
 //! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
 //! one thread, stages 1 and 2 run first and then worker 0 alone (no stage 3).
 
@@ -50,6 +53,11 @@ pub fn hybrid_search(
     progress: &SearchProgress,
     mut tick: impl FnMut(Duration),
 ) -> Result<SearchReport, SearchError> {
+    if !spec.is_cliques() {
+        // The structured families and local search are written for cliques; other
+        // forbidden graphs go to the SAT portfolio alone.
+        return crate::portfolio::search(formula, spec, options, progress, tick);
+    }
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
     let threads = options.threads.max(1);

@@ -14,11 +14,12 @@ pub fn to_matrix(colouring: &Colouring) -> ColourMatrix {
     matrix
 }
 
-/// The checker's claim for a specification.
+/// The checker's claim for a specification, read by the checker's own parser from
+/// the specification's text (so a disagreement between the two parsers shows up as
+/// a rejected witness rather than passing silently).
 pub fn to_claim(spec: &RamseySpec) -> Claim {
-    Claim {
-        clique_sizes: spec.clique_sizes(),
-    }
+    Claim::parse(&spec.to_string())
+        .expect("the checker reads every specification the encoder writes")
 }
 
 /// The checker's verdict on a colouring for a specification.

@@ -46,7 +46,7 @@ fn a_checked_colouring_exists_one_below_each_classical_value() {
             // Through the file format and the checker's own parser, as a referee would.
             let text = colouring_text(&instance, &colouring, &[]);
             let file = parse_colouring_file("witness", &text).unwrap();
-            assert_eq!(file.claim.clique_sizes, value.cliques);
+            assert_eq!(file.claim.clique_sizes(), Some(value.cliques.to_vec()));
             assert!(
                 check_colouring(&file.matrix, &file.claim).is_valid(),
                 "{instance}"

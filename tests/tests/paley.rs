@@ -8,9 +8,7 @@ use ramsift_encoder::Colouring;
 use ramsift_tests::constructions::{paley, quadratic_residues};
 
 fn claim44() -> Claim {
-    Claim {
-        clique_sizes: vec![4, 4],
-    }
+    Claim::cliques(&[4, 4])
 }
 
 /// Plain brute force: is there a monochromatic 4-subset?

@@ -31,13 +31,7 @@ fn family(orbits: &EdgeOrbits, sizes: &[usize]) -> FamilyOutcome {
 }
 
 fn is_valid(colouring: &ramsift_encoder::Colouring, sizes: &[usize]) -> bool {
-    check_colouring(
-        &to_matrix(colouring),
-        &Claim {
-            clique_sizes: sizes.to_vec(),
-        },
-    )
-    .is_valid()
+    check_colouring(&to_matrix(colouring), &Claim::cliques(sizes)).is_valid()
 }
 
 #[test]

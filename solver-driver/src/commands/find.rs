@@ -196,7 +196,7 @@ pub fn run(args: &FindArgs) -> Result<u8> {
         match &report.result {
             SearchResult::Found { colouring, found_by } => {
                 println!(
-                    "FOUND {instance}: a colouring with no monochromatic forbidden clique, so R({}) > {} ({:.2}s, {} attempts, {found_by})",
+                    "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({}) > {} ({:.2}s, {} attempts, {found_by})",
                     instance.spec(),
                     instance.order(),
                     report.elapsed.as_secs_f64(),

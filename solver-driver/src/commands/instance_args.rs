@@ -8,7 +8,8 @@ use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, Symm
 
 #[derive(Args, Clone, Debug)]
 pub struct InstanceArgs {
-    /// Forbidden clique size of each colour, comma separated (e.g. 4,4 or 3,3,3).
+    /// Forbidden graph of each colour, comma separated: clique sizes (4,4 or 3,3,3) or
+    /// graphs (C4,K4; entries Kk, Kk-e, Ck, Pk, Sk, Ka:b, Wk, Bk, G6:…, E:0-1/1-2…).
     #[arg(value_name = "SPEC")]
     pub spec: String,
     /// Order n of the complete graph K_n whose edges are coloured.
@@ -28,9 +29,15 @@ impl InstanceArgs {
         Ok(Instance::new(spec, self.order)?)
     }
 
-    /// The encoding with the symmetry schemes named by `symmetry` (`none`, or a comma list).
+    /// The encoding with the symmetry schemes named by `symmetry` (`none`, a comma
+    /// list, or `default`: every scheme that applies to the specification).
     pub fn encoding(&self, symmetry: &str) -> Result<CliqueEncoding> {
         let instance = self.instance()?;
+        let symmetry = match symmetry {
+            "default" if instance.spec().is_cliques() => "colour-swap,lex-leader,degree-bounds",
+            "default" => "colour-swap,lex-leader",
+            other => other,
+        };
         let symmetry: SymmetrySet = symmetry.parse().context("--symmetry")?;
         let limits = EncodingLimits {
             max_clauses: self.max_clauses,

@@ -15,8 +15,11 @@ use ramsift_driver::witness::{colouring_text, write_witness_files};
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
 
-/// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements).
-pub const DEFAULT_REFUTE_SYMMETRY: &str = "colour-swap,lex-leader,degree-bounds";
+/// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements):
+/// `default` means colour-swap, lex-leader and degree-bounds when every colour forbids
+/// a clique, and colour-swap and lex-leader otherwise (degree bounds rest on clique
+/// Ramsey numbers).
+pub const DEFAULT_REFUTE_SYMMETRY: &str = "default";
 
 #[derive(Args, Debug)]
 pub struct RefuteArgs {
@@ -25,7 +28,9 @@ pub struct RefuteArgs {
     /// The bundle directory (created if needed).
     #[arg(long, value_name = "DIR")]
     pub out: PathBuf,
-    /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
+    /// Symmetry breaking: default (all three for cliques; colour-swap and lex-leader
+    /// for other graphs), none, or a comma list of colour-swap, lex-leader,
+    /// degree-bounds.
     #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
     pub symmetry: String,
     /// Write the DRAT trace as text instead of binary.

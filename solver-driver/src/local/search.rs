@@ -108,10 +108,14 @@ pub fn local_search(
             "local search handles orders 2 to {MAX_LOCAL_ORDER}; {order} is outside"
         )));
     }
+    let Some(sizes) = spec.clique_sizes_if_cliques() else {
+        return Err(SearchError::Backend(format!(
+            "local search handles specifications in which every colour forbids a clique; {spec} forbids other graphs"
+        )));
+    };
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
     let threads = options.threads.max(1);
-    let sizes = spec.clique_sizes();
     let found: Mutex<Option<(Colouring, String)>> = Mutex::new(None);
     let near: Mutex<Vec<(u64, Colouring)>> = Mutex::new(Vec::new());
     let start_index = AtomicU64::new(0);

@@ -45,6 +45,8 @@ pub enum FamilyError {
         order: usize,
         orbits: usize,
     },
+    #[error("structured searches handle specifications in which every colour forbids a clique; {spec} forbids other graphs")]
+    NeedsCliques { spec: String },
     #[error("block-circulant colourings with {blocks} blocks need an order divisible by {blocks} (and blocks of at least 2 vertices); {order} is not")]
     BlockOrder { blocks: usize, order: usize },
 }

@@ -60,6 +60,12 @@ pub fn search_family(
     deadline: Option<Instant>,
 ) -> Result<FamilyReport, FamilySearchError> {
     let started = Instant::now();
+    if !spec.is_cliques() {
+        return Err(FamilyError::NeedsCliques {
+            spec: spec.to_string(),
+        }
+        .into());
+    }
     let formula = OrbitFormula::new(orbits, spec);
     let outcome = solve_orbit_formula(&formula, stop, deadline)?;
     let outcome = match outcome {
