@@ -172,7 +172,7 @@ fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
             };
             match verdict {
                 Verdict::Valid => println!(
-                    "VALID: {label}: a colouring of K_{} with no monochromatic forbidden clique ({}), so R({}) > {}",
+                    "VALID: {label}: a colouring of K_{} with no monochromatic forbidden graph ({}), so R({}) > {}",
                     matrix.order(),
                     describe(&claim),
                     claim,

@@ -229,7 +229,11 @@ fn malformed_manifests_exit_2() {
         b"{ \"bundle_format\": \"ramsift-bundle 1\" }",
     );
     assert_unreadable(&["bundle", p(d)], "no field claim.order");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"order": 6} }"#);
+    write(
+        d,
+        "manifest.json",
+        br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"order": 6} }"#,
+    );
     assert_unreadable(&["bundle", p(d)], "no field claim.clique_sizes");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", "Q9"], "order": 6} }"#);
     assert_unreadable(&["bundle", p(d)], "claim.forbidden: entry 2");

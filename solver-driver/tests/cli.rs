@@ -429,3 +429,51 @@ fn bad_structured_options_are_refused() {
         "--per-order",
     );
 }
+
+#[test]
+fn forbidden_graphs_work_end_to_end_and_bad_ones_are_refused() {
+    // R(C4,C4) = 6 (Chvátal & Harary 1972; DS1, from memory; confirmed both ways in
+    // tests/tests/graph_ramsey.rs).
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("w");
+    let o = ramsift(&["find", "C4,C4", "5", "--out", out.to_str().unwrap(), "-q"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let file = parse_colouring_file(
+        "w",
+        &std::fs::read_to_string(out.join("witness.colouring")).unwrap(),
+    )
+    .unwrap();
+    assert_eq!(file.claim.to_string(), "C4,C4");
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    assert_eq!(
+        ramsift(&["find", "C4,C4", "6", "-q"]).status.code(),
+        Some(20)
+    );
+
+    assert_bad_input(&["find", "C2,4", "5"], "at least 3 vertices");
+    assert_bad_input(&["find", "Q4,4", "5"], "entry 1");
+    assert_bad_input(&["find", "G6:D,4", "5"], "graph6");
+    assert_bad_input(&["find", "E:0-0/1-2,4", "5"], "loop");
+    assert_bad_input(&["find", "C11,3", "12"], "at most 10");
+    assert_bad_input(&["find", "C4,4", "3"], "more vertices than K_3");
+    assert_bad_input(
+        &[
+            "refute",
+            "C4,4",
+            "10",
+            "--symmetry",
+            "degree-bounds",
+            "--out",
+            out.to_str().unwrap(),
+        ],
+        "degree-bounds",
+    );
+    assert_bad_input(
+        &["find", "C4,4", "9", "--circulant"],
+        "structured searches handle",
+    );
+    assert_bad_input(
+        &["find", "C4,4", "9", "--method", "local"],
+        "local search handles",
+    );
+}

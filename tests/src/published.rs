@@ -50,3 +50,50 @@ pub const TRIANGLE_FREE_K5_COLOURINGS: usize = 12;
 /// t = 6 is the first strict case (16 < R(3,6) − 1 = 17), witnessed by the circulant
 /// graph on 16 vertices with distances {1, 3, 8} (OEIS A000789, example).
 pub const LARGEST_CIRCULANT_3T: &[(usize, usize)] = &[(3, 5), (4, 8), (5, 13), (6, 16)];
+
+/// A graph Ramsey number R(G, H) = value, with the specification entries naming G
+/// and H in ramsift's syntax.
+#[derive(Clone, Copy, Debug)]
+pub struct GraphRamseyValue {
+    pub spec: &'static str,
+    pub value: usize,
+    pub source: &'static str,
+}
+
+/// Small graph Ramsey numbers. Chvátal & Harary, "Generalized Ramsey theory for
+/// graphs III: small off-diagonal numbers", Pacific J. Math. 41 (1972), and
+/// Radziszowski DS1 (sections on cycles and on small graphs). The entries marked
+/// "from memory" were recalled, not read in the source; every one is confirmed in
+/// both directions by these tests (a witness at R − 1 and a checked refutation at R).
+pub const GRAPH_VALUES: &[GraphRamseyValue] = &[
+    GraphRamseyValue {
+        spec: "C4,C4",
+        value: 6,
+        source: "Chvátal & Harary 1972; DS1 (from memory)",
+    },
+    GraphRamseyValue {
+        spec: "3,C4",
+        value: 7,
+        source: "Chvátal & Harary 1972; DS1 (from memory)",
+    },
+    GraphRamseyValue {
+        spec: "C4,4",
+        value: 10,
+        source: "Chvátal & Harary 1972; DS1 (from memory)",
+    },
+    GraphRamseyValue {
+        spec: "C5,C5",
+        value: 9,
+        source: "R(C_n,C_n) = 2n - 1 for odd n >= 5 (Rosta 1973; Faudree & Schelp 1974; DS1)",
+    },
+    GraphRamseyValue {
+        spec: "K4-e,K4-e",
+        value: 10,
+        source: "Chvátal & Harary 1972; DS1 (from memory)",
+    },
+    GraphRamseyValue {
+        spec: "S3,S3",
+        value: 6,
+        source: "R(K1,n, K1,m) = n + m - e, e = 1 iff n and m are both even (Harary 1972; DS1; from memory)",
+    },
+];

@@ -36,6 +36,29 @@ proptest! {
         prop_assert_eq!(satisfies, accepted);
     }
 
+    /// The same for forbidden graphs other than cliques: the encoder's one clause per
+    /// copy against the checker's own subgraph search.
+    #[test]
+    fn satisfies_cnf_iff_checker_accepts_for_graphs(
+        entries in proptest::collection::vec(
+            proptest::sample::select(vec!["C4", "C5", "P4", "S3", "K4-e", "K2:3", "W4", "B2", "3", "G6:Dhc", "E:0-1/1-2/2-3/3-0/0-2"]),
+            2..=3,
+        ),
+        order in 5usize..=7,
+        words in proptest::collection::vec(any::<u64>(), 1..4),
+    ) {
+        let spec: RamseySpec = entries.join(",").parse().unwrap();
+        let instance = Instance::new(spec, order).unwrap();
+        let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+        let colouring = colouring_from(order, entries.len(), &words);
+        let values = encoding.variables().assignment_of(&colouring);
+        let satisfies = encoding.clauses().iter().all(|c| {
+            c.iter().any(|&l| values[l.unsigned_abs() as usize - 1] == (l > 0))
+        });
+        let accepted = check_colouring(&to_matrix(&colouring), &to_claim(instance.spec())).is_valid();
+        prop_assert_eq!(satisfies, accepted);
+    }
+
     #[test]
     fn graph6_round_trips(order in 0usize..=100, words in proptest::collection::vec(any::<u64>(), 1..8)) {
         let colouring = colouring_from(order, 2, &words);

@@ -415,3 +415,54 @@ fn damaged_bundles_fail() {
     );
     assert!(rejected >= 30);
 }
+
+#[test]
+fn graph_bundle_mutants_are_rejected() {
+    // R(C4,K4) = 10 (Chvátal & Harary 1972; DS1, from memory, confirmed in
+    // graph_ramsey.rs): a bundle for it, then claims about other graphs.
+    let base = tempfile::tempdir().unwrap();
+    let good = base.path().join("good");
+    let instance = Instance::new("C4,4".parse::<RamseySpec>().unwrap(), 10).unwrap();
+    let set: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
+    let encoding =
+        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+    let report = refute(
+        &encoding,
+        &good,
+        &RefuteOptions::default(),
+        &AtomicBool::new(false),
+        &AtomicU64::new(0),
+    )
+    .unwrap();
+    assert!(matches!(report.result, RefuteResult::Refuted { .. }));
+    assert!(check_bundle(&good, &[]).unwrap().passed());
+    // Each list names a different claim (K2:2 would be C4 itself, so it is absent).
+    let claims: [&[&str]; 7] = [
+        &["C5", "4"],
+        &["4", "C4"],
+        &["C4", "3"],
+        &["C4", "5"],
+        &["P4", "4"],
+        &["C4", "K4-e"],
+        &["C4", "4", "4"],
+    ];
+    let mut rejected = 0;
+    for (i, entries) in claims.iter().enumerate() {
+        let dir = base.path().join(format!("g{i}"));
+        copy_dir(&good, &dir);
+        edit_manifest(&dir, |m| {
+            m["claim"]["forbidden"] = serde_json::json!(entries)
+        });
+        match check_bundle(&dir, &[]) {
+            Ok(verdict) => assert!(!verdict.passed(), "FALSE PASS for claim {entries:?}"),
+            Err(_unreadable) => {}
+        }
+        rejected += 1;
+    }
+    // And the order: R(C4,K4) > 9, so a claim at 9 must fail.
+    let dir = base.path().join("order9");
+    copy_dir(&good, &dir);
+    edit_manifest(&dir, |m| m["claim"]["order"] = 9.into());
+    assert!(!check_bundle(&dir, &[]).map(|v| v.passed()).unwrap_or(false));
+    assert_eq!(rejected, claims.len());
+}

@@ -1,0 +1,127 @@
+//! Graph Ramsey numbers R(G, H) for small graphs, both directions: a verified
+//! witness at R − 1 and a refutation bundle at R that the checker passes, plus the
+//! copy count of the encoding against n!/((n−v)!·|Aut G|).
+
+use std::sync::atomic::{AtomicBool, AtomicU64};
+use std::time::Duration;
+
+use ramsift_checker::bundle::check_bundle;
+use ramsift_checker::check_colouring;
+use ramsift_driver::formula::Formula;
+use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
+use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::verify::{to_claim, to_matrix};
+use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_tests::published::GRAPH_VALUES;
+
+fn instance(spec: &str, n: usize) -> Instance {
+    Instance::new(spec.parse::<RamseySpec>().unwrap(), n).unwrap()
+}
+
+#[test]
+fn witnesses_below_and_certified_refutations_at_each_value() {
+    for value in GRAPH_VALUES {
+        let below = instance(value.spec, value.value - 1);
+        let encoding = CliqueEncoding::new(&below, &EncodingLimits::default()).unwrap();
+        let options = SearchOptions {
+            threads: 2,
+            timeout: Some(Duration::from_secs(120)),
+            ..SearchOptions::default()
+        };
+        let report = search(
+            &Formula::from_encoding(&encoding),
+            below.spec(),
+            &options,
+            &SearchProgress::default(),
+            |_| {},
+        )
+        .unwrap();
+        let SearchResult::Found { colouring, .. } = report.result else {
+            panic!(
+                "{}: a colouring of K_{} exists ({})",
+                value.spec,
+                value.value - 1,
+                value.source
+            );
+        };
+        // The checker's own subgraph search, from the specification's text.
+        assert!(
+            check_colouring(&to_matrix(&colouring), &to_claim(below.spec())).is_valid(),
+            "{}",
+            value.spec
+        );
+
+        let at = instance(value.spec, value.value);
+        let symmetry: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
+        let encoding =
+            CliqueEncoding::with_symmetry(&at, &symmetry, &EncodingLimits::default()).unwrap();
+        let dir = tempfile::tempdir().unwrap();
+        let out = dir.path().join("bundle");
+        let report = refute(
+            &encoding,
+            &out,
+            &RefuteOptions {
+                timeout: Some(Duration::from_secs(120)),
+                ..RefuteOptions::default()
+            },
+            &AtomicBool::new(false),
+            &AtomicU64::new(0),
+        )
+        .unwrap();
+        assert!(
+            matches!(report.result, RefuteResult::Refuted { .. }),
+            "{}: R = {} ({})",
+            value.spec,
+            value.value,
+            value.source
+        );
+        let verdict = check_bundle(&out, &[]).unwrap();
+        assert!(verdict.passed(), "{}: {:?}", value.spec, verdict.failure);
+        assert!(verdict.unconditional());
+        assert!(
+            verdict.claim.ends_with(&format!("<= {}", value.value)),
+            "{}",
+            verdict.claim
+        );
+    }
+}
+
+#[test]
+fn one_clause_per_copy() {
+    // Copies of G in K_n: n!/((n−v)!·|Aut G|) (common practice). |Aut| values:
+    // C_k dihedral (2k), K_{1,3} (3! = 6), W_5 (10), B_2 = K_4 − e (4), P_4 (2).
+    for (spec, n, v, aut) in [
+        ("C4,2", 8, 4, 8u128),
+        ("C5,2", 9, 5, 10),
+        ("S3,2", 7, 4, 6),
+        ("W5,2", 8, 6, 10),
+        ("K4-e,2", 9, 4, 4),
+        ("P4,2", 10, 4, 2),
+        ("C7,2", 9, 7, 14),
+    ] {
+        let inst = instance(spec, n);
+        let falling: u128 = (n - v + 1..=n).map(|x| x as u128).product();
+        let copies = falling / aut;
+        // The second colour forbids K2 (every edge): C(n,2) one-literal clauses.
+        let k2 = (n * (n - 1) / 2) as u128;
+        assert_eq!(
+            CliqueEncoding::count_clauses(&inst),
+            Some(copies + k2),
+            "{spec} at {n}"
+        );
+        let encoding = CliqueEncoding::new(&inst, &EncodingLimits::default()).unwrap();
+        let clauses = encoding.clauses();
+        assert_eq!(clauses.len() as u128, copies + k2);
+        // No two clauses name the same copy.
+        let mut sets: Vec<Vec<i32>> = clauses
+            .into_iter()
+            .map(|mut c| {
+                c.sort_unstable();
+                c
+            })
+            .collect();
+        sets.sort();
+        sets.dedup();
+        assert_eq!(sets.len() as u128, copies + k2, "{spec}: repeated copies");
+    }
+}
