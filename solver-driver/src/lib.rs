@@ -14,12 +14,17 @@
 //! * [`witness`] writes colourings (our text format, graph6) and the JSON summary.
 //! * [`refute`] proves unsatisfiability with a DRAT trace and writes the
 //!   certificate [`bundle`].
+//! * [`bounds`] computes the bounds report (probabilistic, recursive, published,
+//!   certified on disk).
+//! * [`draw`] writes figures of colourings (SVG, TikZ).
 //! * [`exit_codes`] are the SAT-competition-style exit codes of the binary.
 
 pub mod attempt;
+pub mod bounds;
 pub mod bundle;
 #[cfg(feature = "cadical")]
 pub mod cadical_backend;
+pub mod draw;
 pub mod exit_codes;
 pub mod formula;
 pub mod graph6;

@@ -40,6 +40,10 @@ enum Command {
     /// Sharded refutation: plan cubes, run them (locally or on Slurm), merge.
     #[command(subcommand)]
     Shard(commands::shard::ShardCommand),
+    /// Theoretical bounds, the published range, and what bundles on disk certify.
+    Bounds(commands::bounds::BoundsArgs),
+    /// Draw a colouring as SVG or TikZ (circle layout or adjacency matrix).
+    Draw(commands::draw::DrawArgs),
     /// Write the CNF encoding of an instance as DIMACS (gzip if the name ends in .gz).
     Encode(commands::encode::EncodeArgs),
     /// A short built-in session: find and check witnesses for classical bounds.
@@ -67,6 +71,8 @@ fn main() -> ExitCode {
         Command::Scan(args) => commands::scan::run(&args),
         Command::Shard(command) => commands::shard::run(&command),
         Command::Demo(args) => commands::demo::run(&args),
+        Command::Bounds(args) => commands::bounds::run(&args),
+        Command::Draw(args) => commands::draw::run(&args),
     };
     match result {
         Ok(code) => ExitCode::from(code),

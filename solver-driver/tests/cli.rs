@@ -477,3 +477,118 @@ fn forbidden_graphs_work_end_to_end_and_bad_ones_are_refused() {
         "local search handles",
     );
 }
+
+#[test]
+fn bounds_report_and_certificates_on_disk() {
+    let o = ramsift(&["bounds", "5,5", "--json"]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    let report: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    let value = |bound: &str| {
+        report["rows"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|r| r["bound"] == bound)
+            .unwrap()["value"]
+            .clone()
+    };
+    // Erdős 1947 at k = 5: C(11,5)·2^-9 = 462/512 < 1 ≤ 792/512 = C(12,5)·2^-9.
+    assert_eq!(value("first moment"), "11");
+    // Published range [43, 46] (Exoo 1989; Angeltveit & McKay 2024; DS1).
+    assert_eq!(value("published range"), "[43, 46]");
+
+    // Certificates: a refutation of R(3,3) <= 6 and a witness of R(3,3) > 5.
+    let dir = tempfile::tempdir().unwrap();
+    let bundle = dir.path().join("r33-6");
+    assert_eq!(
+        ramsift(&[
+            "refute",
+            "3,3",
+            "6",
+            "--out",
+            bundle.to_str().unwrap(),
+            "-q"
+        ])
+        .status
+        .code(),
+        Some(20)
+    );
+    let witness = dir.path().join("r33-5");
+    assert_eq!(
+        ramsift(&["find", "3,3", "5", "--out", witness.to_str().unwrap(), "-q"])
+            .status
+            .code(),
+        Some(10)
+    );
+    let o = ramsift(&[
+        "bounds",
+        "3,3",
+        "--bundles",
+        dir.path().to_str().unwrap(),
+        "--json",
+    ]);
+    let report: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    let kinds: Vec<(String, u64)> = report["certified"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|c| {
+            (
+                c["kind"].as_str().unwrap().to_string(),
+                c["order"].as_u64().unwrap(),
+            )
+        })
+        .collect();
+    assert_eq!(
+        kinds,
+        vec![("lower".to_string(), 5), ("upper".to_string(), 6)]
+    );
+    assert_bad_input(&["bounds", "C4,4"], "for cliques");
+}
+
+#[test]
+fn draw_writes_svg_and_tikz_and_refuses_bad_input() {
+    let dir = tempfile::tempdir().unwrap();
+    let witness = dir.path().join("w");
+    ramsift(&[
+        "find",
+        "3,5",
+        "13",
+        "--circulant",
+        "--out",
+        witness.to_str().unwrap(),
+        "-q",
+    ]);
+    for (name, layout, marker) in [
+        ("f.svg", "circle", "<svg"),
+        ("m.svg", "matrix", "url(#fill2)"),
+        ("f.tex", "circle", "\\begin{tikzpicture}"),
+    ] {
+        let out = dir.path().join(name);
+        let o = ramsift(&[
+            "draw",
+            witness.join("witness.colouring").to_str().unwrap(),
+            "--out",
+            out.to_str().unwrap(),
+            "--layout",
+            layout,
+        ]);
+        assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+        assert!(std::fs::read_to_string(&out).unwrap().contains(marker));
+    }
+    let w = witness.join("witness.colouring");
+    let w = w.to_str().unwrap();
+    let png = dir.path().join("f.png");
+    assert_bad_input(&["draw", w, "--out", png.to_str().unwrap()], ".svg");
+    assert!(!png.exists());
+    assert_bad_input(
+        &["draw", w, "--out", "x.svg", "--colours", "3"],
+        "--colours",
+    );
+    let broken = dir.path().join("broken.colouring");
+    std::fs::write(&broken, "ramsift-colouring spec=3,3 order=3\n. 1\n").unwrap();
+    assert_bad_input(
+        &["draw", broken.to_str().unwrap(), "--out", "x.svg"],
+        ":2: row 0 has 2 entries",
+    );
+}

@@ -1,6 +1,8 @@
 //! The subcommands of the `ramsift` binary, one file each, and what they share.
 
+pub mod bounds;
 pub mod demo;
+pub mod draw;
 pub mod encode;
 pub mod find;
 pub mod instance_args;

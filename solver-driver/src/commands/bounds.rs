@@ -1,0 +1,168 @@
+//! `ramsift bounds SPEC`: the theoretical bounds, the published range, and what is
+//! certified on disk, as a plain table or JSON.
+
+use std::path::PathBuf;
+
+use anyhow::{Context, Result};
+use clap::Args;
+use serde::Serialize;
+
+use ramsift_checker::Claim;
+use ramsift_driver::bounds::certified::{certificates, Certificate};
+use ramsift_driver::bounds::probabilistic::{deletion_lower, erdos_lower, spencer_lower};
+use ramsift_driver::bounds::published::{exact, published};
+use ramsift_driver::bounds::recursion::{erdos_szekeres, recursive_upper};
+use ramsift_driver::exit_codes;
+use ramsift_encoder::RamseySpec;
+
+/// Orders searched by the probabilistic bounds.
+const SEARCH_LIMIT: u64 = 1 << 22;
+
+#[derive(Args, Debug)]
+pub struct BoundsArgs {
+    /// Forbidden clique size of each colour, comma separated (e.g. 5,5 or 3,3,4).
+    #[arg(value_name = "SPEC")]
+    pub spec: String,
+    /// Also list the bundles and witnesses below this directory that certify a
+    /// bound for SPEC (each is checked first).
+    #[arg(long, value_name = "DIR")]
+    pub bundles: Option<PathBuf>,
+    /// Print the report as JSON.
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Serialize)]
+struct Row {
+    bound: &'static str,
+    /// "R > n" or "R <= n".
+    kind: &'static str,
+    value: Option<String>,
+    source: String,
+}
+
+#[derive(Serialize)]
+struct Report {
+    spec: String,
+    rows: Vec<Row>,
+    certified: Vec<Certificate>,
+}
+
+pub fn run(args: &BoundsArgs) -> Result<u8> {
+    let spec: RamseySpec = args
+        .spec
+        .parse()
+        .with_context(|| format!("specification {:?}", args.spec))?;
+    let sizes = spec.clique_sizes_if_cliques().ok_or_else(|| {
+        anyhow::anyhow!("bounds: the probabilistic and recursive bounds are for cliques; {spec} forbids other graphs")
+    })?;
+    let r = sizes.len();
+    let mut rows = vec![
+        Row {
+            bound: "first moment",
+            kind: "R >",
+            value: Some(erdos_lower(&sizes, SEARCH_LIMIT).to_string()),
+            source: format!("Erdős 1947: largest n with Σ C(n,k_c)·{r}^(−C(k_c,2)) < 1"),
+        },
+        Row {
+            bound: "deletion",
+            kind: "R >",
+            value: Some(deletion_lower(&sizes, SEARCH_LIMIT).to_string()),
+            source: "alteration: max over n of n − ⌊E(n)⌋ (Alon & Spencer ch. 3)".into(),
+        },
+        Row {
+            bound: "local lemma",
+            kind: "R >",
+            value: spencer_lower(&sizes, SEARCH_LIMIT).map(|n| n.to_string()),
+            source:
+                "Spencer 1975: e·(C(k,2)·C(n−2,k−2)+1)·2^(1−C(k,2)) < 1 (two equal colours only)"
+                    .into(),
+        },
+        Row {
+            bound: "recursion",
+            kind: "R <=",
+            value: Some(recursive_upper(&sizes, &|_| None).to_string()),
+            source: "R(s,t) ≤ R(s−1,t)+R(s,t−1), one less if both even; from R(s,2) = s".into(),
+        },
+        Row {
+            bound: "recursion on published values",
+            kind: "R <=",
+            value: Some(recursive_upper(&sizes, &exact).to_string()),
+            source: "the same recursion, starting from the exact values of the table".into(),
+        },
+        Row {
+            bound: "Erdős–Szekeres",
+            kind: "R <=",
+            value: erdos_szekeres(&sizes).map(|v| v.to_string()),
+            source: "C(s+t−2, s−1) (two colours only)".into(),
+        },
+    ];
+    match published(&sizes) {
+        Some(p) if p.lower == p.upper => rows.push(Row {
+            bound: "published value",
+            kind: "R =",
+            value: Some(p.lower.to_string()),
+            source: format!("{}; Radziszowski DS1", p.source),
+        }),
+        Some(p) => rows.push(Row {
+            bound: "published range",
+            kind: "R in",
+            value: Some(format!("[{}, {}]", p.lower, p.upper)),
+            source: format!("{}; Radziszowski DS1", p.source),
+        }),
+        None => rows.push(Row {
+            bound: "published range",
+            kind: "R in",
+            value: None,
+            source: "not in the embedded table (Radziszowski DS1 revision 17)".into(),
+        }),
+    }
+    let certified = match &args.bundles {
+        Some(dir) => {
+            let claim = Claim::parse(&spec.to_string()).map_err(|e| anyhow::anyhow!(e))?;
+            certificates(dir, &claim).with_context(|| format!("reading {}", dir.display()))?
+        }
+        None => Vec::new(),
+    };
+    let report = Report {
+        spec: spec.to_string(),
+        rows,
+        certified,
+    };
+    if args.json {
+        println!("{}", serde_json::to_string_pretty(&report)?);
+        return Ok(exit_codes::SUCCESS);
+    }
+    println!("Bounds for R({spec}):");
+    let width = report
+        .rows
+        .iter()
+        .map(|r| r.bound.chars().count())
+        .max()
+        .unwrap_or(0);
+    for row in &report.rows {
+        let value = match &row.value {
+            Some(v) => format!("{} {v}", row.kind),
+            None => "n/a".to_string(),
+        };
+        println!(
+            "  {:<width$}  {:<16}  {}",
+            row.bound,
+            value,
+            row.source,
+            width = width
+        );
+    }
+    if let Some(dir) = &args.bundles {
+        if report.certified.is_empty() {
+            println!("certified below {}: nothing for R({spec})", dir.display());
+        } else {
+            println!("certified below {} (each checked now):", dir.display());
+            for c in &report.certified {
+                let what = if c.kind == "lower" { ">" } else { "<=" };
+                println!("  R({spec}) {what} {}  {}", c.order, c.path.display());
+            }
+        }
+    }
+    Ok(exit_codes::SUCCESS)
+}

@@ -1,0 +1,131 @@
+//! `ramsift draw FILE --out fig.svg|fig.tex`: a figure of a colouring for a paper.
+
+use std::path::PathBuf;
+
+use anyhow::{Context, Result};
+use clap::Args;
+
+use ramsift_checker::colouring_file::parse_colouring_file;
+use ramsift_checker::graph6::decode_graph6_file;
+use ramsift_checker::ColourMatrix;
+use ramsift_driver::draw::{svg, tikz, Figure, Layout};
+use ramsift_driver::exit_codes;
+use ramsift_encoder::atomic_file::write_atomically;
+
+#[derive(Args, Debug)]
+pub struct DrawArgs {
+    /// A colouring file (ramsift's format) or a graph6 file (first line; edges are
+    /// colour 1, non-edges colour 2).
+    #[arg(value_name = "FILE")]
+    pub file: PathBuf,
+    /// The figure: .svg for SVG, .tex for a TikZ picture.
+    #[arg(long, value_name = "FILE")]
+    pub out: PathBuf,
+    /// circle (vertices on a circle, edges in their colour's style) or matrix
+    /// (adjacency matrix, cells in their colour's fill).
+    #[arg(long, default_value = "circle", value_parser = ["circle", "matrix"])]
+    pub layout: String,
+    /// Colours drawn in the circle layout, comma separated (default: all).
+    #[arg(long, value_name = "LIST")]
+    pub colours: Option<String>,
+    /// Width of the drawing: pixels for SVG, centimetres for TikZ.
+    #[arg(long)]
+    pub size: Option<f64>,
+}
+
+pub fn run(args: &DrawArgs) -> Result<u8> {
+    let name = args.file.display().to_string();
+    let content = std::fs::read(&args.file).with_context(|| format!("reading {name}"))?;
+    let is_colouring_file = content
+        .split(|&b| b == b'\n')
+        .map(|l| l.trim_ascii())
+        .find(|l| !l.is_empty() && !l.starts_with(b"#"))
+        .is_some_and(|l| l.starts_with(b"ramsift-colouring"));
+    let (matrix, colours, title): (ColourMatrix, usize, String) = if is_colouring_file {
+        let text = String::from_utf8(content).map_err(|e| {
+            anyhow::anyhow!(
+                "{name}: not UTF-8 text at byte {}",
+                e.utf8_error().valid_up_to()
+            )
+        })?;
+        let file = parse_colouring_file(&name, &text)?;
+        let title = format!("a ({};{}) colouring", file.claim, file.matrix.order());
+        (file.matrix, file.claim.colours(), title)
+    } else {
+        let mut graphs = decode_graph6_file(&name, &content)?;
+        anyhow::ensure!(!graphs.is_empty(), "{name}: no graph6 line found");
+        let m = graphs.swap_remove(0);
+        let title = format!("a 2-colouring of K_{} (graph6: edges colour 1)", m.order());
+        (m, 2, title)
+    };
+    let n = matrix.order();
+    let mut cells = vec![0u8; n * n];
+    for i in 0..n {
+        for j in 0..n {
+            if i != j {
+                cells[i * n + j] = matrix.colour(i, j);
+            }
+        }
+    }
+    let shown: Vec<u8> = match &args.colours {
+        None => (1..=colours as u8).collect(),
+        Some(list) => list
+            .split(',')
+            .map(|t| {
+                t.trim()
+                    .parse::<u8>()
+                    .ok()
+                    .filter(|&c| c >= 1 && c as usize <= colours)
+                    .ok_or_else(|| {
+                        anyhow::anyhow!(
+                            "--colours {list}: expected colours 1 to {colours}, comma separated"
+                        )
+                    })
+            })
+            .collect::<Result<_>>()?,
+    };
+    let figure = Figure {
+        order: n,
+        colours,
+        cells,
+        shown,
+        title: Some(title),
+    };
+    let layout = if args.layout == "matrix" {
+        Layout::Matrix
+    } else {
+        Layout::Circle
+    };
+    let extension = args
+        .out
+        .extension()
+        .and_then(|e| e.to_str())
+        .unwrap_or("")
+        .to_ascii_lowercase();
+    let text = match extension.as_str() {
+        "svg" => {
+            let size = args.size.unwrap_or(480.0);
+            anyhow::ensure!(
+                (50.0..=20_000.0).contains(&size),
+                "--size {size}: expected 50 to 20000 pixels"
+            );
+            svg::render(&figure, layout, size)
+        }
+        "tex" => {
+            let size = args.size.unwrap_or(8.0);
+            anyhow::ensure!(
+                (1.0..=100.0).contains(&size),
+                "--size {size}: expected 1 to 100 centimetres"
+            );
+            tikz::render(&figure, layout, size)
+        }
+        _ => anyhow::bail!(
+            "--out {}: expected a name ending in .svg (SVG) or .tex (TikZ)",
+            args.out.display()
+        ),
+    };
+    write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
+        .with_context(|| format!("writing {}", args.out.display()))?;
+    println!("wrote {}", args.out.display());
+    Ok(exit_codes::SUCCESS)
+}
