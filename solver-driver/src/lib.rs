@@ -17,6 +17,8 @@
 //! * [`bounds`] computes the bounds report (probabilistic, recursive, published,
 //!   certified on disk).
 //! * [`draw`] writes figures of colourings (SVG, TikZ).
+//! * [`enumerate`] lists all colourings up to isomorphism (blocking clauses and
+//!   canonical forms).
 //! * [`exit_codes`] are the SAT-competition-style exit codes of the binary.
 
 pub mod attempt;
@@ -25,6 +27,7 @@ pub mod bundle;
 #[cfg(feature = "cadical")]
 pub mod cadical_backend;
 pub mod draw;
+pub mod enumerate;
 pub mod exit_codes;
 pub mod formula;
 pub mod graph6;

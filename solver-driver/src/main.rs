@@ -44,6 +44,8 @@ enum Command {
     Bounds(commands::bounds::BoundsArgs),
     /// Draw a colouring as SVG or TikZ (circle layout or adjacency matrix).
     Draw(commands::draw::DrawArgs),
+    /// List every colouring of K_N up to isomorphism (graph6 lines for two colours).
+    Enumerate(commands::enumerate::EnumerateArgs),
     /// Write the CNF encoding of an instance as DIMACS (gzip if the name ends in .gz).
     Encode(commands::encode::EncodeArgs),
     /// A short built-in session: find and check witnesses for classical bounds.
@@ -73,6 +75,7 @@ fn main() -> ExitCode {
         Command::Demo(args) => commands::demo::run(&args),
         Command::Bounds(args) => commands::bounds::run(&args),
         Command::Draw(args) => commands::draw::run(&args),
+        Command::Enumerate(args) => commands::enumerate::run(&args),
     };
     match result {
         Ok(code) => ExitCode::from(code),

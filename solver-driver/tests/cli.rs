@@ -592,3 +592,39 @@ fn draw_writes_svg_and_tikz_and_refuses_bad_input() {
         ":2: row 0 has 2 entries",
     );
 }
+
+#[test]
+fn enumerate_writes_one_graph6_line_per_class() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("r34-8.g6");
+    let o = ramsift(&[
+        "enumerate",
+        "3,4",
+        "8",
+        "--out",
+        out.to_str().unwrap(),
+        "--json",
+    ]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    // Three (3,4;8)-graphs (McKay's data page; DS1).
+    assert_eq!(summary["classes"], 3);
+    let graphs = decode_graph6_file("g", &std::fs::read(&out).unwrap()).unwrap();
+    assert_eq!(graphs.len(), 3);
+    let claim = ramsift_checker::Claim::cliques(&[3, 4]);
+    assert!(graphs.iter().all(|m| check_colouring(m, &claim).is_valid()));
+    // A timeout that cannot be met writes nothing and exits 1.
+    let late = dir.path().join("late.g6");
+    let o = ramsift(&[
+        "enumerate",
+        "4,4",
+        "16",
+        "--out",
+        late.to_str().unwrap(),
+        "--timeout",
+        "0.05",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    assert!(!late.exists());
+}

@@ -4,6 +4,7 @@ pub mod bounds;
 pub mod demo;
 pub mod draw;
 pub mod encode;
+pub mod enumerate;
 pub mod find;
 pub mod instance_args;
 pub mod progress;

@@ -1,0 +1,145 @@
+//! `ramsift enumerate SPEC N --out FILE`: every colouring up to isomorphism.
+//!
+//! The file holds one colouring per line: for two colours the colour-1 graph in
+//! graph6 (nothing else, so any graph6 reader takes it); for more colours the upper
+//! triangle of the colour matrix, row by row, as digits (colour of {0,1}, {0,2}, …,
+//! {0,n−1}, {1,2}, …), after comment lines starting with `#` that state the
+//! specification and the count.
+
+use std::path::PathBuf;
+use std::sync::atomic::AtomicBool;
+
+use anyhow::{Context, Result};
+use clap::Args;
+use serde::Serialize;
+
+use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
+use ramsift_driver::exit_codes;
+use ramsift_driver::witness::colour_one_graph6;
+use ramsift_encoder::atomic_file::write_atomically;
+
+use super::instance_args::{timeout_of, InstanceArgs};
+use super::progress::{seconds, ProgressLine};
+
+#[derive(Args, Debug)]
+pub struct EnumerateArgs {
+    #[command(flatten)]
+    pub instance: InstanceArgs,
+    /// Where to write the colourings (graph6 lines for two colours).
+    #[arg(long, value_name = "FILE")]
+    pub out: PathBuf,
+    /// Count colourings that differ by permuting colours with equal forbidden
+    /// graphs as one.
+    #[arg(long)]
+    pub swap_colours: bool,
+    /// Give up after this many seconds (exit code 1; nothing is written).
+    #[arg(long, value_name = "SECONDS")]
+    pub timeout: Option<f64>,
+    /// Print the summary as JSON.
+    #[arg(long)]
+    pub json: bool,
+    /// No progress line on stderr.
+    #[arg(long, short)]
+    pub quiet: bool,
+}
+
+#[derive(Serialize)]
+struct Summary {
+    instance: String,
+    classes: usize,
+    labelled_models_enumerated: u64,
+    up_to: &'static str,
+    symmetry: String,
+    seconds: f64,
+    complete: bool,
+    file: Option<PathBuf>,
+}
+
+pub fn run(args: &EnumerateArgs) -> Result<u8> {
+    let instance = args.instance.instance()?;
+    let timeout = timeout_of(args.timeout)?;
+    let line = ProgressLine::new(args.quiet);
+    let stop = AtomicBool::new(false);
+    let started = std::time::Instant::now();
+    let result = enumerate(
+        &instance,
+        &EnumerateOptions {
+            swap_colours: args.swap_colours,
+            timeout,
+        },
+        &stop,
+        |models, classes| {
+            line.update(|| {
+                format!(
+                    "{instance}: {models} colourings enumerated, {classes} classes, {}",
+                    seconds(started.elapsed())
+                )
+            })
+        },
+    )?;
+    line.finish();
+    let up_to = if args.swap_colours {
+        "vertex relabelling and permutation of equal colours"
+    } else {
+        "vertex relabelling"
+    };
+    let mut summary = Summary {
+        instance: instance.to_string(),
+        classes: result.classes.len(),
+        labelled_models_enumerated: result.models,
+        up_to,
+        symmetry: result.symmetry.to_string(),
+        seconds: result.elapsed.as_secs_f64(),
+        complete: result.complete,
+        file: None,
+    };
+    if result.complete {
+        // Plain graph6 has no comment lines; the colour-digit format has a header.
+        let mut text = String::new();
+        if instance.colours() > 2 {
+            text.push_str(&format!(
+                "# ramsift {}: all {} colourings of {instance} up to {up_to}\n",
+                env!("CARGO_PKG_VERSION"),
+                result.classes.len()
+            ));
+            text.push_str(
+                "# one per line: colours of edges {0,1},{0,2},...,{1,2},... in row order\n",
+            );
+        }
+        for colouring in &result.classes {
+            if instance.colours() == 2 {
+                text.push_str(&colour_one_graph6(colouring));
+            } else {
+                let n = colouring.order();
+                for i in 0..n {
+                    for j in i + 1..n {
+                        text.push(char::from(b'0' + colouring.colour(i, j)));
+                    }
+                }
+            }
+            text.push('\n');
+        }
+        write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
+            .with_context(|| format!("writing {}", args.out.display()))?;
+        summary.file = Some(args.out.clone());
+    }
+    if args.json {
+        println!("{}", serde_json::to_string_pretty(&summary)?);
+    } else if result.complete {
+        println!(
+            "{} colouring(s) of {instance} up to {up_to} ({} labelled colourings enumerated under {}, {:.2}s)",
+            summary.classes, summary.labelled_models_enumerated, summary.symmetry, summary.seconds
+        );
+        println!("wrote {}", args.out.display());
+    } else {
+        println!(
+            "UNKNOWN {instance}: the time ran out after {} classes ({} colourings enumerated); nothing written",
+            summary.classes, summary.labelled_models_enumerated
+        );
+    }
+    Ok(if result.complete {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::UNKNOWN
+    })
+}

@@ -1,0 +1,163 @@
+//! Enumeration of all colourings up to isomorphism: incremental SAT with blocking
+//! clauses over the encoding with lex-leader symmetry breaking (which keeps at least
+//! one colouring of every isomorphism class, see `encoder::symmetry`), and
+//! [`canonical`] forms to keep one colouring per class.
+//!
+//! * Every model's colouring is blocked (a clause over the colour variables that
+//!   only it violates), so the loop ends when the formula with its blocking clauses
+//!   is unsatisfiable: every colouring satisfying the symmetry constraints has then
+//!   been seen.
+//! * With `swap_colours`, colourings that differ by permuting colours with equal
+//!   forbidden graphs are one class, and the colour-swap scheme is added too.
+
+pub mod canonical;
+
+use std::collections::HashMap;
+use std::io;
+use std::sync::atomic::AtomicBool;
+use std::time::{Duration, Instant};
+
+use varisat::{ExtendFormula, Lit, ProofFormat, Solver};
+
+use ramsift_encoder::edges::edge_index;
+use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, Scheme, SymmetrySet};
+
+use crate::interrupt::{InterruptSink, Limits, SinkReport};
+use crate::portfolio::SearchError;
+use crate::verify::verify_witness;
+use canonical::{canonical_form, colour_permutations, ColourTable};
+
+/// How an enumeration runs.
+#[derive(Clone, Debug, Default)]
+pub struct EnumerateOptions {
+    /// Identify colourings that differ by permuting colours with equal forbidden graphs.
+    pub swap_colours: bool,
+    pub timeout: Option<Duration>,
+}
+
+/// The classes found.
+#[derive(Clone, Debug)]
+pub struct Enumeration {
+    /// One colouring per class, in the order found.
+    pub classes: Vec<Colouring>,
+    /// Models enumerated (labelled colourings satisfying the symmetry constraints).
+    pub models: u64,
+    /// False when the time ran out before the enumeration finished.
+    pub complete: bool,
+    pub elapsed: Duration,
+    /// The symmetry schemes used to cut the labelled colourings down.
+    pub symmetry: SymmetrySet,
+}
+
+/// Enumerates the colourings of `instance` up to isomorphism; `progress(models,
+/// classes)` is called after each model.
+pub fn enumerate(
+    instance: &Instance,
+    options: &EnumerateOptions,
+    stop: &AtomicBool,
+    mut progress: impl FnMut(u64, usize),
+) -> Result<Enumeration, SearchError> {
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let schemes = if options.swap_colours {
+        "colour-swap,lex-leader"
+    } else {
+        "lex-leader"
+    };
+    let symmetry: SymmetrySet = schemes.parse().expect("known schemes");
+    let encoding = CliqueEncoding::with_symmetry(instance, &symmetry, &EncodingLimits::default())
+        .map_err(|e| SearchError::Backend(e.to_string()))?;
+    debug_assert!(!symmetry.contains(Scheme::DegreeBounds));
+    let vars = *encoding.variables();
+    let colour_vars = vars.colour_variable_count();
+    let n = instance.order();
+    let r = instance.colours();
+
+    let report = SinkReport::default();
+    let limits = Limits {
+        stop,
+        deadline,
+        budget_bytes: None,
+        bytes_seen: None,
+    };
+    let mut solver = Solver::new();
+    // The proof is discarded; it is how the deadline reaches the solver. varisat's
+    // own proof format, unlike DRAT, allows the clauses added between solves.
+    solver.write_proof(
+        InterruptSink::<io::Sink>::new(limits, None, &report),
+        ProofFormat::Varisat,
+    );
+    let mut buffer = Vec::new();
+    encoding
+        .for_each_clause::<()>(|clause| {
+            buffer.clear();
+            buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
+            solver.add_clause(&buffer);
+            Ok(())
+        })
+        .expect("adding clauses cannot fail");
+
+    let classes_of: Vec<String> = instance
+        .spec()
+        .forbidden()
+        .iter()
+        .map(|g| g.to_string())
+        .collect();
+    let maps = if options.swap_colours {
+        colour_permutations(&classes_of)
+    } else {
+        vec![(0..=r as u8).collect()]
+    };
+    let mut seen: HashMap<Vec<u8>, usize> = HashMap::new();
+    let mut classes = Vec::new();
+    let mut models = 0u64;
+    let mut complete = false;
+    loop {
+        match solver.solve() {
+            Ok(true) => {}
+            Ok(false) => {
+                complete = true;
+                break;
+            }
+            Err(_) if report.reason.get().is_some() => break,
+            Err(e) => return Err(SearchError::Backend(e.to_string())),
+        }
+        let model = solver.model().unwrap_or_default();
+        let mut values = vec![false; colour_vars + 1];
+        for lit in &model {
+            let v = lit.var().to_dimacs() as usize;
+            if v <= colour_vars {
+                values[v] = lit.is_positive();
+            }
+        }
+        let colouring = vars.decode(|v| values[v]);
+        models += 1;
+        // Block exactly this colouring: some edge must take another colour.
+        let mut block = Vec::new();
+        for j in 0..n {
+            for i in 0..j {
+                let lit = vars.colour_literal(edge_index(i, j), colouring.colour(i, j) as usize);
+                block.push(Lit::from_dimacs(-(lit as isize)));
+            }
+        }
+        solver.add_clause(&block);
+        let table = ColourTable::from_fn(n, |i, j| colouring.colour(i, j));
+        let form = canonical_form(&table, &maps);
+        if let std::collections::hash_map::Entry::Vacant(slot) = seen.entry(form) {
+            let verdict = verify_witness(instance.spec(), &colouring);
+            if !verdict.is_valid() {
+                return Err(SearchError::WitnessRejected(verdict.to_string()));
+            }
+            slot.insert(classes.len());
+            classes.push(colouring);
+        }
+        progress(models, classes.len());
+    }
+    Ok(Enumeration {
+        classes,
+        models,
+        complete,
+        elapsed: started.elapsed(),
+        symmetry,
+    })
+}
