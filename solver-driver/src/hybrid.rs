@@ -6,9 +6,11 @@
 //!    one; each family at most a twentieth, 2 s at least): circulant colourings at n; circulant colourings at n + 1 with a vertex
 //!    deleted (deleting a vertex keeps a colouring valid); the other abelian Cayley
 //!    families and the 2- and 3-block circulants at n. Each is exact for its family.
-//! 2. **Circulant neighbour seed**: a circulant colouring at n − 1, if one exists,
-//!    fixes every edge among the first n − 1 vertices; the SAT driver then only has
-//!    to colour the edges of the last vertex (one extension attempt).
+//! 2. **Circulant neighbour seeds**: up to 16 distinct circulant colourings at
+//!    n − 1, if any exist; each fixes every edge among the first n − 1 vertices and
+//!    the SAT driver colours the edges of the last vertex (one extension attempt
+//!    each). They are also the first starts of local search, with the last
+//!    vertex's edges drawn at random.
 //! 3. **Local search and seeded SAT, alternating**: a slice of tabu search on the
 //!    helper threads; if it does not reach zero, each of its best near-solutions
 //!    becomes seeds for SAT attempts: all edges in no remaining monochromatic clique
@@ -27,7 +29,7 @@ use std::sync::Mutex;
 use std::time::{Duration, Instant};
 
 use rand::seq::SliceRandom;
-use rand::SeedableRng;
+use rand::{Rng, SeedableRng};
 use rand_chacha::ChaCha8Rng;
 
 use ramsift_encoder::edges::edge_index;
@@ -41,7 +43,8 @@ use crate::portfolio::{
 };
 use crate::seeding::{Seed, SeedKind};
 use crate::structured::{
-    search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome, FamilySearchError,
+    family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
+    FamilySearchError,
 };
 use crate::verify::verify_witness;
 
@@ -259,22 +262,34 @@ fn helper_stages(
             _ => Ok(None),
         }
     };
+    // Up to 16 distinct circulant colourings of K_{n−1}: each is tried as a seed
+    // (all its edges fixed) and kept as a local-search start (the last vertex's
+    // edges drawn at random).
+    let mut starts: Vec<Colouring> = Vec::new();
     if order >= 3 && !stop.load(Ordering::Relaxed) {
         if let Ok(orbits) = EdgeOrbits::circulant(order - 1) {
-            if let Ok(report) = search_family(&orbits, spec, stop, structured_deadline) {
-                if let FamilyOutcome::Found { colouring, .. } = report.outcome {
-                    let fixed = (0..order - 1)
-                        .flat_map(|j| (0..j).map(move |i| (i, j)))
-                        .map(|(i, j)| (edge_index(i, j), colouring.colour(i, j) as usize))
-                        .collect();
-                    let seed = Seed {
-                        kind: SeedKind::CirculantNeighbour,
-                        fixed,
-                    };
-                    if let Some(found) = try_seed(&seed, &mut rng, &mut attempt_no)? {
-                        return Ok(Some(found));
-                    }
+            let neighbours =
+                family_colourings(&orbits, spec, 16, stop, structured_deadline).unwrap_or_default();
+            for colouring in neighbours {
+                let fixed = (0..order - 1)
+                    .flat_map(|j| (0..j).map(move |i| (i, j)))
+                    .map(|(i, j)| (edge_index(i, j), colouring.colour(i, j) as usize))
+                    .collect();
+                let seed = Seed {
+                    kind: SeedKind::CirculantNeighbour,
+                    fixed,
+                };
+                if let Some(found) = try_seed(&seed, &mut rng, &mut attempt_no)? {
+                    return Ok(Some(found));
                 }
+                let r = colouring.colours() as u8;
+                starts.push(Colouring::from_fn(order, colouring.colours(), |i, j| {
+                    if j < order - 1 {
+                        colouring.colour(i, j)
+                    } else {
+                        rng.gen_range(1..=r)
+                    }
+                }));
             }
         }
     }
@@ -291,6 +306,11 @@ fn helper_stages(
         let local_options = LocalOptions {
             threads: helpers,
             seed: options.seed.wrapping_add(round),
+            starts: if round == 1 {
+                starts.clone()
+            } else {
+                Vec::new()
+            },
             timeout: Some(match deadline {
                 Some(d) => slice.min(d.saturating_duration_since(Instant::now())),
                 None => slice,

@@ -16,7 +16,7 @@ use ramsift_driver::exit_codes;
 use ramsift_encoder::RamseySpec;
 
 /// Orders searched by the probabilistic bounds.
-const SEARCH_LIMIT: u64 = 1 << 22;
+const SEARCH_LIMIT: u64 = 1 << 40;
 
 #[derive(Args, Debug)]
 pub struct BoundsArgs {

@@ -26,7 +26,7 @@ use std::time::Instant;
 use ramsift_encoder::RamseySpec;
 
 pub use families::{AbelianGroup, EdgeOrbits, FamilyError, FamilyKind};
-pub use solve::{search_family, FamilyOutcome, FamilyReport, FamilySearchError};
+pub use solve::{family_colourings, search_family, FamilyOutcome, FamilyReport, FamilySearchError};
 
 /// Which families a structured search tries at an order.
 #[derive(Clone, Debug, PartialEq, Eq)]

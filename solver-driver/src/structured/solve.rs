@@ -111,6 +111,22 @@ fn solve_orbit_formula(
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> Result<Option<Option<Vec<bool>>>, SearchError> {
+    let (models, exhausted) = orbit_models(formula, 1, stop, deadline)?;
+    Ok(match models.into_iter().next() {
+        Some(model) => Some(Some(model)),
+        None if exhausted => Some(None),
+        None => None,
+    })
+}
+
+/// Up to `limit` distinct models (each blocked once found), and whether the formula
+/// ran out of models (false when the limit or the deadline came first).
+fn orbit_models(
+    formula: &OrbitFormula,
+    limit: usize,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<(Vec<Vec<bool>>, bool), SearchError> {
     let report = SinkReport::default();
     let limits = Limits {
         stop,
@@ -120,9 +136,10 @@ fn solve_orbit_formula(
     };
     let mut solver = Solver::new();
     // The proof is discarded; it is only how the deadline reaches the solver.
+    // varisat's own format (unlike DRAT) allows the blocking clauses added later.
     solver.write_proof(
         InterruptSink::<io::Sink>::new(limits, None, &report),
-        ProofFormat::BinaryDrat,
+        ProofFormat::Varisat,
     );
     let mut buffer = Vec::new();
     for clause in &formula.clauses {
@@ -130,22 +147,74 @@ fn solve_orbit_formula(
         buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
         solver.add_clause(&buffer);
     }
-    // Variables that occur in no clause still need a value.
-    let mut values = vec![false; formula.variable_count];
-    match solver.solve() {
-        Ok(true) => {
-            for lit in solver.model().unwrap_or_default() {
-                let var = lit.var().to_dimacs() as usize;
-                if var >= 1 && var <= values.len() {
-                    values[var - 1] = lit.is_positive();
+    let mut models = Vec::new();
+    while models.len() < limit {
+        match solver.solve() {
+            Ok(true) => {
+                // Variables that occur in no clause still need a value.
+                let mut values = vec![false; formula.variable_count];
+                for lit in solver.model().unwrap_or_default() {
+                    let var = lit.var().to_dimacs() as usize;
+                    if var >= 1 && var <= values.len() {
+                        values[var - 1] = lit.is_positive();
+                    }
                 }
+                let block: Vec<Lit> = values
+                    .iter()
+                    .enumerate()
+                    .map(|(i, &v)| {
+                        Lit::from_dimacs(if v { -(i as isize + 1) } else { i as isize + 1 })
+                    })
+                    .collect();
+                solver.add_clause(&block);
+                models.push(values);
             }
-            Ok(Some(Some(values)))
+            Ok(false) => return Ok((models, true)),
+            Err(_) if report.reason.get().is_some() => return Ok((models, false)),
+            Err(e) => return Err(SearchError::Backend(e.to_string())),
         }
-        Ok(false) => Ok(Some(None)),
-        Err(_) if report.reason.get().is_some() => Ok(None),
-        Err(e) => Err(SearchError::Backend(e.to_string())),
     }
+    Ok((models, false))
+}
+
+/// Up to `limit` distinct colourings of a family (distinct as orbit colourings),
+/// each verified by the checker's code.
+pub fn family_colourings(
+    orbits: &EdgeOrbits,
+    spec: &RamseySpec,
+    limit: usize,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<Vec<Colouring>, FamilySearchError> {
+    if !spec.is_cliques() {
+        return Err(FamilyError::NeedsCliques {
+            spec: spec.to_string(),
+        }
+        .into());
+    }
+    let formula = OrbitFormula::new(orbits, spec);
+    let (models, _) = orbit_models(&formula, limit, stop, deadline)?;
+    let r = formula.colours;
+    let mut out = Vec::new();
+    for values in models {
+        let orbit_colours: Vec<u8> = (0..orbits.orbit_count)
+            .map(|o| {
+                (1..=r)
+                    .find(|&c| {
+                        let lit = orbit_literal(o, c, r);
+                        values[lit.unsigned_abs() as usize - 1] == (lit > 0)
+                    })
+                    .unwrap_or(1) as u8
+            })
+            .collect();
+        let colouring = orbits.expand(&orbit_colours, r);
+        let verdict = verify_witness(spec, &colouring);
+        if !verdict.is_valid() {
+            return Err(SearchError::WitnessRejected(verdict.to_string()).into());
+        }
+        out.push(colouring);
+    }
+    Ok(out)
 }
 
 #[cfg(test)]
