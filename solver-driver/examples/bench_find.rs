@@ -5,7 +5,10 @@
 //! proof output) as separate processes, alternating, each killed at the time cap.
 //! Prints a Markdown table of medians and their ratio.
 //!
-//! `cargo run --release --example bench_find -- [--repeats R] [--cap SECONDS] [SPEC:N ...]`
+//! `cargo run --release --example bench_find -- [--repeats R] [--cap SECONDS] [--method M] [SPEC:N ...]`
+//!
+//! `--method` is passed to `ramsift find` (default `sat`, the SAT portfolio this
+//! benchmark was written for; `bench_lower` compares the methods).
 
 #[path = "common/bench_util.rs"]
 mod bench_util;
@@ -26,12 +29,14 @@ fn main() {
     }
     let mut repeats = 5;
     let mut cap = 60.0;
+    let mut method = "sat".to_string();
     let mut instances: Vec<String> = Vec::new();
     let mut it = args.iter();
     while let Some(a) = it.next() {
         match a.as_str() {
             "--repeats" => repeats = it.next().unwrap().parse().unwrap(),
             "--cap" => cap = it.next().unwrap().parse().unwrap(),
+            "--method" => method = it.next().unwrap().clone(),
             other => instances.push(other.to_string()),
         }
     }
@@ -53,6 +58,8 @@ fn main() {
                 spec,
                 n,
                 "-q",
+                "--method",
+                &method,
                 "--seed",
                 &(r + 1).to_string(),
                 "--timeout",

@@ -2,8 +2,9 @@
 //! first, then local search feeding the SAT driver, with one complete SAT worker
 //! running throughout so that "no colouring exists" stays a complete answer.
 //!
-//! 1. **Structured stage** (at most a quarter of the time limit, and 30 s without
-//!    one; each family at most a twentieth, 2 s at least): circulant colourings at n; circulant colourings at n + 1 with a vertex
+//! 1. **Structured stage**, on one thread before the full formula is built (at
+//!    most a quarter of the time limit, and 30 s without one; each family at most
+//!    a twentieth, 2 s at least): circulant colourings at n; circulant colourings at n + 1 with a vertex
 //!    deleted (deleting a vertex keeps a colouring valid); the other abelian Cayley
 //!    families and the 2- and 3-block circulants at n. Each is exact for its family.
 //! 2. **Circulant neighbour seeds**: up to 16 distinct circulant colourings at
@@ -23,6 +24,7 @@
 //! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
 //! one thread, stages 1 and 2 run first and then worker 0 alone (no stage 3).
 
+use std::borrow::Borrow;
 use std::io;
 use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::Mutex;
@@ -39,17 +41,71 @@ use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
 use crate::formula::Formula;
 use crate::local::{local_search, LocalOptions, LocalState, MAX_LOCAL_ORDER};
 use crate::portfolio::{
-    luby, SearchError, SearchOptions, SearchProgress, SearchReport, SearchResult,
+    complete_worker, luby, verified, SearchError, SearchOptions, SearchProgress, SearchReport,
+    SearchResult,
 };
 use crate::seeding::{Seed, SeedKind};
 use crate::structured::{
     family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
     FamilySearchError,
 };
-use crate::verify::verify_witness;
 
 /// Runs the hybrid search on the formula of K_n (no symmetry breaking assumed).
 pub fn hybrid_search(
+    formula: &Formula,
+    spec: &RamseySpec,
+    options: &SearchOptions,
+    progress: &SearchProgress,
+    tick: impl FnMut(Duration),
+) -> Result<SearchReport, SearchError> {
+    let order = formula.variables().order();
+    auto_search(spec, order, options, progress, tick, || Ok(formula))
+}
+
+/// The hybrid search with the formula built only after the structured stage: at
+/// orders where the full formula is large (C(35,9) ≈ 7·10^7 clauses for (3,9;35))
+/// a structured colouring is often found long before the formula could be built.
+pub fn auto_search<F: Borrow<Formula>>(
+    spec: &RamseySpec,
+    order: usize,
+    options: &SearchOptions,
+    progress: &SearchProgress,
+    mut tick: impl FnMut(Duration),
+    build: impl FnOnce() -> Result<F, SearchError>,
+) -> Result<SearchReport, SearchError> {
+    let started = Instant::now();
+    let report = |result| SearchReport {
+        result,
+        attempts: progress.attempts.load(Ordering::SeqCst),
+        elapsed: started.elapsed(),
+        threads: options.threads.max(1),
+    };
+    if spec.is_cliques() {
+        tick(Duration::ZERO);
+        let stop = AtomicBool::new(false);
+        if let Some(found) = structured_stage(spec, order, options, &stop, progress)? {
+            return Ok(report(found));
+        }
+    }
+    let remaining = options.timeout.map(|t| t.saturating_sub(started.elapsed()));
+    if remaining == Some(Duration::ZERO) {
+        return Ok(report(SearchResult::Unknown));
+    }
+    let formula = build()?;
+    let rest = SearchOptions {
+        timeout: remaining,
+        ..options.clone()
+    };
+    let offset = started.elapsed();
+    let mut later = later_stages(formula.borrow(), spec, &rest, progress, |e| {
+        tick(offset + e)
+    })?;
+    later.elapsed = started.elapsed();
+    Ok(later)
+}
+
+/// Stages 2 and 3 beside the complete worker.
+fn later_stages(
     formula: &Formula,
     spec: &RamseySpec,
     options: &SearchOptions,
@@ -123,47 +179,6 @@ pub fn hybrid_search(
     })
 }
 
-fn verified(
-    spec: &RamseySpec,
-    colouring: Colouring,
-    by: String,
-) -> Result<SearchResult, SearchError> {
-    let verdict = verify_witness(spec, &colouring);
-    if verdict.is_valid() {
-        Ok(SearchResult::Found {
-            colouring,
-            found_by: by,
-        })
-    } else {
-        Err(SearchError::WitnessRejected(verdict.to_string()))
-    }
-}
-
-fn complete_worker(
-    formula: &Formula,
-    spec: &RamseySpec,
-    stop: &AtomicBool,
-    deadline: Option<Instant>,
-    progress: &SearchProgress,
-) -> Result<Option<SearchResult>, SearchError> {
-    progress.attempts.fetch_add(1, Ordering::Relaxed);
-    let report = run_attempt::<io::Sink>(
-        formula,
-        &AttemptPlan::default(),
-        stop,
-        deadline,
-        None,
-        false,
-    )?;
-    Ok(match report.outcome {
-        AttemptOutcome::Satisfiable(c) => {
-            Some(verified(spec, c, "worker 0 (complete SAT)".into())?)
-        }
-        AttemptOutcome::Unsatisfiable => Some(SearchResult::NoneExists),
-        AttemptOutcome::Stopped(_) => None,
-    })
-}
-
 /// Deletes the last vertex of a colouring.
 fn drop_last_vertex(colouring: &Colouring) -> Colouring {
     Colouring::from_fn(colouring.order() - 1, colouring.colours(), |i, j| {
@@ -171,25 +186,18 @@ fn drop_last_vertex(colouring: &Colouring) -> Colouring {
     })
 }
 
-/// Stages 1 to 3; `Some` when a colouring was found.
-fn helper_stages(
-    formula: &Formula,
+/// Stage 1: circulant at n, circulant at n + 1 minus a vertex, the other abelian
+/// Cayley and block-circulant families at n; `Some` when a colouring was found.
+pub fn structured_stage(
     spec: &RamseySpec,
+    order: usize,
     options: &SearchOptions,
-    helpers: usize,
     stop: &AtomicBool,
-    deadline: Option<Instant>,
     progress: &SearchProgress,
 ) -> Result<Option<SearchResult>, SearchError> {
     let started = Instant::now();
-    let order = formula.variables().order();
     let structured_cap = options.timeout.map_or(Duration::from_secs(30), |t| t / 4);
-    let structured_deadline = Some(match deadline {
-        Some(d) => d.min(started + structured_cap),
-        None => started + structured_cap,
-    });
-
-    // Stage 1: circulant at n, circulant at n + 1 minus a vertex, other families at n.
+    let structured_deadline = Some(started + structured_cap);
     let mut tries: Vec<EdgeOrbits> = Vec::new();
     tries.extend(EdgeOrbits::circulant(order).ok());
     tries.extend(EdgeOrbits::circulant(order + 1).ok());
@@ -201,16 +209,22 @@ fn helper_stages(
             .families(order)
             .unwrap_or_default(),
     );
+    // No single family may take more than a twentieth of the time limit (2 s at
+    // least; 5 s without a limit): large block-circulant formulas can be slow.
+    let family_cap = options.timeout.map_or(Duration::from_secs(5), |t| {
+        (t / 20).max(Duration::from_secs(2))
+    });
     for orbits in tries {
-        if stop.load(Ordering::Relaxed) {
+        if stop.load(Ordering::Relaxed) || structured_deadline.is_some_and(|d| Instant::now() >= d)
+        {
             return Ok(None);
         }
         progress.attempts.fetch_add(1, Ordering::Relaxed);
-        let report =
-            search_family(&orbits, spec, stop, structured_deadline).map_err(|e| match e {
-                FamilySearchError::Search(e) => e,
-                FamilySearchError::Family(e) => SearchError::Backend(e.to_string()),
-            })?;
+        let family_deadline = structured_deadline.map(|d| d.min(Instant::now() + family_cap));
+        let report = search_family(&orbits, spec, stop, family_deadline).map_err(|e| match e {
+            FamilySearchError::Search(e) => e,
+            FamilySearchError::Family(e) => SearchError::Backend(e.to_string()),
+        })?;
         if let FamilyOutcome::Found {
             colouring,
             description,
@@ -232,6 +246,22 @@ fn helper_stages(
             return verified(spec, colouring, by).map(Some);
         }
     }
+    Ok(None)
+}
+
+/// Stages 2 and 3; `Some` when a colouring was found.
+fn helper_stages(
+    formula: &Formula,
+    spec: &RamseySpec,
+    options: &SearchOptions,
+    helpers: usize,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+    progress: &SearchProgress,
+) -> Result<Option<SearchResult>, SearchError> {
+    let order = formula.variables().order();
+    let structured_deadline =
+        Some(Instant::now() + options.timeout.map_or(Duration::from_secs(30), |t| t / 4));
 
     // Stage 2: extend a circulant colouring of K_{n−1}.
     let vars = *formula.variables();

@@ -98,3 +98,16 @@ impl<W: Write> Write for InterruptSink<'_, W> {
         }
     }
 }
+
+/// A varisat solver whose proof output is discarded and only enforces `limits`:
+/// how searches without a trace get a deadline and the stop flag. varisat's own
+/// proof format is used, since (unlike DRAT) it allows clauses added between
+/// solves, as blocking clauses are.
+pub fn limited_solver<'a>(limits: Limits<'a>, report: &'a SinkReport) -> varisat::Solver<'a> {
+    let mut solver = varisat::Solver::new();
+    solver.write_proof(
+        InterruptSink::<io::Sink>::new(limits, None, report),
+        varisat::ProofFormat::Varisat,
+    );
+    solver
+}

@@ -181,7 +181,7 @@ pub fn search(
 }
 
 /// Verifies a colouring with the checker before it may be reported.
-fn verified(
+pub(crate) fn verified(
     spec: &RamseySpec,
     colouring: Colouring,
     found_by: String,
@@ -197,7 +197,8 @@ fn verified(
     }
 }
 
-fn complete_worker(
+/// Worker 0: the formula as given, no seed, no budget, until it answers or stops.
+pub(crate) fn complete_worker(
     formula: &Formula,
     spec: &RamseySpec,
     stop: &AtomicBool,

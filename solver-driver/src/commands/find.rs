@@ -8,7 +8,7 @@ use anyhow::{Context, Result};
 use clap::Args;
 
 use ramsift_driver::formula::Formula;
-use ramsift_driver::hybrid::hybrid_search;
+use ramsift_driver::hybrid::auto_search;
 use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
 use ramsift_driver::portfolio::{
@@ -130,8 +130,9 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     } else if method == "local" {
         find_by_local_search(args, &instance, &options, &line)?
     } else {
+        // The encoding only counts its clauses here (refusing instances over the
+        // limits); the formula itself is built when a method needs it.
         let encoding = args.instance.encoding(&args.symmetry)?;
-        let formula = Formula::from_encoding(&encoding);
         let progress = SearchProgress::default();
         let tick = |elapsed| {
             line.update(|| {
@@ -144,11 +145,19 @@ pub fn run(args: &FindArgs) -> Result<u8> {
             })
         };
         if args.solver == "cadical" {
-            search_with_cadical(&formula, &instance, &options)?
+            search_with_cadical(&Formula::from_encoding(&encoding), &instance, &options)?
         } else if method == "sat" {
+            let formula = Formula::from_encoding(&encoding);
             search(&formula, instance.spec(), &options, &progress, tick)?
         } else {
-            hybrid_search(&formula, instance.spec(), &options, &progress, tick)?
+            auto_search(
+                instance.spec(),
+                instance.order(),
+                &options,
+                &progress,
+                tick,
+                || Ok(Formula::from_encoding(&encoding)),
+            )?
         }
     };
     line.finish();

@@ -13,16 +13,15 @@
 pub mod canonical;
 
 use std::collections::HashMap;
-use std::io;
 use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
-use varisat::{ExtendFormula, Lit, ProofFormat, Solver};
+use varisat::{ExtendFormula, Lit};
 
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, Scheme, SymmetrySet};
 
-use crate::interrupt::{InterruptSink, Limits, SinkReport};
+use crate::interrupt::{limited_solver, Limits, SinkReport};
 use crate::portfolio::SearchError;
 use crate::verify::verify_witness;
 use canonical::{canonical_form, colour_permutations, ColourTable};
@@ -80,13 +79,7 @@ pub fn enumerate(
         budget_bytes: None,
         bytes_seen: None,
     };
-    let mut solver = Solver::new();
-    // The proof is discarded; it is how the deadline reaches the solver. varisat's
-    // own proof format, unlike DRAT, allows the clauses added between solves.
-    solver.write_proof(
-        InterruptSink::<io::Sink>::new(limits, None, &report),
-        ProofFormat::Varisat,
-    );
+    let mut solver = limited_solver(limits, &report);
     let mut buffer = Vec::new();
     encoding
         .for_each_clause::<()>(|clause| {

@@ -44,6 +44,16 @@ pub fn orbit_literal(orbit: usize, colour: usize, colours: usize) -> i32 {
 
 impl OrbitFormula {
     pub fn new(orbits: &EdgeOrbits, spec: &RamseySpec) -> Self {
+        Self::new_until(orbits, spec, None).expect("no deadline")
+    }
+
+    /// As [`Self::new`], giving up (`None`) once `deadline` passes: the cliques
+    /// through the anchors can number in the tens of millions.
+    pub fn new_until(
+        orbits: &EdgeOrbits,
+        spec: &RamseySpec,
+        deadline: Option<std::time::Instant>,
+    ) -> Option<Self> {
         let r = spec.colours();
         let sizes = spec.clique_sizes();
         let mut cliques_enumerated = 0u64;
@@ -60,7 +70,7 @@ impl OrbitFormula {
             if by_size.iter().any(|(size, _)| *size == k) {
                 continue;
             }
-            let (masks, count) = orbit_sets_of_cliques(orbits, k);
+            let (masks, count) = orbit_sets_of_cliques(orbits, k, deadline)?;
             cliques_enumerated += count;
             by_size.push((k, masks));
         }
@@ -79,25 +89,31 @@ impl OrbitFormula {
                 );
             }
         }
-        OrbitFormula {
+        Some(OrbitFormula {
             colours: r,
             orbit_count: orbits.orbit_count,
             variable_count: orbits.orbit_count * if r == 2 { 1 } else { r },
             clauses,
             cliques_enumerated,
-        }
+        })
     }
 }
 
 /// The distinct orbit sets (as bit masks, sorted) of k-cliques through an anchor,
-/// and how many cliques were enumerated.
-fn orbit_sets_of_cliques(orbits: &EdgeOrbits, k: usize) -> (Vec<u128>, u64) {
+/// and how many cliques were enumerated; `None` if the deadline passed first.
+fn orbit_sets_of_cliques(
+    orbits: &EdgeOrbits,
+    k: usize,
+    deadline: Option<std::time::Instant>,
+) -> Option<(Vec<u128>, u64)> {
     let mut walk = CliqueWalk {
         orbits,
         k,
         chosen: Vec::with_capacity(k),
         seen: HashSet::new(),
         count: 0,
+        deadline,
+        late: false,
     };
     if k >= 2 {
         for (anchor, companions) in &orbits.anchors {
@@ -106,9 +122,12 @@ fn orbit_sets_of_cliques(orbits: &EdgeOrbits, k: usize) -> (Vec<u128>, u64) {
             walk.extend(companions, 0, 0);
         }
     }
+    if walk.late {
+        return None;
+    }
     let mut masks: Vec<u128> = walk.seen.into_iter().collect();
     masks.sort_unstable();
-    (masks, walk.count)
+    Some((masks, walk.count))
 }
 
 /// Depth-first enumeration of cliques through one anchor, over increasing
@@ -119,13 +138,26 @@ struct CliqueWalk<'a> {
     chosen: Vec<usize>,
     seen: HashSet<u128>,
     count: u64,
+    deadline: Option<std::time::Instant>,
+    /// Set once the deadline has passed; the walk then unwinds.
+    late: bool,
 }
 
 impl CliqueWalk<'_> {
     fn extend(&mut self, companions: &[usize], start: usize, mask: u128) {
+        if self.late {
+            return;
+        }
         if self.chosen.len() == self.k {
             self.count += 1;
             self.seen.insert(mask);
+            if self.count % (1 << 20) == 0
+                && self
+                    .deadline
+                    .is_some_and(|d| std::time::Instant::now() >= d)
+            {
+                self.late = true;
+            }
             return;
         }
         let still_needed = self.k - self.chosen.len();

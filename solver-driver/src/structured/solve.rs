@@ -1,17 +1,16 @@
 //! Solving a family's orbit formula with varisat, under the same stop flag and
 //! deadline as every other search, and turning a model into a verified colouring.
 
-use std::io;
 use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
-use varisat::{ExtendFormula, Lit, ProofFormat, Solver};
+use varisat::{ExtendFormula, Lit};
 
 use ramsift_encoder::{Colouring, RamseySpec};
 
 use super::families::{EdgeOrbits, FamilyError};
 use super::orbit_formula::{orbit_literal, OrbitFormula};
-use crate::interrupt::{InterruptSink, Limits, SinkReport};
+use crate::interrupt::{limited_solver, Limits, SinkReport};
 use crate::portfolio::SearchError;
 use crate::verify::verify_witness;
 
@@ -66,21 +65,21 @@ pub fn search_family(
         }
         .into());
     }
-    let formula = OrbitFormula::new(orbits, spec);
+    let Some(formula) = OrbitFormula::new_until(orbits, spec, deadline) else {
+        return Ok(FamilyReport {
+            family: orbits.kind.to_string(),
+            order: orbits.order,
+            outcome: FamilyOutcome::Unknown,
+            orbits: orbits.orbit_count,
+            clauses: 0,
+            elapsed: started.elapsed(),
+        });
+    };
     let outcome = solve_orbit_formula(&formula, stop, deadline)?;
     let outcome = match outcome {
         Some(Some(values)) => {
             let r = formula.colours;
-            let orbit_colours: Vec<u8> = (0..orbits.orbit_count)
-                .map(|o| {
-                    (1..=r)
-                        .find(|&c| {
-                            let lit = orbit_literal(o, c, r);
-                            values[lit.unsigned_abs() as usize - 1] == (lit > 0)
-                        })
-                        .unwrap_or(1) as u8
-                })
-                .collect();
+            let orbit_colours = decode_orbits(&values, orbits.orbit_count, r);
             let colouring = orbits.expand(&orbit_colours, r);
             let verdict = verify_witness(spec, &colouring);
             if !verdict.is_valid() {
@@ -103,6 +102,21 @@ pub fn search_family(
         clauses: formula.clauses.len(),
         elapsed: started.elapsed(),
     })
+}
+
+/// The colour of each orbit in a model: the smallest colour whose literal is true
+/// (as the encoder decodes edges).
+fn decode_orbits(values: &[bool], orbit_count: usize, r: usize) -> Vec<u8> {
+    (0..orbit_count)
+        .map(|o| {
+            (1..=r)
+                .find(|&c| {
+                    let lit = orbit_literal(o, c, r);
+                    values[lit.unsigned_abs() as usize - 1] == (lit > 0)
+                })
+                .unwrap_or(1) as u8
+        })
+        .collect()
 }
 
 /// `Some(Some(model))` satisfiable, `Some(None)` unsatisfiable, `None` stopped.
@@ -134,13 +148,7 @@ fn orbit_models(
         budget_bytes: None,
         bytes_seen: None,
     };
-    let mut solver = Solver::new();
-    // The proof is discarded; it is only how the deadline reaches the solver.
-    // varisat's own format (unlike DRAT) allows the blocking clauses added later.
-    solver.write_proof(
-        InterruptSink::<io::Sink>::new(limits, None, &report),
-        ProofFormat::Varisat,
-    );
+    let mut solver = limited_solver(limits, &report);
     let mut buffer = Vec::new();
     for clause in &formula.clauses {
         buffer.clear();
@@ -192,21 +200,14 @@ pub fn family_colourings(
         }
         .into());
     }
-    let formula = OrbitFormula::new(orbits, spec);
+    let Some(formula) = OrbitFormula::new_until(orbits, spec, deadline) else {
+        return Ok(Vec::new());
+    };
     let (models, _) = orbit_models(&formula, limit, stop, deadline)?;
     let r = formula.colours;
     let mut out = Vec::new();
     for values in models {
-        let orbit_colours: Vec<u8> = (0..orbits.orbit_count)
-            .map(|o| {
-                (1..=r)
-                    .find(|&c| {
-                        let lit = orbit_literal(o, c, r);
-                        values[lit.unsigned_abs() as usize - 1] == (lit > 0)
-                    })
-                    .unwrap_or(1) as u8
-            })
-            .collect();
+        let orbit_colours = decode_orbits(&values, orbits.orbit_count, r);
         let colouring = orbits.expand(&orbit_colours, r);
         let verdict = verify_witness(spec, &colouring);
         if !verdict.is_valid() {
