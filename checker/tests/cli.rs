@@ -207,3 +207,30 @@ fn missing_file_exits_2() {
     assert_eq!(o.status.code(), Some(2));
     assert!(text(&o.stderr).contains("cannot read"));
 }
+
+#[test]
+fn forbidden_graphs_are_searched_directly() {
+    let s = Scratch::new();
+    // Colour 1 is the pentagon C5 ("Dhc", McKay's graph6 description); colour 2, its
+    // complement, is another pentagon.
+    let path = s.file("c5.g6", b"Dhc\n");
+    let p = path.to_str().unwrap();
+    // No 4-cycle in a pentagon, no triangle in its complement.
+    assert_eq!(
+        check(&["colouring", p, "--forbid", "C4,3"]).status.code(),
+        Some(0)
+    );
+    // The pentagon itself, and a path on 3 vertices, are in colour 1.
+    for forbid in ["C5,3", "P3,3", "G6:Dhc,3", "E:0-1/1-2/2-3,3"] {
+        let o = check(&["colouring", p, "--forbid", forbid]);
+        assert_eq!(o.status.code(), Some(1), "{forbid}");
+        assert!(
+            text(&o.stdout).contains("colour 1"),
+            "{forbid}: {}",
+            text(&o.stdout)
+        );
+    }
+    let o = check(&["colouring", p, "--forbid", "C2,3"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(text(&o.stderr).contains("--forbid: entry 1"));
+}

@@ -165,6 +165,45 @@ fn local_shards_merge_into_a_passing_bundle_and_damage_is_caught() {
 }
 
 #[test]
+fn shards_of_a_graph_ramsey_refutation_merge_into_a_passing_bundle() {
+    // R(C4,K4) = 10 (Chvátal & Harary 1972; DS1, from memory; confirmed in
+    // tests/tests/graph_ramsey.rs). The default symmetry for graphs leaves out
+    // degree bounds.
+    let dir = tempfile::tempdir().unwrap();
+    let plan = dir.path().join("plan");
+    let out = ok(
+        &ramsift(&[
+            "shard",
+            "plan",
+            "C4,4",
+            "10",
+            "--shards",
+            "8",
+            "--out",
+            s(&plan),
+        ]),
+        0,
+    );
+    assert!(out.contains("as 8 shards"), "{out}");
+    ok(&ramsift(&["shard", "local", s(&plan)]), 0);
+    let bundle = dir.path().join("bundle");
+    ok(
+        &ramsift(&[
+            "shard",
+            "merge",
+            s(&plan),
+            "--out",
+            s(&bundle),
+            "--single-trace",
+        ]),
+        20,
+    );
+    let verdict = check_bundle(&bundle, &[]).unwrap();
+    assert!(verdict.passed(), "{:?}", verdict.failure);
+    assert_eq!(verdict.claim, "R(C4,4) <= 10");
+}
+
+#[test]
 fn slurm_script_has_the_array_and_chunks_large_plans() {
     let base = tempfile::tempdir().unwrap();
     let plan = base.path().join("plan");
