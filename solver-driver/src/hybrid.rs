@@ -27,7 +27,6 @@
 use std::borrow::Borrow;
 use std::io;
 use std::sync::atomic::{AtomicBool, Ordering};
-use std::sync::Mutex;
 use std::time::{Duration, Instant};
 
 use rand::seq::SliceRandom;
@@ -41,8 +40,8 @@ use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
 use crate::formula::Formula;
 use crate::local::{local_search, LocalOptions, LocalState, MAX_LOCAL_ORDER};
 use crate::portfolio::{
-    complete_worker, luby, verified, SearchError, SearchOptions, SearchProgress, SearchReport,
-    SearchResult,
+    complete_worker, luby, verified, FirstAnswer, SearchError, SearchOptions, SearchProgress,
+    SearchReport, SearchResult,
 };
 use crate::seeding::{Seed, SeedKind};
 use crate::structured::{
@@ -120,63 +119,34 @@ fn later_stages(
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
     let threads = options.threads.max(1);
-    let stop = AtomicBool::new(false);
-    let answer: Mutex<Option<Result<SearchResult, SearchError>>> = Mutex::new(None);
-    let settle = |value: Result<SearchResult, SearchError>| {
-        let mut slot = answer.lock().expect("answer lock");
-        if slot.is_none() {
-            *slot = Some(value);
-        }
-        stop.store(true, Ordering::SeqCst);
-    };
+    let answer = FirstAnswer::default();
+    let stop = &answer.stop;
 
     std::thread::scope(|scope| {
         let complete = scope.spawn(|| {
-            if threads < 2 {
-                return;
-            }
-            match complete_worker(formula, spec, &stop, deadline, progress) {
-                Ok(Some(result)) => settle(Ok(result)),
-                Ok(None) => {}
-                Err(e) => settle(Err(e)),
+            if threads >= 2 {
+                answer.offer(complete_worker(formula, spec, stop, deadline, progress));
             }
         });
         let helper = scope.spawn(|| {
             let helpers = threads.saturating_sub(1).max(1);
-            let result = helper_stages(formula, spec, options, helpers, &stop, deadline, progress);
-            match result {
-                Ok(Some(found)) => settle(Ok(found)),
-                Ok(None) => {}
-                Err(e) => settle(Err(e)),
-            }
+            answer.offer(helper_stages(
+                formula, spec, options, helpers, stop, deadline, progress,
+            ));
             if threads < 2 && !stop.load(Ordering::SeqCst) {
-                match complete_worker(formula, spec, &stop, deadline, progress) {
-                    Ok(Some(result)) => settle(Ok(result)),
-                    Ok(None) => {}
-                    Err(e) => settle(Err(e)),
-                }
+                answer.offer(complete_worker(formula, spec, stop, deadline, progress));
             }
         });
+        // The helper may end early (nothing left to try); the complete worker goes on.
         while !(complete.is_finished() && helper.is_finished()) {
             std::thread::sleep(Duration::from_millis(50));
             tick(started.elapsed());
             if deadline.is_some_and(|d| Instant::now() >= d) {
                 stop.store(true, Ordering::SeqCst);
             }
-            // The helper may end early (nothing left to try); the complete worker goes on.
         }
     });
-
-    let result = answer
-        .into_inner()
-        .expect("answer lock")
-        .unwrap_or(Ok(SearchResult::Unknown))?;
-    Ok(SearchReport {
-        result,
-        attempts: progress.attempts.load(Ordering::SeqCst),
-        elapsed: started.elapsed(),
-        threads,
-    })
+    answer.into_report(progress, started, threads)
 }
 
 /// Deletes the last vertex of a colouring.
@@ -396,4 +366,42 @@ pub fn near_solution_seeds(near: &Colouring, spec: &RamseySpec, rng: &mut ChaCha
             fixed: released,
         },
     ]
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn near_solution_seeds_leave_the_bad_edges_free() {
+        // The pentagon colouring of K5 (colour 1 at distance ±1) plus vertex 5,
+        // joined in colour 1 to 0 and 2 and in colour 2 to 1, 3 and 4: for (3,3)
+        // the colour-2 triangle {1,3,5} is bad, most other edges are not.
+        let near = Colouring::from_fn(6, 2, |i, j| match (i, j) {
+            (0 | 2, 5) => 1,
+            (_, 5) => 2,
+            _ if j - i == 1 || j - i == 4 => 1,
+            _ => 2,
+        });
+        let spec = RamseySpec::cliques(&[3, 3]).unwrap();
+        let state = LocalState::new(&near, &[3, 3]);
+        let bad: Vec<usize> = state
+            .bad_edges()
+            .into_iter()
+            .map(|(i, j)| edge_index(i, j))
+            .collect();
+        assert!(bad.contains(&edge_index(1, 3)) && !bad.contains(&edge_index(0, 1)));
+        let mut rng = ChaCha8Rng::seed_from_u64(1);
+        let seeds = near_solution_seeds(&near, &spec, &mut rng);
+        assert!(!bad.is_empty() && bad.len() < 15);
+        assert_eq!(seeds[0].fixed.len() + bad.len(), 15);
+        for seed in &seeds {
+            for &(edge, colour) in &seed.fixed {
+                assert!(!bad.contains(&edge));
+                let (i, j) = ramsift_encoder::edges::edge_endpoints(edge);
+                assert_eq!(near.colour(i, j) as usize, colour);
+            }
+        }
+        assert!(seeds[1].fixed.len() < seeds[0].fixed.len());
+    }
 }

@@ -17,9 +17,11 @@ use ramsift_driver::exit_codes;
     version,
     about = "Find and certify small Ramsey numbers with a SAT solver",
     long_about = "Find and certify small Ramsey numbers with a SAT solver.\n\n\
-        A specification lists the forbidden clique size of each colour: `4,4` asks for \
+        A specification lists the forbidden graph of each colour: `4,4` asks for \
         2-colourings of the edges of K_n with no monochromatic K4, `3,3,3` for \
-        3-colourings with no monochromatic triangle.\n\n\
+        3-colourings with no monochromatic triangle, `C4,K4` for no colour-1 4-cycle \
+        and no colour-2 K4 (entries: Kk, Kk-e, Ck, Pk, Sk, Ka:b, Wk, Bk, G6:..., \
+        E:0-1/1-2/...).\n\n\
         Exit codes: 10 a colouring was found, 20 none exists, 0 success of other \
         commands, 1 timeout or unknown, 2 bad input or an error."
 )]
@@ -30,7 +32,7 @@ struct Cli {
 
 #[derive(Subcommand)]
 enum Command {
-    /// Search for a colouring of K_N with no monochromatic forbidden clique
+    /// Search for a colouring of K_N with no monochromatic forbidden graph
     /// (structured families, local search and SAT; see --method).
     Find(commands::find::FindArgs),
     /// Search a structured family (circulant by default) at every order of a range.

@@ -108,6 +108,54 @@ pub fn luby(mut index: u64) -> u64 {
     power
 }
 
+/// The first answer of several workers: the first one kept, and the stop flag
+/// raised for the rest.
+#[derive(Debug, Default)]
+pub(crate) struct FirstAnswer {
+    slot: Mutex<Option<Result<SearchResult, SearchError>>>,
+    pub stop: AtomicBool,
+}
+
+impl FirstAnswer {
+    /// Keeps `value` if it is the first, and stops every worker.
+    pub fn settle(&self, value: Result<SearchResult, SearchError>) {
+        let mut slot = self.slot.lock().expect("answer lock");
+        if slot.is_none() {
+            *slot = Some(value);
+        }
+        self.stop.store(true, Ordering::SeqCst);
+    }
+
+    /// A worker's outcome: an answer or an error settles, `Ok(None)` does not.
+    pub fn offer(&self, outcome: Result<Option<SearchResult>, SearchError>) {
+        match outcome {
+            Ok(Some(result)) => self.settle(Ok(result)),
+            Ok(None) => {}
+            Err(e) => self.settle(Err(e)),
+        }
+    }
+
+    /// The report once every worker has ended (`Unknown` if none answered).
+    pub fn into_report(
+        self,
+        progress: &SearchProgress,
+        started: Instant,
+        threads: usize,
+    ) -> Result<SearchReport, SearchError> {
+        let result = self
+            .slot
+            .into_inner()
+            .expect("answer lock")
+            .unwrap_or(Ok(SearchResult::Unknown))?;
+        Ok(SearchReport {
+            result,
+            attempts: progress.attempts.load(Ordering::SeqCst),
+            elapsed: started.elapsed(),
+            threads,
+        })
+    }
+}
+
 /// Runs the search; `tick` is called about every 100 ms on the calling thread.
 pub fn search(
     formula: &Formula,
@@ -119,16 +167,8 @@ pub fn search(
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
     let threads = options.threads.max(1);
-    let stop = AtomicBool::new(false);
-    let answer: Mutex<Option<Result<SearchResult, SearchError>>> = Mutex::new(None);
-
-    let settle = |value: Result<SearchResult, SearchError>| {
-        let mut slot = answer.lock().expect("answer lock");
-        if slot.is_none() {
-            *slot = Some(value);
-        }
-        stop.store(true, Ordering::SeqCst);
-    };
+    let answer = FirstAnswer::default();
+    let stop = &answer.stop;
 
     let pool = rayon::ThreadPoolBuilder::new()
         .num_threads(threads)
@@ -141,18 +181,14 @@ pub fn search(
     let (done_tx, done_rx) = mpsc::channel::<()>();
     pool.in_place_scope(|scope| {
         for worker in 0..threads {
-            let (stop, settle, done_tx) = (&stop, &settle, done_tx.clone());
+            let (answer, done_tx) = (&answer, done_tx.clone());
             scope.spawn(move |_| {
                 let outcome = if worker == 0 {
                     complete_worker(formula, spec, stop, deadline, progress)
                 } else {
                     seeded_worker(formula, spec, options, worker, stop, deadline, progress)
                 };
-                match outcome {
-                    Ok(Some(result)) => settle(Ok(result)),
-                    Ok(None) => {}
-                    Err(e) => settle(Err(e)),
-                }
+                answer.offer(outcome);
                 let _ = done_tx.send(());
             });
         }
@@ -168,16 +204,7 @@ pub fn search(
         }
     });
 
-    let result = answer
-        .into_inner()
-        .expect("answer lock")
-        .unwrap_or(Ok(SearchResult::Unknown))?;
-    Ok(SearchReport {
-        result,
-        attempts: progress.attempts.load(Ordering::SeqCst),
-        elapsed: started.elapsed(),
-        threads,
-    })
+    answer.into_report(progress, started, threads)
 }
 
 /// Verifies a colouring with the checker before it may be reported.
