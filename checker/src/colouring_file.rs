@@ -7,7 +7,7 @@
 //! 1 . 1 2 …
 //! ```
 //!
-//! The header names the claim's forbidden cliques (`spec=`) and the order. Then come
+//! The header names the claim's forbidden graphs (`spec=`) and the order. Then come
 //! exactly `order` rows of `order` whitespace-separated entries; entry j of row i is
 //! the colour (1..=r) of edge {i, j}. The matrix must be symmetric.
 

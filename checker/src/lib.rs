@@ -1,6 +1,6 @@
 //! The ramsift checker: the trust anchor of the project.
 //!
-//! It reads a claim ("this colouring of K_n has no monochromatic forbidden clique")
+//! It reads a claim ("this colouring of K_n has no monochromatic forbidden graph")
 //! and verifies it with its own small code, never through the encoder, the CNF or
 //! the solver. It depends on neither of the other ramsift crates; where it repeats
 //! their logic (the forbidden-graph list, the graph6 format) it does so on purpose.

@@ -30,7 +30,7 @@ struct Cli {
 
 #[derive(Subcommand)]
 enum Command {
-    /// Check that a colouring has no monochromatic forbidden clique.
+    /// Check that a colouring has no monochromatic forbidden graph.
     ///
     /// FILE is a ramsift colouring file, or a graph6 file (one graph per line; edges
     /// are colour 1, non-edges colour 2), which needs --forbid.

@@ -1,5 +1,5 @@
 //! The verdict on a witness colouring: valid for the claim, or the first
-//! monochromatic forbidden clique found.
+//! monochromatic forbidden graph found.
 
 use std::fmt;
 
@@ -11,7 +11,7 @@ use crate::subgraphs::find_monochromatic_copy;
 /// Outcome of checking a colouring against a claim.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub enum Verdict {
-    /// No colour class contains its forbidden clique.
+    /// No colour class contains its forbidden graph.
     Valid,
     /// Colour `colour` contains a clique of the forbidden size on `vertices`.
     Monochromatic { colour: usize, vertices: Vec<usize> },

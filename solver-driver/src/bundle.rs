@@ -235,7 +235,7 @@ pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
          How it is shown\n\
          ---------------\n\
          {formula} is a CNF formula that is satisfiable exactly when some colouring avoids every\n\
-         forbidden clique (its header states the variable map). {proof} is a DRAT refutation of it\n\
+         forbidden graph (its header states the variable map). {proof} is a DRAT refutation of it\n\
          produced by {solver}.\n\n\
          {symmetry}\n\n\
          How to check it\n\
