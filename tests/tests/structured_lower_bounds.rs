@@ -196,6 +196,27 @@ fn both_local_search_rules_find_44_colourings_of_k16() {
     }
 }
 
+/// The hybrid search (`find`'s default) on the full formula of (sizes; n).
+fn hybrid(sizes: &[usize], n: usize, threads: usize, seed: u64) -> SearchResult {
+    let instance = Instance::new(spec(sizes), n).unwrap();
+    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let options = SearchOptions {
+        threads,
+        seed,
+        timeout: Some(Duration::from_secs(120)),
+        ..SearchOptions::default()
+    };
+    hybrid_search(
+        &Formula::from_encoding(&encoding),
+        instance.spec(),
+        &options,
+        &SearchProgress::default(),
+        |_| {},
+    )
+    .unwrap()
+    .result
+}
+
 #[test]
 fn hybrid_finds_a_witness_where_no_structured_family_has_one() {
     // (4,4;15): the circulant, Z3xZ5 and 3-block families are all empty (checked
@@ -208,27 +229,10 @@ fn hybrid_finds_a_witness_where_no_structured_family_has_one() {
     ] {
         assert_eq!(family(&orbits, &[4, 4]), FamilyOutcome::NoneInFamily);
     }
-    let instance = Instance::new(spec(&[4, 4]), 15).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
-    let formula = Formula::from_encoding(&encoding);
-    let options = SearchOptions {
-        threads: 2,
-        seed: 4,
-        timeout: Some(Duration::from_secs(120)),
-        ..SearchOptions::default()
-    };
-    let report = hybrid_search(
-        &formula,
-        instance.spec(),
-        &options,
-        &SearchProgress::default(),
-        |_| {},
-    )
-    .unwrap();
     let SearchResult::Found {
         colouring,
         found_by,
-    } = report.result
+    } = hybrid(&[4, 4], 15, 2, 4)
     else {
         panic!("(4,4;15) has colourings");
     };
@@ -239,23 +243,11 @@ fn hybrid_finds_a_witness_where_no_structured_family_has_one() {
 #[test]
 fn hybrid_keeps_none_exists_complete() {
     // R(3,4) = 9 (DS1): the complete worker must still answer "none" at 9.
-    let instance = Instance::new(spec(&[3, 4]), 9).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
-    let formula = Formula::from_encoding(&encoding);
     for threads in [1, 2] {
-        let options = SearchOptions {
-            threads,
-            timeout: Some(Duration::from_secs(120)),
-            ..SearchOptions::default()
-        };
-        let report = hybrid_search(
-            &formula,
-            instance.spec(),
-            &options,
-            &SearchProgress::default(),
-            |_| {},
-        )
-        .unwrap();
-        assert_eq!(report.result, SearchResult::NoneExists, "threads {threads}");
+        assert_eq!(
+            hybrid(&[3, 4], 9, threads, 0),
+            SearchResult::NoneExists,
+            "threads {threads}"
+        );
     }
 }
