@@ -103,7 +103,17 @@ impl<W: Write> Write for InterruptSink<'_, W> {
 /// how searches without a trace get a deadline and the stop flag. varisat's own
 /// proof format is used, since (unlike DRAT) it allows clauses added between
 /// solves, as blocking clauses are.
-pub fn limited_solver<'a>(limits: Limits<'a>, report: &'a SinkReport) -> varisat::Solver<'a> {
+pub fn limited_solver<'a>(
+    stop: &'a AtomicBool,
+    deadline: Option<Instant>,
+    report: &'a SinkReport,
+) -> varisat::Solver<'a> {
+    let limits = Limits {
+        stop,
+        deadline,
+        budget_bytes: None,
+        bytes_seen: None,
+    };
     let mut solver = varisat::Solver::new();
     solver.write_proof(
         InterruptSink::<io::Sink>::new(limits, None, report),

@@ -21,7 +21,7 @@ use varisat::{ExtendFormula, Lit};
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, Scheme, SymmetrySet};
 
-use crate::interrupt::{limited_solver, Limits, SinkReport};
+use crate::interrupt::{limited_solver, SinkReport};
 use crate::portfolio::SearchError;
 use crate::verify::verify_witness;
 use canonical::{canonical_form, colour_permutations, ColourTable};
@@ -73,13 +73,7 @@ pub fn enumerate(
     let r = instance.colours();
 
     let report = SinkReport::default();
-    let limits = Limits {
-        stop,
-        deadline,
-        budget_bytes: None,
-        bytes_seen: None,
-    };
-    let mut solver = limited_solver(limits, &report);
+    let mut solver = limited_solver(stop, deadline, &report);
     let mut buffer = Vec::new();
     encoding
         .for_each_clause::<()>(|clause| {

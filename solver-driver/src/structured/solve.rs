@@ -10,7 +10,7 @@ use ramsift_encoder::{Colouring, RamseySpec};
 
 use super::families::{EdgeOrbits, FamilyError};
 use super::orbit_formula::{orbit_literal, OrbitFormula};
-use crate::interrupt::{limited_solver, Limits, SinkReport};
+use crate::interrupt::{limited_solver, SinkReport};
 use crate::portfolio::SearchError;
 use crate::verify::verify_witness;
 
@@ -142,13 +142,7 @@ fn orbit_models(
     deadline: Option<Instant>,
 ) -> Result<(Vec<Vec<bool>>, bool), SearchError> {
     let report = SinkReport::default();
-    let limits = Limits {
-        stop,
-        deadline,
-        budget_bytes: None,
-        bytes_seen: None,
-    };
-    let mut solver = limited_solver(limits, &report);
+    let mut solver = limited_solver(stop, deadline, &report);
     let mut buffer = Vec::new();
     for clause in &formula.clauses {
         buffer.clear();
