@@ -156,6 +156,18 @@ impl FirstAnswer {
     }
 }
 
+/// A rayon pool of `threads` workers (at least one), for every parallel search.
+pub(crate) fn worker_pool(threads: usize) -> Result<rayon::ThreadPool, SearchError> {
+    let threads = threads.max(1);
+    rayon::ThreadPoolBuilder::new()
+        .num_threads(threads)
+        .build()
+        .map_err(|e| SearchError::Threads {
+            threads,
+            message: e.to_string(),
+        })
+}
+
 /// Runs the search; `tick` is called about every 100 ms on the calling thread.
 pub fn search(
     formula: &Formula,
@@ -170,13 +182,7 @@ pub fn search(
     let answer = FirstAnswer::default();
     let stop = &answer.stop;
 
-    let pool = rayon::ThreadPoolBuilder::new()
-        .num_threads(threads)
-        .build()
-        .map_err(|e| SearchError::Threads {
-            threads,
-            message: e.to_string(),
-        })?;
+    let pool = worker_pool(threads)?;
 
     let (done_tx, done_rx) = mpsc::channel::<()>();
     pool.in_place_scope(|scope| {

@@ -50,8 +50,12 @@ fn plan_r44(dir: &Path) {
     assert!(out.contains("as 16 shards"), "{out}");
 }
 
-/// Merges the plan with a composed single trace; the bundle must pass as R(4,4) <= 18.
-fn merge_and_check(plan: &Path, bundle: &Path) -> ramsift_checker::bundle::BundleVerdict {
+/// Merges the plan with a composed single trace; the bundle must pass as `claim`.
+fn merge_and_check(
+    plan: &Path,
+    bundle: &Path,
+    claim: &str,
+) -> ramsift_checker::bundle::BundleVerdict {
     ok(
         &ramsift(&[
             "shard",
@@ -65,7 +69,7 @@ fn merge_and_check(plan: &Path, bundle: &Path) -> ramsift_checker::bundle::Bundl
     );
     let verdict = check_bundle(bundle, &[]).unwrap();
     assert!(verdict.passed(), "{:?}", verdict.failure);
-    assert_eq!(verdict.claim, "R(4,4) <= 18");
+    assert_eq!(verdict.claim, claim);
     verdict
 }
 
@@ -97,7 +101,7 @@ fn local_shards_merge_into_a_passing_bundle_and_damage_is_caught() {
     assert_eq!(status["done"], 16);
 
     let bundle = base.path().join("bundle");
-    let verdict = merge_and_check(&plan, &bundle);
+    let verdict = merge_and_check(&plan, &bundle, "R(4,4) <= 18");
     assert!(verdict
         .passed
         .iter()
@@ -186,21 +190,7 @@ fn shards_of_a_graph_ramsey_refutation_merge_into_a_passing_bundle() {
     );
     assert!(out.contains("as 8 shards"), "{out}");
     ok(&ramsift(&["shard", "local", s(&plan)]), 0);
-    let bundle = dir.path().join("bundle");
-    ok(
-        &ramsift(&[
-            "shard",
-            "merge",
-            s(&plan),
-            "--out",
-            s(&bundle),
-            "--single-trace",
-        ]),
-        20,
-    );
-    let verdict = check_bundle(&bundle, &[]).unwrap();
-    assert!(verdict.passed(), "{:?}", verdict.failure);
-    assert_eq!(verdict.claim, "R(C4,4) <= 10");
+    merge_and_check(&plan, &dir.path().join("bundle"), "R(C4,4) <= 10");
 }
 
 #[test]
@@ -344,5 +334,5 @@ fn slurm_job_array_refutes_and_survives_a_killed_shard() {
     ok(&ramsift(&["shard", "status", s(&plan)]), 0);
 
     let bundle = base.path().join("bundle");
-    merge_and_check(&plan, &bundle);
+    merge_and_check(&plan, &bundle, "R(4,4) <= 18");
 }

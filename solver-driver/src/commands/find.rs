@@ -256,23 +256,13 @@ fn find_in_family(
     let order_report = search_order(choice, instance.spec(), instance.order(), &stop, deadline)?;
     let attempts = order_report.families.len() as u64;
     let (result, note) = match order_report.found() {
-        Some(found) => {
-            let ramsift_driver::structured::FamilyOutcome::Found {
-                colouring,
-                description,
-                ..
-            } = &found.outcome
-            else {
-                unreachable!("found() returns a Found outcome")
-            };
-            (
-                SearchResult::Found {
-                    colouring: colouring.clone(),
-                    found_by: format!("{} ({description})", found.family),
-                },
-                None,
-            )
-        }
+        Some(found) => (
+            SearchResult::Found {
+                colouring: found.colouring.clone(),
+                found_by: format!("{} ({})", found.family, found.description),
+            },
+            None,
+        ),
         None if order_report.verdict() == "none" => {
             let families: Vec<&str> = order_report
                 .families

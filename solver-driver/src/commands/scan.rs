@@ -191,14 +191,6 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         ensure_dir(dir).with_context(|| format!("creating {}", dir.display()))?;
         for order in &report.orders {
             let Some(found) = order.found() else { continue };
-            let FamilyOutcome::Found {
-                colouring,
-                description,
-                ..
-            } = &found.outcome
-            else {
-                continue;
-            };
             let instance = Instance::new(spec.clone(), order.order)?;
             let comments = vec![
                 format!(
@@ -207,13 +199,13 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
                     order.order
                 ),
                 format!(
-                    "{} ({description}); checked by ramsift-checker before writing",
-                    found.family
+                    "{} ({}); checked by ramsift-checker before writing",
+                    found.family, found.description
                 ),
             ];
             let sub = dir.join(format!("order-{}", order.order));
             summary.files.extend(
-                write_witness_files(&sub, &instance, colouring, &comments)
+                write_witness_files(&sub, &instance, found.colouring, &comments)
                     .with_context(|| format!("writing the witness into {}", sub.display()))?,
             );
         }

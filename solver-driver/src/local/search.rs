@@ -15,7 +15,7 @@ use ramsift_encoder::{Colouring, RamseySpec};
 
 use super::moves::{anneal_step, tabu_step, TabuList};
 use super::state::{LocalState, MAX_LOCAL_ORDER};
-use crate::portfolio::SearchError;
+use crate::portfolio::{worker_pool, SearchError};
 use crate::verify::verify_witness;
 
 /// Which move rule.
@@ -119,13 +119,7 @@ pub fn local_search(
     let found: Mutex<Option<(Colouring, String)>> = Mutex::new(None);
     let near: Mutex<Vec<(u64, Colouring)>> = Mutex::new(Vec::new());
     let start_index = AtomicU64::new(0);
-    let pool = rayon::ThreadPoolBuilder::new()
-        .num_threads(threads)
-        .build()
-        .map_err(|e| SearchError::Threads {
-            threads,
-            message: e.to_string(),
-        })?;
+    let pool = worker_pool(threads)?;
     let stall = options
         .stall_steps
         .unwrap_or(50 * edge_count(order) as u64)

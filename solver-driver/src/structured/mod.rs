@@ -114,6 +114,15 @@ impl FamilyChoice {
     }
 }
 
+/// A colouring found at one order, and where it came from.
+#[derive(Clone, Copy, Debug)]
+pub struct FoundColouring<'a> {
+    pub family: &'a str,
+    pub colouring: &'a ramsift_encoder::Colouring,
+    /// E.g. "colour 1: distances {1,2,4,8}; colour 2: distances {3,5,6,7}".
+    pub description: &'a str,
+}
+
 /// What trying every family of a choice at one order gave.
 #[derive(Clone, Debug)]
 pub struct OrderReport {
@@ -122,11 +131,20 @@ pub struct OrderReport {
 }
 
 impl OrderReport {
-    /// The first colouring found, if any.
-    pub fn found(&self) -> Option<&FamilyReport> {
-        self.families
-            .iter()
-            .find(|r| matches!(r.outcome, FamilyOutcome::Found { .. }))
+    /// The first colouring found, if any, with its family and description.
+    pub fn found(&self) -> Option<FoundColouring<'_>> {
+        self.families.iter().find_map(|r| match &r.outcome {
+            FamilyOutcome::Found {
+                colouring,
+                description,
+                ..
+            } => Some(FoundColouring {
+                family: &r.family,
+                colouring,
+                description,
+            }),
+            _ => None,
+        })
     }
 
     /// "found", "none" (every family proved empty) or "unknown".

@@ -43,13 +43,7 @@ pub fn scan(
 ) -> Result<ScanReport, FamilySearchError> {
     let started = Instant::now();
     let stop = AtomicBool::new(false);
-    let pool = rayon::ThreadPoolBuilder::new()
-        .num_threads(threads.max(1))
-        .build()
-        .map_err(|e| crate::portfolio::SearchError::Threads {
-            threads,
-            message: e.to_string(),
-        })?;
+    let pool = crate::portfolio::worker_pool(threads)?;
     let on_order = std::sync::Mutex::new(&mut on_order);
     let results: Vec<Result<OrderReport, FamilySearchError>> = pool.install(|| {
         (from..=to)
