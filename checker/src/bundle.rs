@@ -1,39 +1,31 @@
-//! Checking a certificate bundle written by `ramsift refute`, trusting nothing in it:
+//! Checking a certificate bundle written by `ramsift refute` or `ramsift shard
+//! merge`, trusting nothing in it. The steps, cheapest first:
 //!
-//! 1. `manifest.json` is read; every file it lists must exist with the recorded
-//!    SHA-256; the formula and the DRAT proof must both be listed.
-//! 2. The formula is regenerated from the claim (clique sizes, order, symmetry
-//!    schemes, premises) with the checker's own generator ([`crate::regenerate`])
-//!    and compared with the bundled CNF as a multiset of clauses.
-//! 3. The proof is checked against the formula ([`crate::drat_check`]).
-//! 4. Premises (smaller Ramsey values used by degree bounds) are reported as
-//!    assumptions unless a bundle given with `--premise`, or one in the bundle's
-//!    own `premises/` folder, certifies them (and passes itself).
+//! 1. `manifest.json` is read ([`crate::manifest`]): format, claim, order bound.
+//! 2. Every listed file must lie inside the bundle (no `..`, no symlink leading
+//!    out), be a regular file, and have the recorded SHA-256.
+//! 3. The formula is regenerated from the claim with the checker's own generator
+//!    ([`crate::regenerate`]), never past the bundled formula's clause count, and
+//!    compared with the bundled CNF as a multiset of clauses.
+//! 4. The proof is checked against it: one DRAT trace ([`crate::drat_check`]), or
+//!    every shard under its cube with a complete coverage tree ([`crate::shards`]).
+//! 5. Premises (smaller Ramsey values used by degree bounds) are certified by the
+//!    bundles given with `--premise` and those in `premises/` ([`crate::premises`]);
+//!    any of these that fails makes the whole check fail. A premise no bundle
+//!    certifies stays an assumption, and the verdict is then only conditional.
 
 use std::path::{Path, PathBuf};
 
-use serde_json::Value;
 use sha2::{Digest, Sha256};
 
-use crate::claim::Claim;
-use crate::cnf::parse_cnf;
+use crate::cnf::{parse_cnf, Cnf};
 use crate::drat_check::check_drat;
 use crate::drat_parse::parse_drat;
-use crate::input::read_input;
+use crate::input::{read_input, require_regular_file};
 use crate::input_error::InputError;
+use crate::manifest::{read_manifest, Manifest};
+use crate::premises::{certify_premises, PremiseStatus};
 use crate::regenerate::{normalized, regenerate, PremiseBound, Statement};
-
-/// The bundle layout this checker understands.
-pub const BUNDLE_FORMAT: &str = "ramsift-bundle 1";
-
-/// A premise and how it stands.
-#[derive(Clone, Debug, PartialEq, Eq)]
-pub struct PremiseStatus {
-    pub statement: String,
-    /// The bundle that certifies it, if any.
-    pub certified_by: Option<PathBuf>,
-    pub source: String,
-}
 
 /// The verdict on a bundle.
 #[derive(Clone, Debug)]
@@ -47,266 +39,154 @@ pub struct BundleVerdict {
     pub premises: Vec<PremiseStatus>,
     /// Steps that passed, in words.
     pub passed: Vec<String>,
-    /// The first failure; None means PASS.
+    /// The first failure; None means the bundle's own proof holds.
     pub failure: Option<String>,
 }
 
 impl BundleVerdict {
+    /// The bundle's proof holds (premises may still be assumed).
     pub fn passed(&self) -> bool {
         self.failure.is_none()
     }
 
-    /// Whether the claim holds with no premise left unproven.
+    /// The claim holds with nothing assumed.
     pub fn unconditional(&self) -> bool {
         self.passed() && self.premises.iter().all(|p| p.certified_by.is_some())
     }
 }
 
-fn sha256_hex(bytes: &[u8]) -> String {
-    Sha256::digest(bytes)
-        .iter()
-        .map(|b| format!("{b:02x}"))
-        .collect()
-}
-
-fn field<'a>(value: &'a Value, path: &[&str], name: &str) -> Result<&'a Value, InputError> {
-    let mut v = value;
-    for key in path {
-        v = v.get(key).ok_or_else(|| {
-            InputError::whole(name, format!("manifest has no field {}", path.join(".")))
-        })?;
-    }
-    Ok(v)
-}
-
-fn usize_list(v: &Value, what: &str, name: &str) -> Result<Vec<usize>, InputError> {
-    v.as_array()
-        .and_then(|a| {
-            a.iter()
-                .map(|x| x.as_u64().map(|n| n as usize))
-                .collect::<Option<Vec<_>>>()
-        })
-        .ok_or_else(|| {
-            InputError::whole(
-                name,
-                format!("manifest field {what} must be a list of whole numbers"),
-            )
-        })
-}
+/// How deep premise bundles may nest (a bundle, its premise, that one's premise…).
+pub const MAX_PREMISE_DEPTH: usize = 8;
 
 /// Checks the bundle in `dir`; `premise_dirs` may certify its premises.
-/// Returns Err only when the manifest itself cannot be read.
+/// Returns Err only when the bundle's own manifest cannot be read or accepted.
 pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdict, InputError> {
-    let manifest_path = dir.join("manifest.json");
-    let name = manifest_path.display().to_string();
-    let text = std::fs::read(&manifest_path)
-        .map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
-    let manifest: Value = serde_json::from_slice(&text)
-        .map_err(|e| InputError::at_line(&name, e.line(), format!("not valid JSON: {e}")))?;
-    let format = field(&manifest, &["bundle_format"], &name)?
-        .as_str()
-        .unwrap_or_default();
-    if format != BUNDLE_FORMAT {
-        return Err(InputError::whole(
-            &name,
-            format!("bundle_format is {format:?}, expected {BUNDLE_FORMAT:?}"),
-        ));
-    }
-    let order = field(&manifest, &["claim", "order"], &name)?
-        .as_u64()
-        .ok_or_else(|| InputError::whole(&name, "claim.order must be a whole number"))?
-        as usize;
-    // Forbidden graphs other than cliques are named in claim.forbidden (the
-    // specification's entries, read with the checker's own parser); clique claims
-    // may give claim.clique_sizes alone.
-    let claim_graphs = match manifest.get("claim").and_then(|c| c.get("forbidden")) {
-        Some(list) => {
-            let entries: Vec<String> = list
-                .as_array()
-                .map(|a| {
-                    a.iter()
-                        .filter_map(|s| s.as_str().map(String::from))
-                        .collect()
-                })
-                .filter(|e: &Vec<String>| e.len() == list.as_array().map_or(0, Vec::len))
-                .ok_or_else(|| {
-                    InputError::whole(&name, "claim.forbidden must be a list of graph names")
-                })?;
-            let parsed = Claim::parse(&entries.join(","))
-                .map_err(|e| InputError::whole(&name, format!("claim.forbidden: {e}")))?;
-            if let Some(sizes) = manifest.get("claim").and_then(|c| c.get("clique_sizes")) {
-                let sizes = usize_list(sizes, "claim.clique_sizes", &name)?;
-                if parsed.clique_sizes() != Some(sizes) {
-                    return Err(InputError::whole(
-                        &name,
-                        "claim.forbidden and claim.clique_sizes disagree",
-                    ));
-                }
-            }
-            parsed
-        }
-        None => Claim::cliques(&usize_list(
-            field(&manifest, &["claim", "clique_sizes"], &name)?,
-            "claim.clique_sizes",
-            &name,
-        )?),
-    };
-    let clique_sizes = claim_graphs.clique_sizes().unwrap_or_default();
-    if claim_graphs.forbidden.len() < 2
-        || claim_graphs
-            .forbidden
-            .iter()
-            .any(|g| g.vertices() < 2 || g.vertices() > order)
-        || order > 10_000
-    {
-        return Err(InputError::whole(&name, format!("claim {claim_graphs} at order {order} is not a Ramsey question this checker accepts")));
-    }
-    let symmetry: Vec<String> = field(&manifest, &["encoding", "symmetry"], &name)?
-        .as_array()
-        .map(|a| {
-            a.iter()
-                .filter_map(|s| s.as_str().map(String::from))
-                .collect()
-        })
-        .ok_or_else(|| InputError::whole(&name, "encoding.symmetry must be a list of names"))?;
-    let mut premises = Vec::new();
-    let mut premise_sources = Vec::new();
-    for p in field(&manifest, &["premises"], &name)?
-        .as_array()
-        .cloned()
-        .unwrap_or_default()
-    {
-        let cliques = usize_list(
-            field(&p, &["clique_sizes"], &name)?,
-            "premises[].clique_sizes",
-            &name,
-        )?;
-        let bound = field(&p, &["upper_bound"], &name)?
-            .as_u64()
-            .ok_or_else(|| {
-                InputError::whole(&name, "premises[].upper_bound must be a whole number")
-            })? as usize;
-        premise_sources.push(
-            p.get("source")
-                .and_then(Value::as_str)
-                .unwrap_or("")
-                .to_string(),
-        );
-        premises.push(PremiseBound { cliques, bound });
-    }
-    let claim = format!("R({claim_graphs}) <= {order}");
+    check_nested(dir, premise_dirs, &mut Vec::new())
+}
 
-    let mut verdict = BundleVerdict {
-        claim: claim.clone(),
-        clique_sizes: clique_sizes.clone(),
+/// Checks a bundle below the ones in `chain` (canonical paths, outermost first).
+pub(crate) fn check_nested(
+    dir: &Path,
+    premise_dirs: &[PathBuf],
+    chain: &mut Vec<PathBuf>,
+) -> Result<BundleVerdict, InputError> {
+    let name = dir.display().to_string();
+    let root = dir
+        .canonicalize()
+        .map_err(|e| InputError::whole(&name, format!("cannot open the bundle: {e}")))?;
+    let manifest = read_manifest(&root)?;
+    let manifest_name = dir.join("manifest.json").display().to_string();
+    let claim = manifest.claim(&manifest_name)?;
+    let order = manifest.claim.order;
+    let statement = Statement {
+        forbidden: claim.forbidden.clone(),
         order,
-        symmetry: symmetry.clone(),
+        symmetry: manifest.encoding.symmetry.clone(),
+        premises: manifest
+            .premises
+            .iter()
+            .map(|p| PremiseBound {
+                cliques: p.clique_sizes.clone(),
+                bound: p.upper_bound,
+            })
+            .collect(),
+    };
+    let mut verdict = BundleVerdict {
+        claim: format!("R({claim}) <= {order}"),
+        clique_sizes: claim.clique_sizes().unwrap_or_default(),
+        order,
+        symmetry: statement.symmetry.clone(),
         premises: Vec::new(),
         passed: Vec::new(),
         failure: None,
     };
-    let fail = |mut v: BundleVerdict, why: String| {
-        v.failure = Some(why);
-        Ok(v)
+    let used = match check_own_proof(&root, &manifest, &statement, &mut verdict) {
+        Ok(used) => used,
+        Err(why) => {
+            verdict.failure = Some(why);
+            return Ok(verdict);
+        }
     };
-    let stated = field(&manifest, &["claim", "statement"], &name)?
-        .as_str()
-        .unwrap_or_default();
-    if stated != claim {
-        return fail(
-            verdict,
-            format!("the manifest states {stated:?}, but its clique sizes and order say {claim:?}"),
-        );
+    chain.push(root.clone());
+    let premises = certify_premises(&root, premise_dirs, &manifest, &used, chain);
+    chain.pop();
+    match premises {
+        Ok(statuses) => verdict.premises = statuses,
+        Err(why) => verdict.failure = Some(why),
     }
+    Ok(verdict)
+}
 
-    // 1. Files and hashes.
-    let files = field(&manifest, &["files"], &name)?
-        .as_array()
-        .cloned()
-        .unwrap_or_default();
-    let mut formula_file = None;
-    let mut proof_file = None;
-    for f in &files {
-        let (Some(file), Some(role), Some(hash)) = (
-            f.get("name").and_then(Value::as_str),
-            f.get("role").and_then(Value::as_str),
-            f.get("sha256").and_then(Value::as_str),
-        ) else {
-            return fail(verdict, "a files[] entry lacks name, role or sha256".into());
-        };
-        if file.starts_with('/')
-            || file.split('/').any(|part| part == ".." || part.is_empty())
-            || file.contains('\\')
-        {
-            return fail(
-                verdict,
-                format!("file name {file:?} points outside the bundle"),
-            );
+/// Resolves a file named in the manifest: inside the bundle, a regular file.
+pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
+    if name.starts_with('/') || name.contains('\\') || name.split('/').any(|p| p == ".." || p.is_empty()) {
+        return Err(format!("file name {name:?} points outside the bundle"));
+    }
+    let path = root
+        .join(name)
+        .canonicalize()
+        .map_err(|e| format!("{name} is listed in the manifest but cannot be opened: {e}"))?;
+    if !path.starts_with(root) {
+        return Err(format!("{name} is a link that leads outside the bundle"));
+    }
+    require_regular_file(&path).map_err(|e| e.to_string())?;
+    Ok(path)
+}
+
+fn sha256_of(path: &Path) -> Result<String, String> {
+    let mut file = std::fs::File::open(path).map_err(|e| format!("{}: {e}", path.display()))?;
+    let mut hasher = Sha256::new();
+    std::io::copy(&mut file, &mut hasher).map_err(|e| format!("{}: {e}", path.display()))?;
+    Ok(hasher.finalize().iter().map(|b| format!("{b:02x}")).collect())
+}
+
+/// Steps 2 to 4; returns the premises the formula actually uses.
+fn check_own_proof(
+    root: &Path,
+    manifest: &Manifest,
+    statement: &Statement,
+    verdict: &mut BundleVerdict,
+) -> Result<Vec<PremiseBound>, String> {
+    if manifest.claim.statement != verdict.claim {
+        return Err(format!(
+            "the manifest states {:?}, but its forbidden graphs and order say {:?}",
+            manifest.claim.statement, verdict.claim
+        ));
+    }
+    let (mut formula, mut proof) = (None, None);
+    for file in &manifest.files {
+        let path = bundle_file(root, &file.name)?;
+        let actual = sha256_of(&path)?;
+        if actual != file.sha256 {
+            return Err(format!("{}: SHA-256 is {actual}, the manifest says {}", file.name, file.sha256));
         }
-        let path = dir.join(file);
-        let Ok(bytes) = std::fs::read(&path) else {
-            return fail(
-                verdict,
-                format!("{file} is listed in the manifest but missing"),
-            );
-        };
-        let actual = sha256_hex(&bytes);
-        if actual != hash {
-            return fail(
-                verdict,
-                format!("{file}: SHA-256 is {actual}, the manifest says {hash}"),
-            );
-        }
-        match role {
-            "formula" => formula_file = Some(path),
-            "drat-proof" => proof_file = Some(path),
+        match file.role.as_str() {
+            "formula" if formula.is_none() => formula = Some(path),
+            "drat-proof" if proof.is_none() => proof = Some(path),
+            "formula" | "drat-proof" => return Err(format!("the manifest lists a second {} file", file.role)),
             _ => {}
         }
     }
-    let sharding = manifest.get("sharding").filter(|v| !v.is_null());
-    let Some(formula_path) = formula_file else {
-        return fail(verdict, "the manifest lists no formula file".into());
-    };
-    if proof_file.is_none() && sharding.is_none() {
-        return fail(
-            verdict,
-            "the manifest lists no drat-proof file and no shards".into(),
-        );
+    let formula = formula.ok_or("the manifest lists no formula file")?;
+    if proof.is_none() && manifest.sharding.is_none() {
+        return Err("the manifest lists no drat-proof file and no shards".into());
     }
-    verdict
-        .passed
-        .push(format!("{} files match their SHA-256", files.len()));
+    verdict.passed.push(format!("{} files match their SHA-256", manifest.files.len()));
 
-    // 2. The formula says exactly what the claim says.
-    let statement = Statement {
-        forbidden: claim_graphs.forbidden.clone(),
-        order,
-        symmetry,
-        premises,
-    };
-    let regenerated = match regenerate(&statement) {
-        Ok(r) => r,
-        Err(e) => return fail(verdict, e),
-    };
-    let formula_name = formula_path.display().to_string();
-    let cnf = match read_input(&formula_path).and_then(|b| parse_cnf(&formula_name, &b)) {
-        Ok(c) => c,
-        Err(e) => return fail(verdict, format!("the formula cannot be read: {e}")),
-    };
-    if cnf.variables != regenerated.variables
-        || normalized(&cnf.clauses) != normalized(&regenerated.clauses)
-    {
-        return fail(
-            verdict,
-            format!(
-                "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
-                cnf.variables,
-                cnf.clauses.len(),
-                statement.symmetry.join(","),
-                regenerated.variables,
-                regenerated.clauses.len()
-            ),
-        );
+    let formula_name = formula.display().to_string();
+    let cnf = read_input(&formula)
+        .and_then(|b| parse_cnf(&formula_name, &b))
+        .map_err(|e| format!("the formula cannot be read: {e}"))?;
+    let regenerated = regenerate(statement, cnf.clauses.len())?;
+    if cnf.variables != regenerated.variables || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
+        return Err(format!(
+            "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
+            cnf.variables,
+            cnf.clauses.len(),
+            statement.symmetry.join(","),
+            regenerated.variables,
+            regenerated.clauses.len()
+        ));
     }
     verdict.passed.push(format!(
         "formula regenerated independently: {} variables, {} clauses, identical as a set",
@@ -314,177 +194,34 @@ pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdic
         cnf.clauses.len()
     ));
 
-    // 3. The proof refutes it: one trace, or every shard under its cube.
-    if let Some(sharding) = sharding {
-        match check_shards(dir, &cnf, sharding, &files) {
-            Ok(summary) => verdict.passed.push(summary),
-            Err(why) => return fail(verdict, why),
-        }
+    if let Some(sharding) = &manifest.sharding {
+        let summary = crate::shards::check_shards(root, &cnf, sharding, &manifest.files)?;
+        verdict.passed.push(summary);
     }
-    if let Some(proof_path) = proof_file {
-        let proof_name = proof_path.display().to_string();
-        let steps = match read_input(&proof_path).and_then(|b| parse_drat(&proof_name, &b)) {
-            Ok(s) => s,
-            Err(e) => return fail(verdict, format!("the proof cannot be read: {e}")),
-        };
-        match check_drat(&cnf, &steps, false) {
-            Ok((report, _)) => verdict.passed.push(format!(
-                "DRAT proof verified: {} lemmas, {} checked, core of {} original clauses",
-                report.lemmas, report.checked_lemmas, report.core_original_clauses
-            )),
-            Err(e) => return fail(verdict, format!("the proof is rejected: {e}")),
-        }
+    if let Some(path) = proof {
+        let summary = check_trace(&cnf, &path, &[])?;
+        verdict.passed.push(format!("DRAT proof verified: {summary}"));
     }
-
-    // 4. Premises.
-    let mut candidates: Vec<PathBuf> = premise_dirs.to_vec();
-    if let Ok(entries) = std::fs::read_dir(dir.join("premises")) {
-        let mut nested: Vec<PathBuf> = entries
-            .filter_map(|e| e.ok().map(|e| e.path()))
-            .filter(|p| p.is_dir())
-            .collect();
-        nested.sort();
-        candidates.extend(nested);
-    }
-    for used in &regenerated.used_premises {
-        let index = statement
-            .premises
-            .iter()
-            .position(|p| p == used)
-            .unwrap_or(0);
-        let text = format!(
-            "R({}) <= {}",
-            used.cliques
-                .iter()
-                .map(|k| k.to_string())
-                .collect::<Vec<_>>()
-                .join(","),
-            used.bound
-        );
-        let mut certified_by = None;
-        for candidate in &candidates {
-            if let Ok(sub) = check_bundle(candidate, &[]) {
-                let mut theirs = sub.clique_sizes.clone();
-                theirs.sort_unstable();
-                let mut ours = used.cliques.clone();
-                ours.sort_unstable();
-                if sub.unconditional() && theirs == ours && sub.order <= used.bound {
-                    certified_by = Some(candidate.clone());
-                    break;
-                }
-            }
-        }
-        verdict.premises.push(PremiseStatus {
-            statement: text,
-            certified_by,
-            source: premise_sources.get(index).cloned().unwrap_or_default(),
-        });
-    }
-    Ok(verdict)
+    Ok(regenerated.used_premises)
 }
 
-/// The leaves of a coverage tree with their paths; checks its shape.
-fn tree_leaves(
-    tree: &Value,
-    variables: usize,
-    path: &mut Vec<i32>,
-    out: &mut Vec<(usize, Vec<i32>)>,
-) -> Result<(), String> {
-    if let Some(leaf) = tree.get("leaf") {
-        let leaf = leaf.as_u64().ok_or("a tree leaf must be a shard index")? as usize;
-        out.push((leaf, path.clone()));
-        return Ok(());
-    }
-    let var = tree
-        .get("split")
-        .and_then(Value::as_i64)
-        .filter(|&v| v >= 1 && v as usize <= variables)
-        .ok_or("a tree node must split on a variable of the formula")? as i32;
-    if path.iter().any(|l| l.abs() == var) {
-        return Err(format!(
-            "the tree splits twice on variable {var} along one path"
-        ));
-    }
-    let (Some(positive), Some(negative)) = (tree.get("positive"), tree.get("negative")) else {
-        return Err(format!(
-            "the split on variable {var} lacks a positive or negative branch"
-        ));
-    };
-    path.push(var);
-    tree_leaves(positive, variables, path, out)?;
-    path.pop();
-    path.push(-var);
-    tree_leaves(negative, variables, path, out)?;
-    path.pop();
-    Ok(())
-}
-
-/// Checks a sharded refutation: the tree covers every assignment (each split has both
-/// branches, so the leaves' cubes form a tautology), each leaf has exactly one shard
-/// trace whose cube is the leaf's path, and each trace refutes formula ∧ cube.
-fn check_shards(
-    dir: &Path,
-    cnf: &crate::cnf::Cnf,
-    sharding: &Value,
-    files: &[Value],
-) -> Result<String, String> {
-    let tree = sharding.get("tree").ok_or("sharding has no tree")?;
-    let mut leaves = Vec::new();
-    tree_leaves(tree, cnf.variables, &mut Vec::new(), &mut leaves)?;
-    let count = leaves.len();
-    let mut seen = vec![false; count];
-    for (leaf, _) in &leaves {
-        if *leaf >= count || std::mem::replace(&mut seen[*leaf], true) {
-            return Err(format!(
-                "the tree's leaves are not the shard indices 0..{count} each once"
-            ));
-        }
-    }
-    if sharding.get("shards").and_then(Value::as_u64) != Some(count as u64) {
-        return Err(format!(
-            "sharding.shards does not match the {count} leaves of the tree"
-        ));
-    }
-    let mut lemmas = 0;
-    for (leaf, path) in &leaves {
-        let shard_files: Vec<&Value> = files
-            .iter()
-            .filter(|f| f.get("role").and_then(Value::as_str) == Some("shard-proof"))
-            .filter(|f| f.get("shard").and_then(Value::as_u64) == Some(*leaf as u64))
-            .collect();
-        let [file] = shard_files.as_slice() else {
-            return Err(format!(
-                "shard {leaf} has {} traces listed, expected exactly one",
-                shard_files.len()
-            ));
-        };
-        let mut cube: Vec<i32> = file
-            .get("cube")
-            .and_then(Value::as_array)
-            .and_then(|a| {
-                a.iter()
-                    .map(|x| x.as_i64().map(|v| v as i32))
-                    .collect::<Option<Vec<_>>>()
-            })
-            .ok_or(format!("shard {leaf} has no cube"))?;
-        let mut expected = path.clone();
-        cube.sort_unstable();
-        expected.sort_unstable();
-        if cube != expected {
-            return Err(format!(
-                "shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"
-            ));
-        }
-        let name = file.get("name").and_then(Value::as_str).unwrap_or_default();
-        let path_on_disk = dir.join(name);
-        let steps = read_input(&path_on_disk)
-            .and_then(|b| parse_drat(&path_on_disk.display().to_string(), &b))
-            .map_err(|e| format!("shard {leaf}: {e}"))?;
-        let mut with_cube = cnf.clone();
+/// Checks one DRAT trace against the formula with `cube` added as unit clauses.
+pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String, String> {
+    let name = path.display().to_string();
+    let steps = read_input(path)
+        .and_then(|b| parse_drat(&name, &b))
+        .map_err(|e| format!("the proof cannot be read: {e}"))?;
+    let mut with_cube;
+    let formula = if cube.is_empty() {
+        cnf
+    } else {
+        with_cube = cnf.clone();
         with_cube.clauses.extend(cube.iter().map(|&l| vec![l]));
-        let (report, _) = check_drat(&with_cube, &steps, false)
-            .map_err(|e| format!("shard {leaf}'s trace is rejected: {e}"))?;
-        lemmas += report.lemmas;
-    }
-    Ok(format!("coverage tree complete ({count} cubes); every shard trace verified under its cube ({lemmas} lemmas)"))
+        &with_cube
+    };
+    let (report, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
+    Ok(format!(
+        "{} lemmas, {} checked, core of {} original clauses",
+        report.lemmas, report.checked_lemmas, report.core_original_clauses
+    ))
 }

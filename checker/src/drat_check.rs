@@ -20,7 +20,9 @@ use std::collections::HashMap;
 use std::fmt;
 
 use crate::cnf::Cnf;
+use crate::dense_vars::DenseVars;
 use crate::drat_parse::{DratStep, StepKind};
+use crate::lrat::{number_lemmas, Justification, LratLemma};
 
 /// What a successful check found.
 #[derive(Clone, Debug, Default, PartialEq, Eq)]
@@ -72,14 +74,6 @@ impl fmt::Display for DratFailure {
             ),
         }
     }
-}
-
-/// One line of an LRAT proof: a lemma with its hints (negative hints start RAT candidates).
-#[derive(Clone, Debug, PartialEq, Eq)]
-pub struct LratLemma {
-    pub id: u64,
-    pub literals: Vec<i32>,
-    pub hints: Vec<i64>,
 }
 
 const NO_REASON: u32 = u32::MAX;
@@ -422,26 +416,17 @@ impl Checker {
     }
 }
 
-/// How a checked lemma was justified.
-enum Justification {
-    Trivial,
-    Rup(Vec<u32>),
-    Rat(Vec<(u32, Vec<u32>)>),
-}
-
 /// Checks a DRAT refutation of `cnf`. With `emit_lrat`, also returns an LRAT proof.
 pub fn check_drat(
     cnf: &Cnf,
     steps: &[DratStep],
     emit_lrat: bool,
 ) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
-    let max_var = steps
+    let mut vars = DenseVars::new(&cnf.clauses);
+    steps
         .iter()
         .flat_map(|s| s.literals.iter())
-        .map(|l| l.unsigned_abs() as usize)
-        .max()
-        .unwrap_or(0)
-        .max(cnf.variables);
+        .for_each(|&l| vars.add(l));
     let mut report = DratReport {
         original_clauses: cnf.clauses.len(),
         ..DratReport::default()
@@ -450,7 +435,7 @@ pub fn check_drat(
         report.formula_has_empty_clause = true;
         return Ok((report, emit_lrat.then(Vec::new)));
     }
-    let mut checker = Checker::new(max_var);
+    let mut checker = Checker::new(vars.max_var());
     let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
     let key = |lits: &[i32]| {
         let mut k: Vec<Lit> = lits.iter().map(|&l| code(l)).collect();
@@ -467,20 +452,21 @@ pub fn check_drat(
     let mut records: Vec<(Record, usize)> = Vec::new();
     let mut empty_lemma: Option<u32> = None;
     for (index, step) in steps.iter().enumerate() {
+        let literals: Vec<i32> = step.literals.iter().map(|&l| vars.dense(l)).collect();
         match step.kind {
             StepKind::Add => {
                 report.lemmas += 1;
-                let id = checker.add_clause(&step.literals, step.literals.first().copied());
-                by_content.entry(key(&step.literals)).or_default().push(id);
+                let id = checker.add_clause(&literals, literals.first().copied());
+                by_content.entry(key(&literals)).or_default().push(id);
                 records.push((Record::Add(id), index));
-                if step.literals.is_empty() {
+                if literals.is_empty() {
                     empty_lemma = Some(id);
                     break;
                 }
             }
             StepKind::Delete => {
                 report.deletions += 1;
-                let k = key(&step.literals);
+                let k = key(&literals);
                 let found = by_content.get_mut(&k).and_then(|ids| {
                     let at = ids
                         .iter()
@@ -517,7 +503,7 @@ pub fn check_drat(
     checker.mark_core(final_id);
 
     // Backward pass.
-    let mut justifications: HashMap<u32, Justification> = HashMap::new();
+    let mut justified: Vec<(u32, Justification)> = Vec::new();
     for (record, index) in records.iter().rev() {
         match *record {
             Record::Skip => {}
@@ -530,7 +516,7 @@ pub fn check_drat(
                 report.checked_lemmas += 1;
                 let lits = checker.clauses[id as usize].lits.clone();
                 let justification = match checker.rup(&lits) {
-                    Rup::Trivial => Justification::Trivial,
+                    Rup::Trivial => continue,
                     Rup::Conflict(hints) => Justification::Rup(hints),
                     Rup::NoConflict => match checker.rat(id) {
                         Some(proofs) => {
@@ -548,7 +534,7 @@ pub fn check_drat(
                     },
                 };
                 if emit_lrat {
-                    justifications.insert(id, justification);
+                    justified.push((id, justification));
                 }
             }
         }
@@ -560,50 +546,19 @@ pub fn check_drat(
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {
-        let mut lrat_id: HashMap<u32, u64> = (0..cnf.clauses.len() as u32)
-            .map(|i| (i, i as u64 + 1))
-            .collect();
-        let mut next = cnf.clauses.len() as u64 + 1;
-        let mut lines = Vec::new();
-        for (record, _) in &records {
-            let Record::Add(id) = *record else { continue };
-            let Some(justification) = justifications.get(&id) else {
-                continue;
-            };
-            let hints: Vec<i64> = match justification {
-                Justification::Trivial => continue,
-                Justification::Rup(used) => used.iter().map(|u| lrat_id[u] as i64).collect(),
-                Justification::Rat(proofs) => {
-                    let mut sorted: Vec<&(u32, Vec<u32>)> = proofs.iter().collect();
-                    sorted.sort_by_key(|(c, _)| lrat_id[c]);
-                    sorted
-                        .into_iter()
-                        .flat_map(|(c, used)| {
-                            std::iter::once(-(lrat_id[c] as i64))
-                                .chain(used.iter().map(|u| lrat_id[u] as i64))
-                        })
-                        .collect()
-                }
-            };
-            lrat_id.insert(id, next);
+        // Lemmas in proof order, each with its literals as written, pivot first.
+        justified.reverse();
+        let lemmas = justified.into_iter().map(|(id, justification)| {
             let clause = &checker.clauses[id as usize];
-            // The pivot (first literal as written) stays first: LRAT's RAT is on it.
-            let mut literals: Vec<i32> = clause.pivot.into_iter().map(dimacs).collect();
-            literals.extend(
-                clause
-                    .lits
-                    .iter()
-                    .filter(|&&l| Some(l) != clause.pivot)
-                    .map(|&l| dimacs(l)),
-            );
-            lines.push(LratLemma {
-                id: next,
-                literals,
-                hints,
-            });
-            next += 1;
-        }
-        lines
+            let literals = clause
+                .pivot
+                .into_iter()
+                .chain(clause.lits.iter().copied().filter(|&l| Some(l) != clause.pivot))
+                .map(|l| vars.original(dimacs(l)))
+                .collect();
+            (id, literals, justification)
+        });
+        number_lemmas(cnf.clauses.len(), lemmas)
     });
     Ok((report, lrat))
 }

@@ -82,13 +82,14 @@ fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
         }
         let lit: i32 = std::str::from_utf8(token)
             .ok()
-            .and_then(|t| t.parse().ok())
+            .and_then(|t| t.parse::<i32>().ok())
+            .filter(|&l| l != i32::MIN)
             .ok_or_else(|| {
                 InputError::at_byte(
                     name,
                     start as u64,
                     format!(
-                        "{:?} is not a literal: expected a 32-bit integer or 'd'",
+                        "{:?} is not a literal: expected an integer within ±2147483647, or 'd'",
                         String::from_utf8_lossy(token)
                     ),
                 )
@@ -226,6 +227,8 @@ mod tests {
         assert!(err(b"1 2 0\n3 x 0\n").contains("byte 8"));
         assert!(err(b"1 2 0\n3 4").contains("byte 6: the last step is not ended"));
         assert!(err(b"1 d 0\n").contains("'d' inside"));
+        assert!(err(b"-2147483648 0\n").contains("within"));
+        assert!(err(b"2147483648 0\n").contains("within"));
         assert!(err(&[b'a', 0x82]).contains("cut off"));
         assert!(err(&[b'a', 0x02, 0x00, b'x']).contains("byte 3"));
         assert!(err(&[b'a', 0x01, 0x00]).contains("not a valid literal"));

@@ -1,23 +1,58 @@
-//! Reading input files: whole-file reads with transparent gzip decompression
-//! (detected by the gzip magic bytes 1f 8b, RFC 1952), so every reader sees plain bytes.
+//! Reading input files as a referee must assume they were crafted by someone else:
+//! only regular files are read (a device, FIFO, socket or directory is refused by
+//! its type, so nothing blocks or streams forever), and gzip (magic bytes 1f 8b,
+//! RFC 1952) is decompressed transparently but never beyond a bounded multiple of
+//! the compressed size, so a small file cannot expand into all of memory.
 
 use std::io::Read;
 use std::path::Path;
 
 use crate::input_error::InputError;
 
-/// Reads a file, decompressing it if it is gzip.
+/// Decompressed data may be at most this many times the compressed size…
+pub const MAX_GZIP_RATIO: u64 = 200;
+/// …plus this much, so that small, highly regular files still decompress.
+pub const GZIP_ALLOWANCE: u64 = 64 << 20;
+
+/// Refuses anything that is not a regular file (symlinks are followed first).
+pub fn require_regular_file(path: &Path) -> Result<std::fs::Metadata, InputError> {
+    let name = path.display().to_string();
+    let meta = std::fs::metadata(path)
+        .map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    if meta.is_file() {
+        return Ok(meta);
+    }
+    let kind = if meta.is_dir() {
+        "a directory"
+    } else {
+        "a device, FIFO or socket"
+    };
+    Err(InputError::whole(
+        &name,
+        format!("is {kind}: only regular files are read"),
+    ))
+}
+
+/// Reads a regular file, decompressing it if it is gzip.
 pub fn read_input(path: &Path) -> Result<Vec<u8>, InputError> {
     let name = path.display().to_string();
+    require_regular_file(path)?;
     let raw =
         std::fs::read(path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
-    if raw.starts_with(&[0x1f, 0x8b]) {
-        let mut out = Vec::new();
-        flate2::read::MultiGzDecoder::new(&raw[..])
-            .read_to_end(&mut out)
-            .map_err(|e| InputError::whole(&name, format!("gzip data is damaged: {e}")))?;
-        Ok(out)
-    } else {
-        Ok(raw)
+    if !raw.starts_with(&[0x1f, 0x8b]) {
+        return Ok(raw);
     }
+    let limit = raw.len() as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE;
+    let mut out = Vec::new();
+    flate2::read::MultiGzDecoder::new(&raw[..])
+        .take(limit + 1)
+        .read_to_end(&mut out)
+        .map_err(|e| InputError::whole(&name, format!("gzip data is damaged: {e}")))?;
+    if out.len() as u64 > limit {
+        return Err(InputError::whole(
+            &name,
+            format!("gzip data expands beyond {limit} bytes ({MAX_GZIP_RATIO}x its size plus 64 MiB): refused"),
+        ));
+    }
+    Ok(out)
 }

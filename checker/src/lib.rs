@@ -13,13 +13,23 @@
 //! * [`cnf`], [`drat_parse`] and [`lrat`] read formulas and refutation proofs;
 //!   [`drat_check`] checks DRAT backwards (and can emit LRAT), [`lrat`] checks LRAT
 //!   forwards; [`input`] decompresses gzip transparently.
-//! * [`bundle`] checks a certificate bundle, regenerating its formula with
-//!   [`regenerate`], the checker's own clause generator.
+//! * [`bundle`] checks a certificate bundle: [`manifest`] reads what it claims,
+//!   [`regenerate`] (the checker's own clause generator) rebuilds its formula,
+//!   [`shards`] checks a sharded proof's coverage, [`premises`] the bundles that
+//!   certify its premises. [`dense_vars`] keeps the proof checkers' memory tied to
+//!   the variables actually used, whatever numbers a file writes.
+//!
+//! Every input is treated as possibly crafted: only regular files are read
+//! ([`input`]), gzip expands only to a bounded multiple, literals stay within
+//! ±(2^31−1), and premise bundles nest boundedly and without cycles.
+
+#![forbid(unsafe_code)]
 
 pub mod bundle;
 pub mod claim;
 pub mod cliques;
 pub mod cnf;
+pub mod dense_vars;
 pub mod colouring_file;
 pub mod drat_check;
 pub mod drat_parse;
@@ -27,8 +37,11 @@ pub mod graph6;
 pub mod input;
 pub mod input_error;
 pub mod lrat;
+pub mod manifest;
 pub mod matrix;
+pub mod premises;
 pub mod regenerate;
+pub mod shards;
 pub mod subgraphs;
 pub mod witness;
 

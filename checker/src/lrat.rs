@@ -8,13 +8,67 @@
 //! (which must contain the negation of the lemma's first literal); the positive
 //! hints after it refute the resolvent. Every clause containing that negation must
 //! have its group. The proof is complete when the empty clause is added.
+//!
+//! This module is LRAT's one home: [`crate::drat_check`] hands it the clauses each
+//! checked DRAT lemma used, and [`number_lemmas`] turns them into LRAT lines.
 
 use std::collections::HashMap;
 use std::fmt::Write as _;
 
 use crate::cnf::Cnf;
-use crate::drat_check::LratLemma;
+use crate::dense_vars::DenseVars;
 use crate::input_error::InputError;
+
+/// One line of an LRAT proof: a lemma with its hints (negative hints start RAT candidates).
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct LratLemma {
+    pub id: u64,
+    pub literals: Vec<i32>,
+    pub hints: Vec<i64>,
+}
+
+/// How a checked DRAT lemma was justified, in the DRAT checker's clause numbers
+/// (numbers below the formula's clause count are the formula's clauses, in order).
+pub enum Justification {
+    /// The clauses unit propagation used, in order, the conflicting one last.
+    Rup(Vec<u32>),
+    /// For each RAT candidate, the clauses that refute its resolvent.
+    Rat(Vec<(u32, Vec<u32>)>),
+}
+
+/// Numbers checked lemmas (given in proof order) as LRAT lines after the
+/// formula's `original` clauses.
+pub fn number_lemmas(
+    original: usize,
+    lemmas: impl Iterator<Item = (u32, Vec<i32>, Justification)>,
+) -> Vec<LratLemma> {
+    let mut lrat_id: HashMap<u32, u64> = (0..original as u32).map(|i| (i, i as u64 + 1)).collect();
+    let mut next = original as u64 + 1;
+    let mut lines = Vec::new();
+    for (clause, literals, justification) in lemmas {
+        let hints: Vec<i64> = match justification {
+            Justification::Rup(used) => used.iter().map(|u| lrat_id[u] as i64).collect(),
+            Justification::Rat(mut proofs) => {
+                proofs.sort_by_key(|(c, _)| lrat_id[c]);
+                proofs
+                    .iter()
+                    .flat_map(|(c, used)| {
+                        std::iter::once(-(lrat_id[c] as i64))
+                            .chain(used.iter().map(|u| lrat_id[u] as i64))
+                    })
+                    .collect()
+            }
+        };
+        lrat_id.insert(clause, next);
+        lines.push(LratLemma {
+            id: next,
+            literals,
+            hints,
+        });
+        next += 1;
+    }
+    lines
+}
 
 /// One LRAT step.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -55,7 +109,9 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
                 .iter()
                 .map(|t| {
                     t.parse::<i64>()
-                        .map_err(|_| err(format!("{t:?} is not an integer")))
+                        .ok()
+                        .filter(|&v| v != i64::MIN)
+                        .ok_or_else(|| err(format!("{t:?} is not an integer within ±(2^63−1)")))
                 })
                 .collect()
         };
@@ -90,7 +146,10 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
         let literals: Vec<i32> = values[..zeros[0]]
             .iter()
             .map(|&l| {
-                i32::try_from(l).map_err(|_| err(format!("literal {l} does not fit 32 bits")))
+                i32::try_from(l)
+                    .ok()
+                    .filter(|&l| l != i32::MIN)
+                    .ok_or_else(|| err(format!("literal {l} is outside ±2147483647")))
             })
             .collect::<Result<_, _>>()?;
         let hints = values[zeros[0] + 1..zeros[1]].to_vec();
@@ -205,15 +264,12 @@ fn replay(
 
 /// Checks an LRAT refutation of `cnf` by forward replay.
 pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
-    let max_var = lines
-        .iter()
-        .filter_map(|l| match &l.step {
-            LratStep::Add(a) => a.literals.iter().map(|x| x.unsigned_abs() as usize).max(),
-            LratStep::Delete { .. } => None,
-        })
-        .max()
-        .unwrap_or(0)
-        .max(cnf.variables);
+    let mut vars = DenseVars::new(&cnf.clauses);
+    for line in lines {
+        if let LratStep::Add(lemma) = &line.step {
+            lemma.literals.iter().for_each(|&l| vars.add(l));
+        }
+    }
     let mut db: HashMap<u64, Vec<i32>> = HashMap::new();
     for (i, c) in cnf.clauses.iter().enumerate() {
         if c.is_empty() {
@@ -223,7 +279,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
     }
     let mut last_id = cnf.clauses.len() as u64;
     let mut assignment = Assignment {
-        value: vec![0; max_var + 1],
+        value: vec![0; vars.max_var() + 1],
         trail: Vec::new(),
     };
     let mut report = LratReport::default();
@@ -249,9 +305,10 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                 }
                 last_id = lemma.id;
                 report.lemmas += 1;
+                let literals: Vec<i32> = lemma.literals.iter().map(|&l| vars.dense(l)).collect();
                 assignment.undo_to(0);
                 let mut tautology = false;
-                for &l in &lemma.literals {
+                for &l in &literals {
                     match assignment.value(l) {
                         1 => tautology = true,
                         0 => assignment.set_true(-l),
@@ -277,7 +334,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                             check_rat_groups(
                                 &db,
                                 &mut assignment,
-                                lemma,
+                                &literals,
                                 &lemma.hints[first_rat..],
                                 line,
                             )?;
@@ -285,7 +342,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                         }
                     };
                 debug_assert!(verified);
-                db.insert(lemma.id, lemma.literals.clone());
+                db.insert(lemma.id, literals);
                 if lemma.literals.is_empty() {
                     return Ok(report);
                 }
@@ -298,12 +355,11 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
 fn check_rat_groups(
     db: &HashMap<u64, Vec<i32>>,
     assignment: &mut Assignment,
-    lemma: &LratLemma,
+    literals: &[i32],
     groups: &[i64],
     line: usize,
 ) -> Result<(), String> {
-    let pivot = *lemma
-        .literals
+    let pivot = *literals
         .first()
         .ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
     let base = assignment.trail.len();

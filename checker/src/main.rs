@@ -1,17 +1,19 @@
 //! `ramsift-check`: verifies ramsift's certificates with independent code.
 //!
-//! Exit codes: 0 the claim holds, 1 it does not, 2 the input could not be read.
+//! Every subcommand ends with one verdict (see [`cli::verdict`]): exit code 0 PASS,
+//! 1 FAIL, 2 FAIL because an input could not be read, 3 CONDITIONAL.
 
-use std::path::{Path, PathBuf};
+use std::path::PathBuf;
 use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
-mod proofs;
+mod cli;
 
-use ramsift_checker::colouring_file::{parse_colouring_file, MAGIC};
-use ramsift_checker::graph6::decode_graph6_file;
-use ramsift_checker::{check_colouring, Claim, ColourMatrix, Verdict};
+const EXIT_CODES: &str = "Exit codes: 0 PASS (the claim holds, nothing assumed), 1 FAIL (the \
+    claim is not shown), 2 FAIL because an input could not be read, 3 CONDITIONAL (the proof \
+    holds but rests on a premise no bundle certifies). The last line of the output (or the \
+    `verdict` field with --json) says the same.";
 
 #[derive(Parser)]
 #[command(
@@ -20,8 +22,9 @@ use ramsift_checker::{check_colouring, Claim, ColourMatrix, Verdict};
     about = "Independent checker for ramsift witnesses and proofs",
     long_about = "Independent checker for ramsift witnesses and proofs.\n\n\
         It re-derives every claim from its statement with its own code and trusts \
-        nothing the search produced.\n\nExit codes: 0 the claim holds, 1 it does not, \
-        2 the input could not be read."
+        nothing the search produced. It reads only regular files, bounds the memory \
+        it uses by the size of its inputs, and follows no link out of a bundle.",
+    after_help = EXIT_CODES
 )]
 struct Cli {
     #[command(subcommand)]
@@ -34,35 +37,42 @@ enum Command {
     ///
     /// FILE is a ramsift colouring file, or a graph6 file (one graph per line; edges
     /// are colour 1, non-edges colour 2), which needs --forbid.
+    #[command(after_help = EXIT_CODES)]
     Colouring {
         /// The colouring file (ramsift format or graph6).
         file: PathBuf,
-        /// Forbidden clique sizes, one per colour (e.g. 4,4). Defaults to the file's header.
-        #[arg(long, value_name = "SIZES")]
+        /// The forbidden graph of each colour (e.g. 4,4 or C4,K4). Defaults to the file's header.
+        #[arg(long, value_name = "SPEC")]
         forbid: Option<String>,
         /// Print the verdict as JSON on stdout.
         #[arg(long)]
         json: bool,
     },
     /// Check a DRAT refutation (text or binary, gzip allowed) of a DIMACS CNF.
+    #[command(after_help = EXIT_CODES)]
     Drat {
         /// The formula (DIMACS CNF, gzip allowed).
         cnf: PathBuf,
         /// The proof (DRAT text or binary, detected from the content; gzip allowed).
         proof: PathBuf,
+        /// Literals added to the formula as unit clauses before checking, as in a
+        /// shard's trace, which refutes the formula under its cube (e.g. "5,-12").
+        #[arg(long, value_name = "LITERALS", allow_hyphen_values = true)]
+        cube: Option<String>,
         /// Also write an LRAT proof of the same refutation to this file.
         #[arg(long, value_name = "FILE")]
         emit_lrat: Option<PathBuf>,
-        /// Print the result as JSON on stdout.
+        /// Print the verdict as JSON on stdout.
         #[arg(long)]
         json: bool,
     },
-    /// Check a certificate bundle written by `ramsift refute`: hashes, the formula
-    /// (regenerated from the claim), the proof, and the premises.
+    /// Check a certificate bundle written by `ramsift refute` or `ramsift shard merge`:
+    /// hashes, the formula (regenerated from the claim), the proof, and the premises.
+    #[command(after_help = EXIT_CODES)]
     Bundle {
         /// The bundle directory.
         dir: PathBuf,
-        /// A bundle that certifies a premise (may be repeated).
+        /// A bundle that certifies a premise (may be repeated); it must pass itself.
         #[arg(long, value_name = "DIR")]
         premise: Vec<PathBuf>,
         /// Print the verdict as JSON on stdout.
@@ -70,145 +80,35 @@ enum Command {
         json: bool,
     },
     /// Check an LRAT refutation (text, gzip allowed) of a DIMACS CNF.
+    #[command(after_help = EXIT_CODES)]
     Lrat {
         /// The formula (DIMACS CNF, gzip allowed).
         cnf: PathBuf,
         /// The proof (LRAT text; gzip allowed).
         proof: PathBuf,
-        /// Print the result as JSON on stdout.
+        /// Print the verdict as JSON on stdout.
         #[arg(long)]
         json: bool,
     },
 }
 
 fn main() -> ExitCode {
-    let cli = Cli::parse();
-    match cli.command {
-        Command::Colouring { file, forbid, json } => run_colouring(&file, forbid.as_deref(), json),
+    let (report, json) = match Cli::parse().command {
+        Command::Colouring { file, forbid, json } => {
+            (cli::colouring::run(&file, forbid.as_deref()), json)
+        }
         Command::Drat {
             cnf,
             proof,
+            cube,
             emit_lrat,
             json,
-        } => proofs::run_drat(&cnf, &proof, emit_lrat.as_deref(), json),
-        Command::Lrat { cnf, proof, json } => proofs::run_lrat(&cnf, &proof, json),
-        Command::Bundle { dir, premise, json } => proofs::run_bundle(&dir, &premise, json),
-    }
-}
-
-/// Prints an input error and returns exit code 2.
-pub(crate) fn unreadable(message: impl std::fmt::Display) -> ExitCode {
-    eprintln!("ramsift-check: error: {message}");
-    ExitCode::from(2)
-}
-
-fn run_colouring(path: &Path, forbid: Option<&str>, json: bool) -> ExitCode {
-    let name = path.display().to_string();
-    let content = match std::fs::read(path) {
-        Ok(c) => c,
-        Err(e) => return unreadable(format!("{name}: cannot read: {e}")),
+        } => (
+            cli::proofs::run_drat(&cnf, &proof, cube.as_deref(), emit_lrat.as_deref()),
+            json,
+        ),
+        Command::Lrat { cnf, proof, json } => (cli::proofs::run_lrat(&cnf, &proof), json),
+        Command::Bundle { dir, premise, json } => (cli::bundle::run(&dir, &premise), json),
     };
-    let forbid = match forbid.map(Claim::parse).transpose() {
-        Ok(f) => f,
-        Err(e) => return unreadable(format!("--forbid: {e}")),
-    };
-    let (claim, matrices): (Claim, Vec<ColourMatrix>) = if looks_like_colouring_file(&content) {
-        let text = match std::str::from_utf8(&content) {
-            Ok(t) => t,
-            Err(e) => {
-                return unreadable(format!("{name}: byte {}: not UTF-8 text", e.valid_up_to()))
-            }
-        };
-        let file = match parse_colouring_file(&name, text) {
-            Ok(f) => f,
-            Err(e) => return unreadable(e),
-        };
-        (forbid.unwrap_or(file.claim), vec![file.matrix])
-    } else {
-        let Some(claim) = forbid else {
-            return unreadable(format!(
-                "{name}: not a ramsift colouring file (no {MAGIC} header); a graph6 file needs --forbid S,T"
-            ));
-        };
-        if claim.colours() != 2 {
-            return unreadable(
-                "--forbid: a graph6 file describes two colours; give exactly two sizes",
-            );
-        }
-        match decode_graph6_file(&name, &content) {
-            Ok(m) => (claim, m),
-            Err(e) => return unreadable(e),
-        }
-    };
-
-    let verdicts: Vec<Verdict> = matrices
-        .iter()
-        .map(|m| check_colouring(m, &claim))
-        .collect();
-    let all_valid = verdicts.iter().all(Verdict::is_valid);
-    if json {
-        let items: Vec<String> = verdicts
-            .iter()
-            .zip(&matrices)
-            .map(|(v, m)| {
-                format!(
-                    "{{\"order\":{},\"valid\":{},\"detail\":\"{}\"}}",
-                    m.order(),
-                    v.is_valid(),
-                    v
-                )
-            })
-            .collect();
-        println!(
-            "{{\"claim\":\"{claim}\",\"valid\":{all_valid},\"colourings\":[{}]}}",
-            items.join(",")
-        );
-    } else {
-        for (index, (verdict, matrix)) in verdicts.iter().zip(&matrices).enumerate() {
-            let label = if matrices.len() > 1 {
-                format!("{name} graph {}", index + 1)
-            } else {
-                name.clone()
-            };
-            match verdict {
-                Verdict::Valid => println!(
-                    "VALID: {label}: a colouring of K_{} with no monochromatic forbidden graph ({}), so R({}) > {}",
-                    matrix.order(),
-                    describe(&claim),
-                    claim,
-                    matrix.order()
-                ),
-                other => println!("INVALID: {label}: {other}"),
-            }
-        }
-    }
-    if all_valid {
-        ExitCode::SUCCESS
-    } else {
-        ExitCode::from(1)
-    }
-}
-
-fn describe(claim: &Claim) -> String {
-    claim
-        .forbidden
-        .iter()
-        .enumerate()
-        .map(|(i, g)| match g {
-            ramsift_checker::ClaimGraph::Clique(k) => format!("colour {} forbids K{k}", i + 1),
-            ramsift_checker::ClaimGraph::Graph { token, .. } => {
-                format!("colour {} forbids {token}", i + 1)
-            }
-        })
-        .collect::<Vec<_>>()
-        .join(", ")
-}
-
-/// A ramsift colouring file starts (after comments and blank lines) with its magic word.
-fn looks_like_colouring_file(content: &[u8]) -> bool {
-    content
-        .split(|&b| b == b'\n')
-        .map(|l| l.trim_ascii())
-        .find(|l| !l.is_empty() && !l.starts_with(b"#"))
-        .is_some_and(|l| l.starts_with(MAGIC.as_bytes()))
+    report.emit(json)
 }

@@ -66,40 +66,54 @@ impl Numbering {
     }
 }
 
+/// Visits every k-subset of 0..n in order while `visit` returns true; returns
+/// false when it stopped early.
 fn subsets(
     n: usize,
     k: usize,
     start: usize,
     chosen: &mut Vec<usize>,
-    visit: &mut dyn FnMut(&[usize]),
-) {
+    visit: &mut dyn FnMut(&[usize]) -> bool,
+) -> bool {
     if chosen.len() == k {
-        visit(chosen);
-        return;
+        return visit(chosen);
     }
     for v in start..n {
         if n - v < k - chosen.len() {
             break;
         }
         chosen.push(v);
-        subsets(n, k, v + 1, chosen, visit);
+        let go_on = subsets(n, k, v + 1, chosen, visit);
         chosen.pop();
+        if !go_on {
+            return false;
+        }
     }
+    true
 }
 
-/// Every injective placement of `v` graph vertices into 0..n.
-fn placements(n: usize, v: usize, chosen: &mut Vec<usize>, visit: &mut dyn FnMut(&[usize])) {
+/// Every injective placement of `v` graph vertices into 0..n, while `visit`
+/// returns true.
+fn placements(
+    n: usize,
+    v: usize,
+    chosen: &mut Vec<usize>,
+    visit: &mut dyn FnMut(&[usize]) -> bool,
+) -> bool {
     if chosen.len() == v {
-        visit(chosen);
-        return;
+        return visit(chosen);
     }
     for x in 0..n {
         if !chosen.contains(&x) {
             chosen.push(x);
-            placements(n, v, chosen, visit);
+            let go_on = placements(n, v, chosen, visit);
             chosen.pop();
+            if !go_on {
+                return false;
+            }
         }
     }
+    true
 }
 
 /// Bounds that hold by definition: R(..,1,..) = 1, and entries 2 can be dropped.
@@ -127,8 +141,10 @@ fn elementary_or_premise(
         .map(|p| (p.bound, Some(p.clone())))
 }
 
-/// Regenerates the clauses; an unknown scheme name is an error.
-pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
+/// Regenerates the clauses; an unknown scheme name is an error, and so is a
+/// formula of more than `max_clauses` clauses (generation stops there, so a
+/// claim's size cannot exhaust memory or time beyond the formula it is compared with).
+pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerated, String> {
     let n = statement.order;
     let r = statement.forbidden.len();
     let num = Numbering { colours: r };
@@ -149,9 +165,10 @@ pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
             }
         }
     }
+    let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
     for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
-        match graph {
+        let complete = match graph {
             ClaimGraph::Clique(k) => subsets(n, *k, 0, &mut Vec::new(), &mut |s| {
                 let mut clause = Vec::new();
                 for (p, &a) in s.iter().enumerate() {
@@ -160,21 +177,28 @@ pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
                     }
                 }
                 clauses.push(clause);
+                clauses.len() <= max_clauses
             }),
             ClaimGraph::Graph {
                 vertices, edges, ..
             } => {
                 let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
-                placements(n, *vertices, &mut Vec::new(), &mut |place| {
+                let room = max_clauses.saturating_sub(clauses.len());
+                let complete = placements(n, *vertices, &mut Vec::new(), &mut |place| {
                     let mut clause: Vec<i32> = edges
                         .iter()
                         .map(|&(a, b)| -num.lit(place[a], place[b], colour))
                         .collect();
                     clause.sort_unstable();
                     copies.insert(clause);
+                    copies.len() <= room
                 });
                 clauses.extend(copies);
+                complete
             }
+        };
+        if !complete {
+            return Err(too_many());
         }
     }
 
@@ -285,8 +309,14 @@ pub fn regenerate(statement: &Statement) -> Result<Regenerated, String> {
                 }
                 clauses.push(vec![-xs[m - 1], -s(m - 1, k)]);
                 variables += (m - 1) * k;
+                if clauses.len() > max_clauses {
+                    return Err(too_many());
+                }
             }
         }
+    }
+    if clauses.len() > max_clauses {
+        return Err(too_many());
     }
     Ok(Regenerated {
         variables,

@@ -1,5 +1,5 @@
 //! The verdict on a witness colouring: valid for the claim, or the first
-//! monochromatic forbidden graph found.
+//! monochromatic forbidden graph found, named as the claim names it, with its edges.
 
 use std::fmt;
 
@@ -13,8 +13,14 @@ use crate::subgraphs::find_monochromatic_copy;
 pub enum Verdict {
     /// No colour class contains its forbidden graph.
     Valid,
-    /// Colour `colour` contains a clique of the forbidden size on `vertices`.
-    Monochromatic { colour: usize, vertices: Vec<usize> },
+    /// Colour `colour` contains its forbidden graph (`graph`, as the claim names
+    /// it) on `vertices`, using `edges` of K_n.
+    Monochromatic {
+        colour: usize,
+        graph: String,
+        vertices: Vec<usize>,
+        edges: Vec<(usize, usize)>,
+    },
     /// The matrix uses a colour the claim does not have.
     ColourOutOfRange { colour: usize, colours: usize },
 }
@@ -29,13 +35,19 @@ impl fmt::Display for Verdict {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             Verdict::Valid => f.write_str("valid"),
-            Verdict::Monochromatic { colour, vertices } => {
+            Verdict::Monochromatic {
+                colour,
+                graph,
+                vertices,
+                edges,
+            } => {
                 let list: Vec<String> = vertices.iter().map(|v| v.to_string()).collect();
+                let edges: Vec<String> = edges.iter().map(|(a, b)| format!("{a}-{b}")).collect();
                 write!(
                     f,
-                    "colour {colour} has a monochromatic K{} on vertices {{{}}}",
-                    vertices.len(),
-                    list.join(", ")
+                    "colour {colour} has a monochromatic {graph} on vertices {{{}}}, edges {}",
+                    list.join(", "),
+                    edges.join(" ")
                 )
             }
             Verdict::ColourOutOfRange { colour, colours } => {
@@ -66,7 +78,21 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
             } => find_monochromatic_copy(matrix, colour as u8, *vertices, edges),
         };
         if let Some(vertices) = copy {
-            return Verdict::Monochromatic { colour, vertices };
+            let edges = graph
+                .edge_list()
+                .iter()
+                .map(|&(a, b)| (vertices[a].min(vertices[b]), vertices[a].max(vertices[b])))
+                .collect();
+            let graph = match graph {
+                ClaimGraph::Clique(k) => format!("K{k}"),
+                ClaimGraph::Graph { token, .. } => token.clone(),
+            };
+            return Verdict::Monochromatic {
+                colour,
+                graph,
+                vertices,
+                edges,
+            };
         }
     }
     Verdict::Valid

@@ -38,7 +38,7 @@ fn worked_examples_verify_and_lrat_is_emitted() {
     let lrat = write(dir.path(), "p.lrat", LRAT);
     let o = check(&["lrat", p(&cnf), p(&lrat)]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
-    assert!(text(&o.stdout).starts_with("VERIFIED"));
+    assert!(text(&o.stdout).starts_with("PASS: "), "{}", text(&o.stdout));
 
     let drat = write(dir.path(), "p.drat", DRAT);
     let emitted = dir.path().join("emitted.lrat");
@@ -51,7 +51,7 @@ fn worked_examples_verify_and_lrat_is_emitted() {
         "--json",
     ]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
-    assert!(text(&o.stdout).contains("\"verified\":true"));
+    assert!(text(&o.stdout).contains("\"verdict\":\"PASS\""));
     let o = check(&["lrat", p(&cnf), p(&emitted)]);
     assert_eq!(
         o.status.code(),
@@ -78,7 +78,7 @@ fn wrong_proofs_exit_1_naming_the_step() {
     let drat = write(dir.path(), "p.drat", DRAT);
     let o = check(&["drat", p(&sat), p(&drat)]);
     assert_eq!(o.status.code(), Some(1));
-    assert!(text(&o.stdout).contains("REJECTED"), "{}", text(&o.stdout));
+    assert!(text(&o.stdout).starts_with("FAIL: "), "{}", text(&o.stdout));
     let bad = write(dir.path(), "bad.drat", b"3 0\n0\n");
     let o = check(&["drat", p(&cnf), p(&bad)]);
     assert_eq!(o.status.code(), Some(1));
@@ -216,7 +216,7 @@ fn malformed_manifests_exit_2() {
     let d = dir.path();
     assert_unreadable(&["bundle", p(d)], "manifest.json: cannot read");
     write(d, "manifest.json", b"{ \"bundle_format\": ");
-    assert_unreadable(&["bundle", p(d)], "not valid JSON");
+    assert_unreadable(&["bundle", p(d)], "not a ramsift bundle manifest");
     write(
         d,
         "manifest.json",
@@ -228,21 +228,21 @@ fn malformed_manifests_exit_2() {
         "manifest.json",
         b"{ \"bundle_format\": \"ramsift-bundle 1\" }",
     );
-    assert_unreadable(&["bundle", p(d)], "no field claim.order");
+    assert_unreadable(&["bundle", p(d)], "missing field `claim`");
     write(
         d,
         "manifest.json",
-        br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"order": 6} }"#,
+        br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"order": 6, "statement": "R(3,3) <= 6"}, "encoding": {"symmetry": []}, "files": [] }"#,
     );
-    assert_unreadable(&["bundle", p(d)], "no field claim.clique_sizes");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", "Q9"], "order": 6} }"#);
+    assert_unreadable(&["bundle", p(d)], "neither forbidden nor clique_sizes");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", "Q9"], "order": 6, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
     assert_unreadable(&["bundle", p(d)], "claim.forbidden: entry 2");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", 4], "order": 6} }"#);
-    assert_unreadable(&["bundle", p(d)], "list of graph names");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["4", "4"], "clique_sizes": [3, 4], "order": 6} }"#);
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", 4], "order": 6, "statement": ""} }"#);
+    assert_unreadable(&["bundle", p(d)], "expected a string");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["4", "4"], "clique_sizes": [3, 4], "order": 6, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
     assert_unreadable(&["bundle", p(d)], "disagree");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, "x"], "order": 6} }"#);
-    assert_unreadable(&["bundle", p(d)], "list of whole numbers");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, 3], "order": 99999999} }"#);
-    assert_unreadable(&["bundle", p(d)], "not a Ramsey question");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, "x"], "order": 6, "statement": ""} }"#);
+    assert_unreadable(&["bundle", p(d)], "expected usize");
+    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, 3], "order": 99999999, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
+    assert_unreadable(&["bundle", p(d)], "not a question this checker accepts");
 }

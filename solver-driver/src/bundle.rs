@@ -194,23 +194,59 @@ pub fn premise_records(encoding: &CliqueEncoding) -> Vec<PremiseRecord> {
         .collect()
 }
 
-/// The referee's guide, in words.
-pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
-    let premises = if manifest.premises.is_empty() {
-        "The claim rests on no other Ramsey value.".to_string()
+/// The folder inside a bundle that certifies a premise: `premises/R3-4-9`.
+pub fn premise_folder(premise: &PremiseRecord) -> String {
+    let sizes: Vec<String> = premise.clique_sizes.iter().map(|k| k.to_string()).collect();
+    format!("premises/R{}-{}", sizes.join("-"), premise.upper_bound)
+}
+
+/// What the claim rests on, exactly: each premise certified by a bundle present
+/// in `dir/premises/`, or assumed.
+fn premises_text(dir: &Path, manifest: &Manifest) -> String {
+    if manifest.premises.is_empty() {
+        return "The claim rests on no other Ramsey value: nothing is assumed.".to_string();
+    }
+    let mut assumed = false;
+    let list: Vec<String> = manifest
+        .premises
+        .iter()
+        .map(|p| {
+            let folder = premise_folder(p);
+            if dir.join(&folder).join(MANIFEST_FILE).is_file() {
+                format!(
+                    "  - {} ({}): CERTIFIED by the bundle {folder}/, which step 1 checks in full.",
+                    p.statement, p.source
+                )
+            } else {
+                assumed = true;
+                format!(
+                    "  - {} ({}): ASSUMED. No bundle here certifies it.",
+                    p.statement, p.source
+                )
+            }
+        })
+        .collect();
+    let consequence = if assumed {
+        "\nBecause of the assumed premise(s), step 1 ends with CONDITIONAL (exit code 3), not PASS;\n\
+         give a bundle that certifies a premise with --premise DIR to make the check unconditional."
     } else {
-        let list: Vec<String> = manifest
-            .premises
-            .iter()
-            .map(|p| format!("  - {} ({})", p.statement, p.source))
-            .collect();
-        format!(
-            "The claim assumes these published values (used to bound vertex degrees):\n{}\n\
-             Bundles in the premises/ folder (written by `ramsift refute` unless --assume-premises) are checked\n\
-             and used automatically; another bundle can be given to the checker with --premise DIR.",
-            list.join("\n")
-        )
+        ""
     };
+    format!(
+        "The formula bounds vertex degrees with these smaller Ramsey values:\n{}{consequence}",
+        list.join("\n")
+    )
+}
+
+/// The referee's guide, in words. Every line that starts with `$ ` is a command
+/// that succeeds when run as written in the bundle's directory.
+pub fn guide_text(dir: &Path, manifest: &Manifest) -> String {
+    let single = manifest.files.iter().find(|f| f.role == "drat-proof");
+    let shards: Vec<&FileRecord> = manifest
+        .files
+        .iter()
+        .filter(|f| f.role == "shard-proof")
+        .collect();
     let symmetry = if manifest.encoding.symmetry.is_empty() {
         "No symmetry breaking was used: the formula says exactly that a colouring exists."
             .to_string()
@@ -227,6 +263,61 @@ pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
             list.join("\n")
         )
     };
+    let proof = match single {
+        Some(p) if shards.is_empty() => format!("{} is a DRAT refutation of it, produced by {}.", p.name, manifest.solver),
+        Some(p) => format!(
+            "{} is one DRAT refutation of it, composed from {} shard traces (shards/), produced by {}.",
+            p.name,
+            shards.len(),
+            manifest.solver
+        ),
+        None => format!(
+            "The refutation is split into {} shards (shards/): each trace refutes the formula together\n\
+             with its cube (a few literals added as unit clauses), and the cubes cover every assignment\n\
+             (the coverage tree in {MANIFEST_FILE}). Produced by {}.",
+            shards.len(),
+            manifest.solver
+        ),
+    };
+    let mut steps = format!(
+        "Each line that starts with \"$ \" is a command to run in this directory, exactly as written.\n\n\
+         1. Everything at once, with ramsift's standalone checker. It regenerates the formula from the\n\
+            claim with its own code, compares it with {FORMULA_FILE} as a set of clauses, verifies every\n\
+            SHA-256 in {MANIFEST_FILE}, checks the proof, the coverage of the shards if any, and every\n\
+            premise bundle; the last line says PASS, CONDITIONAL or FAIL:\n\
+            $ ramsift-check bundle .\n"
+    );
+    match single {
+        Some(p) => steps.push_str(&format!(
+            "2. The proof alone against the formula (the checker reads gzip directly):\n\
+            $ ramsift-check drat {FORMULA_FILE} {proof}\n\
+            Any other DRAT checker takes the decompressed formula, formula.cnf, with {proof}:\n\
+            $ gunzip -kf {FORMULA_FILE}\n\
+         3. For a formally verified LRAT checker, convert the proof, then check the conversion:\n\
+            $ ramsift-check drat {FORMULA_FILE} {proof} --emit-lrat proof.lrat\n\
+            $ ramsift-check lrat {FORMULA_FILE} proof.lrat\n",
+            proof = p.name
+        )),
+        None => {
+            steps.push_str(
+                "2. Each shard's trace alone refutes the formula under its cube (not the formula alone);\n\
+                \x20  that the cubes cover every case is checked by step 1:\n",
+            );
+            for shard in &shards {
+                let cube: Vec<String> = shard
+                    .cube
+                    .iter()
+                    .flatten()
+                    .map(|l| l.to_string())
+                    .collect();
+                steps.push_str(&format!(
+                    "   $ ramsift-check drat {FORMULA_FILE} {} --cube={}\n",
+                    shard.name,
+                    cube.join(",")
+                ));
+            }
+        }
+    }
     format!(
         "What is claimed\n\
          ---------------\n\
@@ -234,44 +325,33 @@ pub fn guide_text(manifest: &Manifest, proof_name: &str) -> String {
          {premises}\n\n\
          How it is shown\n\
          ---------------\n\
-         {formula} is a CNF formula that is satisfiable exactly when some colouring avoids every\n\
-         forbidden graph (its header states the variable map). {proof} is a DRAT refutation of it\n\
-         produced by {solver}.\n\n\
+         {FORMULA_FILE} is a CNF formula that is satisfiable exactly when some colouring avoids every\n\
+         forbidden graph (its header states the variable map). {proof}\n\n\
          {symmetry}\n\n\
          How to check it\n\
          ---------------\n\
-         1. With ramsift's standalone checker, which regenerates the formula from the claim with its own\n\
-            code, compares it with {formula} as a set of clauses, verifies every SHA-256 in\n\
-            {manifest}, and checks the proof:\n\
-                ramsift-check bundle .\n\
-         2. With any DRAT checker (decompress the formula first):\n\
-                gunzip -k {formula}\n\
-                <your DRAT checker> formula.cnf {proof}\n\
-         3. For a formally verified LRAT checker, convert the proof first:\n\
-                ramsift-check drat formula.cnf {proof} --emit-lrat proof.lrat\n",
+         {steps}",
         statement = manifest.claim.statement,
         meaning = manifest.claim.meaning,
-        formula = FORMULA_FILE,
-        proof = proof_name,
-        solver = manifest.solver,
-        manifest = MANIFEST_FILE,
+        premises = premises_text(dir, manifest),
     )
 }
 
 /// Writes the manifest and the guide.
-pub fn write_manifest_and_guide(
-    dir: &Path,
-    manifest: &Manifest,
-    proof_name: &str,
-) -> io::Result<Vec<PathBuf>> {
+pub fn write_manifest_and_guide(dir: &Path, manifest: &Manifest) -> io::Result<Vec<PathBuf>> {
     let manifest_path = dir.join(MANIFEST_FILE);
     let json = serde_json::to_string_pretty(manifest).map_err(io::Error::other)?;
     write_atomically(&manifest_path, |w| {
         w.write_all(json.as_bytes())
             .and_then(|_| w.write_all(b"\n"))
     })?;
+    Ok(vec![manifest_path, write_guide(dir, manifest)?])
+}
+
+/// Writes (or rewrites, once premise bundles exist) the guide.
+pub fn write_guide(dir: &Path, manifest: &Manifest) -> io::Result<PathBuf> {
     let guide_path = dir.join(GUIDE_FILE);
-    let guide = guide_text(manifest, proof_name);
+    let guide = guide_text(dir, manifest);
     write_atomically(&guide_path, |w| w.write_all(guide.as_bytes()))?;
-    Ok(vec![manifest_path, guide_path])
+    Ok(guide_path)
 }

@@ -175,7 +175,7 @@ pub fn refute(
             };
             let mut written = vec![formula_path, proof_path];
             written
-                .extend(write_manifest_and_guide(dir, &manifest, &proof_name).map_err(io_error)?);
+                .extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
             RefuteResult::Refuted {
                 files: written,
                 proof_bytes: report.proof_bytes,
@@ -191,9 +191,7 @@ pub fn refute(
 
 /// The directory a premise's bundle goes to inside a bundle: `premises/R3-4-9`.
 pub fn premise_dir(dir: &Path, premise: &PremiseRecord) -> PathBuf {
-    let sizes: Vec<String> = premise.clique_sizes.iter().map(|k| k.to_string()).collect();
-    dir.join("premises")
-        .join(format!("R{}-{}", sizes.join("-"), premise.upper_bound))
+    dir.join(crate::bundle::premise_folder(premise))
 }
 
 /// Refutes every premise into `dir/premises/` (recursively certifying theirs), with
@@ -227,6 +225,12 @@ pub fn certify_premises(
                     options,
                     stop,
                 )?);
+                crate::bundle::write_guide(&sub_dir, &manifest).map_err(|source| {
+                    RefuteError::Io {
+                        dir: sub_dir.clone(),
+                        source,
+                    }
+                })?;
             }
             _ => {
                 return Err(RefuteError::Premise(

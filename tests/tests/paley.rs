@@ -59,7 +59,12 @@ fn every_single_edge_flip_is_judged_like_brute_force() {
                 !brute_force_has_mono_k4(&mutant),
                 "flip {i}-{j}"
             );
-            if let Verdict::Monochromatic { colour, vertices } = verdict {
+            if let Verdict::Monochromatic {
+                colour, vertices, graph, edges,
+            } = verdict
+            {
+                assert_eq!(graph, "K4");
+                assert_eq!(edges.len(), 6);
                 assert_eq!(vertices.len(), 4);
                 assert!(
                     vertices.contains(&i) && vertices.contains(&j),

@@ -107,6 +107,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                     &options,
                     &stop,
                 )?);
+                ramsift_driver::bundle::write_guide(&args.out, manifest)?;
             }
             if args.json {
                 println!(

@@ -23,7 +23,7 @@ use super::run::{complete_result, plan_encoding, read_plan};
 use super::status::{array_list, plan_status};
 use super::{shard_dir, PLAN_FILE};
 use crate::bundle::{
-    claim_of, encoding_record, premise_records, write_manifest_and_guide, FileRecord, Manifest,
+    claim_of, encoding_record, premise_records, write_guide, write_manifest_and_guide, FileRecord, Manifest,
     ShardingRecord, BUNDLE_FORMAT, FORMULA_FILE,
 };
 use crate::refute::{certify_premises, RefuteOptions};
@@ -204,12 +204,7 @@ pub fn merge(
             tree: plan.tree.clone(),
         }),
     };
-    let proof_name = if single_trace {
-        "proof.drat"
-    } else {
-        "shards/*.drat"
-    };
-    written.extend(write_manifest_and_guide(out_dir, &manifest, proof_name)?);
+    written.extend(write_manifest_and_guide(out_dir, &manifest)?);
     if certify {
         let stop = std::sync::atomic::AtomicBool::new(false);
         written.extend(certify_premises(
@@ -219,6 +214,7 @@ pub fn merge(
             &RefuteOptions::default(),
             &stop,
         )?);
+        write_guide(out_dir, &manifest)?;
     }
     Ok(MergeReport {
         files: written,

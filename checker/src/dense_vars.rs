@@ -1,0 +1,96 @@
+//! Dense variable numbering for the proof checkers. The formula's variables keep
+//! their numbers; any other variable a proof mentions (an extension variable, or
+//! just a huge number in a crafted file) gets the next free number. The checkers'
+//! arrays therefore grow with the count of variables actually used, never with the
+//! size of a number written in a file. Renaming variables that do not occur in the
+//! formula changes no RUP, RAT or LRAT step, so verdicts are unaffected.
+
+use std::collections::HashMap;
+
+/// The renaming; build it with every literal of the proof before checking.
+#[derive(Clone, Debug, Default)]
+pub struct DenseVars {
+    formula_max: u32,
+    extra: HashMap<u32, u32>,
+    original: Vec<u32>,
+}
+
+impl DenseVars {
+    /// Keeps variables 1..=(largest variable occurring in `clauses`).
+    pub fn new(clauses: &[Vec<i32>]) -> Self {
+        let formula_max = clauses
+            .iter()
+            .flatten()
+            .map(|l| l.unsigned_abs())
+            .max()
+            .unwrap_or(0);
+        DenseVars {
+            formula_max,
+            ..DenseVars::default()
+        }
+    }
+
+    /// Registers the variable of `lit` (a literal within ±(2^31−1)).
+    pub fn add(&mut self, lit: i32) {
+        let var = lit.unsigned_abs();
+        if var > self.formula_max && !self.extra.contains_key(&var) {
+            self.extra
+                .insert(var, self.formula_max + 1 + self.original.len() as u32);
+            self.original.push(var);
+        }
+    }
+
+    /// The dense literal of a registered literal.
+    pub fn dense(&self, lit: i32) -> i32 {
+        let var = lit.unsigned_abs();
+        let mapped = if var <= self.formula_max {
+            var
+        } else {
+            self.extra[&var]
+        } as i32;
+        if lit < 0 {
+            -mapped
+        } else {
+            mapped
+        }
+    }
+
+    /// The literal as the proof wrote it.
+    pub fn original(&self, dense: i32) -> i32 {
+        let var = dense.unsigned_abs();
+        let back = if var <= self.formula_max {
+            var
+        } else {
+            self.original[(var - self.formula_max - 1) as usize]
+        } as i32;
+        if dense < 0 {
+            -back
+        } else {
+            back
+        }
+    }
+
+    /// The largest dense variable.
+    pub fn max_var(&self) -> usize {
+        self.formula_max as usize + self.original.len()
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn large_numbers_become_small_and_map_back() {
+        let mut vars = DenseVars::new(&[vec![1, -3]]);
+        for lit in [2, -2_000_000_000, 2_147_483_647, 2_000_000_000] {
+            vars.add(lit);
+        }
+        assert_eq!(vars.max_var(), 5);
+        assert_eq!(vars.dense(-2_000_000_000), -4);
+        assert_eq!(vars.dense(2_147_483_647), 5);
+        assert_eq!(vars.dense(2), 2);
+        assert_eq!(vars.original(-5), -2_147_483_647);
+        assert_eq!(vars.original(3), 3);
+    }
+}
