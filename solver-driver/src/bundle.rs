@@ -279,45 +279,44 @@ pub fn guide_text(dir: &Path, manifest: &Manifest) -> String {
             manifest.solver
         ),
     };
-    let mut steps = format!(
-        "Each line that starts with \"$ \" is a command to run in this directory, exactly as written.\n\n\
-         1. Everything at once, with ramsift's standalone checker. It regenerates the formula from the\n\
-            claim with its own code, compares it with {FORMULA_FILE} as a set of clauses, verifies every\n\
-            SHA-256 in {MANIFEST_FILE}, checks the proof, the coverage of the shards if any, and every\n\
-            premise bundle; the last line says PASS, CONDITIONAL or FAIL:\n\
-            $ ramsift-check bundle .\n"
-    );
+    let mut steps: Vec<String> = [
+        "Each line that starts with \"$ \" is a command to run in this directory, exactly as written.",
+        "",
+        "1. Everything at once, with ramsift's standalone checker. It regenerates the formula from the",
+        "   claim with its own code, compares it with the bundled formula as a set of clauses, verifies",
+        "   every SHA-256 in the manifest, checks the proof, the coverage of the shards if any, and",
+        "   every premise bundle; the last line says PASS, CONDITIONAL or FAIL:",
+        "     $ ramsift-check bundle .",
+    ]
+    .map(String::from)
+    .to_vec();
     match single {
-        Some(p) => steps.push_str(&format!(
-            "2. The proof alone against the formula (the checker reads gzip directly):\n\
-            $ ramsift-check drat {FORMULA_FILE} {proof}\n\
-            Any other DRAT checker takes the decompressed formula, formula.cnf, with {proof}:\n\
-            $ gunzip -kf {FORMULA_FILE}\n\
-         3. For a formally verified LRAT checker, convert the proof, then check the conversion:\n\
-            $ ramsift-check drat {FORMULA_FILE} {proof} --emit-lrat proof.lrat\n\
-            $ ramsift-check lrat {FORMULA_FILE} proof.lrat\n",
-            proof = p.name
-        )),
+        Some(p) => {
+            let proof = &p.name;
+            steps.extend([
+                "2. The proof alone against the formula (the checker reads gzip directly):".to_string(),
+                format!("     $ ramsift-check drat {FORMULA_FILE} {proof}"),
+                format!("   Any other DRAT checker takes the decompressed formula, formula.cnf, with {proof}:"),
+                format!("     $ gunzip -kf {FORMULA_FILE}"),
+                "3. For a formally verified LRAT checker, convert the proof, then check the conversion:".to_string(),
+                format!("     $ ramsift-check drat {FORMULA_FILE} {proof} --emit-lrat proof.lrat"),
+                format!("     $ ramsift-check lrat {FORMULA_FILE} proof.lrat"),
+            ]);
+        }
         None => {
-            steps.push_str(
-                "2. Each shard's trace alone refutes the formula under its cube (not the formula alone);\n\
-                \x20  that the cubes cover every case is checked by step 1:\n",
-            );
+            steps.push("2. Each shard's trace alone refutes the formula under its cube (not the formula alone);".into());
+            steps.push("   that the cubes cover every case is checked by step 1:".into());
             for shard in &shards {
-                let cube: Vec<String> = shard
-                    .cube
-                    .iter()
-                    .flatten()
-                    .map(|l| l.to_string())
-                    .collect();
-                steps.push_str(&format!(
-                    "   $ ramsift-check drat {FORMULA_FILE} {} --cube={}\n",
+                let cube: Vec<String> = shard.cube.iter().flatten().map(|l| l.to_string()).collect();
+                steps.push(format!(
+                    "     $ ramsift-check drat {FORMULA_FILE} {} --cube={}",
                     shard.name,
                     cube.join(",")
                 ));
             }
         }
     }
+    let steps = steps.join("\n") + "\n";
     format!(
         "What is claimed\n\
          ---------------\n\
