@@ -119,7 +119,10 @@ pub(crate) fn check_nested(
 
 /// Resolves a file named in the manifest: inside the bundle, a regular file.
 pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
-    if name.starts_with('/') || name.contains('\\') || name.split('/').any(|p| p == ".." || p.is_empty()) {
+    if name.starts_with('/')
+        || name.contains('\\')
+        || name.split('/').any(|p| p == ".." || p.is_empty())
+    {
         return Err(format!("file name {name:?} points outside the bundle"));
     }
     let path = root
@@ -137,7 +140,11 @@ fn sha256_of(path: &Path) -> Result<String, String> {
     let mut file = std::fs::File::open(path).map_err(|e| format!("{}: {e}", path.display()))?;
     let mut hasher = Sha256::new();
     std::io::copy(&mut file, &mut hasher).map_err(|e| format!("{}: {e}", path.display()))?;
-    Ok(hasher.finalize().iter().map(|b| format!("{b:02x}")).collect())
+    Ok(hasher
+        .finalize()
+        .iter()
+        .map(|b| format!("{b:02x}"))
+        .collect())
 }
 
 /// Steps 2 to 4; returns the premises the formula actually uses.
@@ -158,12 +165,17 @@ fn check_own_proof(
         let path = bundle_file(root, &file.name)?;
         let actual = sha256_of(&path)?;
         if actual != file.sha256 {
-            return Err(format!("{}: SHA-256 is {actual}, the manifest says {}", file.name, file.sha256));
+            return Err(format!(
+                "{}: SHA-256 is {actual}, the manifest says {}",
+                file.name, file.sha256
+            ));
         }
         match file.role.as_str() {
             "formula" if formula.is_none() => formula = Some(path),
             "drat-proof" if proof.is_none() => proof = Some(path),
-            "formula" | "drat-proof" => return Err(format!("the manifest lists a second {} file", file.role)),
+            "formula" | "drat-proof" => {
+                return Err(format!("the manifest lists a second {} file", file.role))
+            }
             _ => {}
         }
     }
@@ -171,14 +183,19 @@ fn check_own_proof(
     if proof.is_none() && manifest.sharding.is_none() {
         return Err("the manifest lists no drat-proof file and no shards".into());
     }
-    verdict.passed.push(format!("{} files match their SHA-256", manifest.files.len()));
+    verdict.passed.push(format!(
+        "{} files match their SHA-256",
+        manifest.files.len()
+    ));
 
     let formula_name = formula.display().to_string();
     let cnf = read_input(&formula)
         .and_then(|b| parse_cnf(&formula_name, &b))
         .map_err(|e| format!("the formula cannot be read: {e}"))?;
     let regenerated = regenerate(statement, cnf.clauses.len())?;
-    if cnf.variables != regenerated.variables || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
+    if cnf.variables != regenerated.variables
+        || normalized(&cnf.clauses) != normalized(&regenerated.clauses)
+    {
         return Err(format!(
             "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
             cnf.variables,
@@ -200,7 +217,9 @@ fn check_own_proof(
     }
     if let Some(path) = proof {
         let summary = check_trace(&cnf, &path, &[])?;
-        verdict.passed.push(format!("DRAT proof verified: {summary}"));
+        verdict
+            .passed
+            .push(format!("DRAT proof verified: {summary}"));
     }
     Ok(regenerated.used_premises)
 }
@@ -219,7 +238,8 @@ pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String
         with_cube.clauses.extend(cube.iter().map(|&l| vec![l]));
         &with_cube
     };
-    let (report, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
+    let (report, _) =
+        check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
     Ok(format!(
         "{} lemmas, {} checked, core of {} original clauses",
         report.lemmas, report.checked_lemmas, report.core_original_clauses

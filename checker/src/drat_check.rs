@@ -553,7 +553,13 @@ pub fn check_drat(
             let literals = clause
                 .pivot
                 .into_iter()
-                .chain(clause.lits.iter().copied().filter(|&l| Some(l) != clause.pivot))
+                .chain(
+                    clause
+                        .lits
+                        .iter()
+                        .copied()
+                        .filter(|&l| Some(l) != clause.pivot),
+                )
                 .map(|l| vars.original(dimacs(l)))
                 .collect();
             (id, literals, justification)

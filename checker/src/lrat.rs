@@ -43,9 +43,8 @@ pub fn number_lemmas(
     lemmas: impl Iterator<Item = (u32, Vec<i32>, Justification)>,
 ) -> Vec<LratLemma> {
     let mut lrat_id: HashMap<u32, u64> = (0..original as u32).map(|i| (i, i as u64 + 1)).collect();
-    let mut next = original as u64 + 1;
     let mut lines = Vec::new();
-    for (clause, literals, justification) in lemmas {
+    for (next, (clause, literals, justification)) in (original as u64 + 1..).zip(lemmas) {
         let hints: Vec<i64> = match justification {
             Justification::Rup(used) => used.iter().map(|u| lrat_id[u] as i64).collect(),
             Justification::Rat(mut proofs) => {
@@ -65,7 +64,6 @@ pub fn number_lemmas(
             literals,
             hints,
         });
-        next += 1;
     }
     lines
 }

@@ -93,9 +93,14 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
             format!("larger than {MAX_MANIFEST_BYTES} bytes"),
         ));
     }
-    let text = std::fs::read(&path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    let text =
+        std::fs::read(&path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
     let not_manifest = |e: serde_json::Error| {
-        InputError::at_line(&name, e.line(), format!("not a ramsift bundle manifest: {e}"))
+        InputError::at_line(
+            &name,
+            e.line(),
+            format!("not a ramsift bundle manifest: {e}"),
+        )
     };
     #[derive(Deserialize)]
     struct FormatTag {
@@ -105,7 +110,10 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
     if tag.bundle_format.as_deref() != Some(BUNDLE_FORMAT) {
         return Err(InputError::whole(
             &name,
-            format!("bundle_format is {:?}, expected {BUNDLE_FORMAT:?}", tag.bundle_format),
+            format!(
+                "bundle_format is {:?}, expected {BUNDLE_FORMAT:?}",
+                tag.bundle_format
+            ),
         ));
     }
     let manifest: Manifest = serde_json::from_slice(&text).map_err(not_manifest)?;
@@ -119,8 +127,8 @@ impl Manifest {
         let bad = |why: String| InputError::whole(name, why);
         let claim = match (&self.claim.forbidden, &self.claim.clique_sizes) {
             (Some(entries), sizes) => {
-                let parsed =
-                    Claim::parse(&entries.join(",")).map_err(|e| bad(format!("claim.forbidden: {e}")))?;
+                let parsed = Claim::parse(&entries.join(","))
+                    .map_err(|e| bad(format!("claim.forbidden: {e}")))?;
                 if sizes.is_some() && parsed.clique_sizes() != *sizes {
                     return Err(bad("claim.forbidden and claim.clique_sizes disagree".into()));
                 }
@@ -128,7 +136,8 @@ impl Manifest {
             }
             (None, Some(sizes)) => {
                 let text: Vec<String> = sizes.iter().map(|k| k.to_string()).collect();
-                Claim::parse(&text.join(",")).map_err(|e| bad(format!("claim.clique_sizes: {e}")))?
+                Claim::parse(&text.join(","))
+                    .map_err(|e| bad(format!("claim.clique_sizes: {e}")))?
             }
             (None, None) => return Err(bad("claim has neither forbidden nor clique_sizes".into())),
         };

@@ -165,7 +165,11 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
             }
         }
     }
-    let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
+    let too_many = || {
+        format!(
+            "the claim's formula has more than the {max_clauses} clauses of the bundled formula"
+        )
+    };
     for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
         let complete = match graph {

@@ -28,10 +28,14 @@ fn tree_leaves(
         } => (*split, positive, negative),
     };
     if var < 1 || var as usize > variables {
-        return Err(format!("the tree splits on {var}, which is not a variable of the formula"));
+        return Err(format!(
+            "the tree splits on {var}, which is not a variable of the formula"
+        ));
     }
     if path.iter().any(|l| l.abs() == var) {
-        return Err(format!("the tree splits twice on variable {var} along one path"));
+        return Err(format!(
+            "the tree splits twice on variable {var} along one path"
+        ));
     }
     for (branch, literal) in [(positive, var), (negative, -var)] {
         path.push(literal);
@@ -54,11 +58,15 @@ pub fn check_shards(
     let mut seen = vec![false; count];
     for (leaf, _) in &leaves {
         if *leaf >= count || std::mem::replace(&mut seen[*leaf], true) {
-            return Err(format!("the tree's leaves are not the shard indices 0..{count} each once"));
+            return Err(format!(
+                "the tree's leaves are not the shard indices 0..{count} each once"
+            ));
         }
     }
     if sharding.shards != count {
-        return Err(format!("sharding.shards does not match the {count} leaves of the tree"));
+        return Err(format!(
+            "sharding.shards does not match the {count} leaves of the tree"
+        ));
     }
     let mut checked = 0;
     for (leaf, path) in &leaves {
@@ -72,12 +80,17 @@ pub fn check_shards(
                 traces.len()
             ));
         };
-        let mut cube = file.cube.clone().ok_or(format!("shard {leaf} has no cube"))?;
+        let mut cube = file
+            .cube
+            .clone()
+            .ok_or(format!("shard {leaf} has no cube"))?;
         let mut expected = path.clone();
         cube.sort_unstable();
         expected.sort_unstable();
         if cube != expected {
-            return Err(format!("shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"));
+            return Err(format!(
+                "shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"
+            ));
         }
         check_trace(cnf, &bundle_file(root, &file.name)?, &cube)
             .map_err(|e| format!("shard {leaf}: {e}"))?;

@@ -38,7 +38,11 @@ fn valid_colouring_exits_0() {
     let path = s.file("p.colouring", PENTAGON.as_bytes());
     let o = check(&["colouring", path.to_str().unwrap()]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
-    assert!(text(&o.stdout).starts_with("PASS: R(3,3) > 5"), "{}", text(&o.stdout));
+    assert!(
+        text(&o.stdout).starts_with("PASS: R(3,3) > 5"),
+        "{}",
+        text(&o.stdout)
+    );
     assert!(text(&o.stdout).contains("R(3,3) > 5"));
 }
 

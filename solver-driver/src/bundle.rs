@@ -307,7 +307,8 @@ pub fn guide_text(dir: &Path, manifest: &Manifest) -> String {
             steps.push("2. Each shard's trace alone refutes the formula under its cube (not the formula alone);".into());
             steps.push("   that the cubes cover every case is checked by step 1:".into());
             for shard in &shards {
-                let cube: Vec<String> = shard.cube.iter().flatten().map(|l| l.to_string()).collect();
+                let cube: Vec<String> =
+                    shard.cube.iter().flatten().map(|l| l.to_string()).collect();
                 steps.push(format!(
                     "     $ ramsift-check drat {FORMULA_FILE} {} --cube={}",
                     shard.name,

@@ -174,8 +174,7 @@ pub fn refute(
                 sharding: None,
             };
             let mut written = vec![formula_path, proof_path];
-            written
-                .extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
+            written.extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
             RefuteResult::Refuted {
                 files: written,
                 proof_bytes: report.proof_bytes,

@@ -16,7 +16,11 @@ pub fn workspace_binary(name: &str) -> PathBuf {
         .to_path_buf();
     let path = profile_dir.join(name);
     if !path.is_file() {
-        let package = if name == "ramsift-check" { "ramsift-checker" } else { "ramsift-driver" };
+        let package = if name == "ramsift-check" {
+            "ramsift-checker"
+        } else {
+            "ramsift-driver"
+        };
         let mut build = Command::new(env!("CARGO"));
         build.args(["build", "-p", package, "--bin", name]);
         if profile_dir.ends_with("release") {

@@ -89,7 +89,13 @@ fn huge_numbers_in_a_proof_or_header_do_not_size_memory() {
     assert_eq!(code, 0, "{last}");
     assert!(last.starts_with("PASS: "), "{last}");
     let lrat = dir.path().join("big.lrat");
-    let (code, last) = verdict(&check(&["drat", s(&cnf), s(&proof), "--emit-lrat", s(&lrat)]));
+    let (code, last) = verdict(&check(&[
+        "drat",
+        s(&cnf),
+        s(&proof),
+        "--emit-lrat",
+        s(&lrat),
+    ]));
     assert_eq!(code, 0, "{last}");
     let (code, last) = verdict(&check(&["lrat", s(&cnf), s(&lrat)]));
     assert_eq!(code, 0, "{last}");
@@ -99,7 +105,11 @@ fn huge_numbers_in_a_proof_or_header_do_not_size_memory() {
     assert_eq!(code, 1, "{last}");
     assert!(last.starts_with("FAIL: "), "{last}");
     // A header declaring 2^31-1 variables is valid DIMACS; memory follows use.
-    let wide = write(d, "wide.cnf", format!("p cnf 2147483647 4\n{CLAUSES}").as_bytes());
+    let wide = write(
+        d,
+        "wide.cnf",
+        format!("p cnf 2147483647 4\n{CLAUSES}").as_bytes(),
+    );
     let proof = write(d, "p.drat", b"-2 0\n1 0\n0\n");
     let (code, last) = verdict(&check(&["drat", s(&wide), s(&proof)]));
     assert_eq!(code, 0, "{last}");
@@ -134,7 +144,11 @@ fn devices_fifos_and_links_out_are_not_read() {
     assert_eq!(code, 2, "{last}");
     assert!(last.contains("only regular files"), "{last}");
     let fifo = d.join("formula.fifo");
-    assert!(Command::new("mkfifo").arg(&fifo).status().unwrap().success());
+    assert!(Command::new("mkfifo")
+        .arg(&fifo)
+        .status()
+        .unwrap()
+        .success());
     let proof = write(d, "p.drat", b"-2 0\n1 0\n0\n");
     let (code, last) = verdict(&check(&["drat", s(&fifo), s(&proof)]));
     assert_eq!(code, 2, "{last}");
@@ -172,13 +186,19 @@ fn premises_pass_fail_or_stay_conditional_and_never_silently() {
     assert!(full.join("premises/R3-3-6/manifest.json").is_file());
     let (code, last) = verdict(&check(&["bundle", s(&full)]));
     assert_eq!(code, 0, "{last}");
-    assert!(last.starts_with("PASS: R(3,4) <= 9, with nothing assumed"), "{last}");
+    assert!(
+        last.starts_with("PASS: R(3,4) <= 9, with nothing assumed"),
+        "{last}"
+    );
 
     // Assumed premises: a pass of its own kind, exit 3, said on the last line.
     let assumed = bundle_with_premise(d, "assumed", &["--assume-premises"]);
     let (code, last) = verdict(&check(&["bundle", s(&assumed)]));
     assert_eq!(code, 3, "{last}");
-    assert!(last.starts_with("CONDITIONAL: R(3,4) <= 9 holds only if R(3,3) <= 6"), "{last}");
+    assert!(
+        last.starts_with("CONDITIONAL: R(3,4) <= 9 holds only if R(3,3) <= 6"),
+        "{last}"
+    );
     let json = check(&["bundle", s(&assumed), "--json"]);
     let value: serde_json::Value = serde_json::from_slice(&json.stdout).unwrap();
     assert_eq!(value["verdict"], "CONDITIONAL");
@@ -188,7 +208,12 @@ fn premises_pass_fail_or_stay_conditional_and_never_silently() {
     assert_eq!(code, 0, "{last}");
 
     // A named premise that does not exist, or is not a bundle, fails the check.
-    let (code, last) = verdict(&check(&["bundle", s(&assumed), "--premise", "/nonexistent/premise"]));
+    let (code, last) = verdict(&check(&[
+        "bundle",
+        s(&assumed),
+        "--premise",
+        "/nonexistent/premise",
+    ]));
     assert_eq!(code, 1, "{last}");
     assert!(last.contains("/nonexistent/premise"), "{last}");
     let (code, last) = verdict(&check(&["bundle", s(&assumed), "--premise", s(d)]));
@@ -280,7 +305,10 @@ fn colouring_failures_name_the_forbidden_graph_and_its_edges() {
     let (code, last) = verdict(&check(&["colouring", s(&c5), "--forbid", "C5,3"]));
     assert_eq!(code, 1, "{last}");
     assert!(last.contains("monochromatic C5 on vertices"), "{last}");
-    assert!(last.contains("0-1") && last.contains("3-4") && last.contains("0-4"), "{last}");
+    assert!(
+        last.contains("0-1") && last.contains("3-4") && last.contains("0-4"),
+        "{last}"
+    );
     let (code, last) = verdict(&check(&["colouring", s(&c5), "--forbid", "C4,P3"]));
     assert_eq!(code, 1, "{last}");
     assert!(last.contains("colour 2 has a monochromatic P3"), "{last}");

@@ -60,7 +60,10 @@ fn every_single_edge_flip_is_judged_like_brute_force() {
                 "flip {i}-{j}"
             );
             if let Verdict::Monochromatic {
-                colour, vertices, graph, edges,
+                colour,
+                vertices,
+                graph,
+                edges,
             } = verdict
             {
                 assert_eq!(graph, "K4");

@@ -23,7 +23,11 @@ fn ramsift(args: &[&str]) {
 fn run_guide(bundle: &Path) -> usize {
     workspace_binary("ramsift-check");
     let bin_dir = workspace_binary("ramsift").parent().unwrap().to_path_buf();
-    let path = format!("{}:{}", bin_dir.display(), std::env::var("PATH").unwrap_or_default());
+    let path = format!(
+        "{}:{}",
+        bin_dir.display(),
+        std::env::var("PATH").unwrap_or_default()
+    );
     let guide = std::fs::read_to_string(bundle.join("REFEREE.txt")).unwrap();
     let commands: Vec<&str> = guide
         .lines()
@@ -54,16 +58,39 @@ fn single_trace_guide_commands_succeed_and_premises_are_stated_exactly() {
     let dir = tempfile::tempdir().unwrap();
     // R(4,4) = 18 (Greenwood & Gleason 1955; Radziszowski DS1), resting on R(3,4) <= 9.
     let bundle = dir.path().join("r44");
-    ramsift(&["refute", "4,4", "18", "--out", bundle.to_str().unwrap(), "-q"]);
+    ramsift(&[
+        "refute",
+        "4,4",
+        "18",
+        "--out",
+        bundle.to_str().unwrap(),
+        "-q",
+    ]);
     let guide = std::fs::read_to_string(bundle.join("REFEREE.txt")).unwrap();
-    assert!(guide.contains("R(3,4) <= 9") && guide.contains("CERTIFIED by the bundle premises/R3-4-9/"), "{guide}");
+    assert!(
+        guide.contains("R(3,4) <= 9") && guide.contains("CERTIFIED by the bundle premises/R3-4-9/"),
+        "{guide}"
+    );
     assert!(!guide.contains("ASSUMED"), "{guide}");
     assert_eq!(run_guide(&bundle), 5);
 
     let assumed = dir.path().join("assumed");
-    ramsift(&["refute", "4,4", "18", "--out", assumed.to_str().unwrap(), "--assume-premises", "-q"]);
+    ramsift(&[
+        "refute",
+        "4,4",
+        "18",
+        "--out",
+        assumed.to_str().unwrap(),
+        "--assume-premises",
+        "-q",
+    ]);
     let guide = std::fs::read_to_string(assumed.join("REFEREE.txt")).unwrap();
-    assert!(guide.contains("R(3,4) <= 9") && guide.contains("ASSUMED") && guide.contains("CONDITIONAL (exit code 3)"), "{guide}");
+    assert!(
+        guide.contains("R(3,4) <= 9")
+            && guide.contains("ASSUMED")
+            && guide.contains("CONDITIONAL (exit code 3)"),
+        "{guide}"
+    );
 }
 
 #[test]
@@ -72,7 +99,18 @@ fn sharded_guide_commands_succeed_with_and_without_a_single_trace() {
     let plan = dir.path().join("plan");
     let p = plan.to_str().unwrap();
     // R(4,4) = 18 (Greenwood & Gleason 1955; Radziszowski DS1).
-    ramsift(&["shard", "plan", "4,4", "18", "--shards", "4", "--symmetry", "colour-swap,lex-leader", "--out", p]);
+    ramsift(&[
+        "shard",
+        "plan",
+        "4,4",
+        "18",
+        "--shards",
+        "4",
+        "--symmetry",
+        "colour-swap,lex-leader",
+        "--out",
+        p,
+    ]);
     ramsift(&["shard", "local", p]);
     for (name, extra) in [("sharded", None), ("composed", Some("--single-trace"))] {
         let bundle = dir.path().join(name);
@@ -87,7 +125,10 @@ fn sharded_guide_commands_succeed_with_and_without_a_single_trace() {
         if extra.is_some() {
             assert_eq!((ran, shard_lines), (5, 0), "{name}");
         } else {
-            assert!(shard_lines >= 4 && ran == shard_lines + 1, "{name}: {ran} commands, {shard_lines} shards");
+            assert!(
+                shard_lines >= 4 && ran == shard_lines + 1,
+                "{name}: {ran} commands, {shard_lines} shards"
+            );
         }
     }
 }

@@ -21,7 +21,11 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         format!("claim: {}", verdict.claim),
         format!(
             "symmetry breaking: {}",
-            if verdict.symmetry.is_empty() { "none".to_string() } else { verdict.symmetry.join(", ") }
+            if verdict.symmetry.is_empty() {
+                "none".to_string()
+            } else {
+                verdict.symmetry.join(", ")
+            }
         ),
     ];
     lines.extend(verdict.passed.iter().map(|step| format!("  ok: {step}")));
@@ -33,8 +37,15 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         .collect();
     for p in &verdict.premises {
         lines.push(match &p.certified_by {
-            Some(by) => format!("  premise {}: certified by bundle {}", p.statement, by.display()),
-            None => format!("  premise {}: ASSUMED, not certified by any bundle ({})", p.statement, p.source),
+            Some(by) => format!(
+                "  premise {}: certified by bundle {}",
+                p.statement,
+                by.display()
+            ),
+            None => format!(
+                "  premise {}: ASSUMED, not certified by any bundle ({})",
+                p.statement, p.source
+            ),
         });
     }
     let mut report = match &verdict.failure {

@@ -34,11 +34,17 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
         let verdict = check_colouring(matrix, &claim);
         let pass = verdict.is_valid();
         let detail = if pass {
-            format!("a colouring of K_{} with no monochromatic forbidden graph", matrix.order())
+            format!(
+                "a colouring of K_{} with no monochromatic forbidden graph",
+                matrix.order()
+            )
         } else {
             verdict.to_string()
         };
-        lines.push(format!("{}: {label}: {detail}", if pass { "ok" } else { "bad" }));
+        lines.push(format!(
+            "{}: {label}: {detail}",
+            if pass { "ok" } else { "bad" }
+        ));
         if !pass {
             failures.push(format!("{label}: {detail}"));
         }
@@ -58,13 +64,21 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
     } else {
         Report::new(Outcome::Fail, failures.join("; "))
     };
-    report.lines = if matrices.len() > 1 { lines } else { Vec::new() };
+    report.lines = if matrices.len() > 1 {
+        lines
+    } else {
+        Vec::new()
+    };
     report
         .field("claim", claim.to_string())
         .field("colourings", items)
 }
 
-fn read(name: &str, path: &Path, forbid: Option<Claim>) -> Result<(Claim, Vec<ColourMatrix>), String> {
+fn read(
+    name: &str,
+    path: &Path,
+    forbid: Option<Claim>,
+) -> Result<(Claim, Vec<ColourMatrix>), String> {
     let content = read_input(path).map_err(|e| e.to_string())?;
     if looks_like_colouring_file(&content) {
         let text = std::str::from_utf8(&content)
@@ -76,7 +90,10 @@ fn read(name: &str, path: &Path, forbid: Option<Claim>) -> Result<(Claim, Vec<Co
         format!("{name}: not a ramsift colouring file (no {MAGIC} header); a graph6 file needs --forbid S,T")
     })?;
     if claim.colours() != 2 {
-        return Err("--forbid: a graph6 file describes two colours; give exactly two forbidden graphs".into());
+        return Err(
+            "--forbid: a graph6 file describes two colours; give exactly two forbidden graphs"
+                .into(),
+        );
     }
     let matrices = decode_graph6_file(name, &content).map_err(|e| e.to_string())?;
     Ok((claim, matrices))

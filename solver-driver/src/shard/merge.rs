@@ -23,8 +23,8 @@ use super::run::{complete_result, plan_encoding, read_plan};
 use super::status::{array_list, plan_status};
 use super::{shard_dir, PLAN_FILE};
 use crate::bundle::{
-    claim_of, encoding_record, premise_records, write_guide, write_manifest_and_guide, FileRecord, Manifest,
-    ShardingRecord, BUNDLE_FORMAT, FORMULA_FILE,
+    claim_of, encoding_record, premise_records, write_guide, write_manifest_and_guide, FileRecord,
+    Manifest, ShardingRecord, BUNDLE_FORMAT, FORMULA_FILE,
 };
 use crate::refute::{certify_premises, RefuteOptions};
 
