@@ -100,32 +100,6 @@ fn graph_entry(
     })
 }
 
-fn parse_graph6(code: &str) -> Result<(usize, Vec<(usize, usize)>), String> {
-    let bytes = code.as_bytes();
-    let n = match bytes.first() {
-        Some(&b) if (63..=125).contains(&b) => (b - 63) as usize,
-        _ => return Err("graph6 must start with a vertex-count byte 63..=125".into()),
-    };
-    let pairs = n * n.saturating_sub(1) / 2;
-    if bytes.len() != 1 + pairs.div_ceil(6) || bytes[1..].iter().any(|b| !(63..=126).contains(b)) {
-        return Err(format!(
-            "graph6 for {n} vertices needs {} bytes 63..=126",
-            1 + pairs.div_ceil(6)
-        ));
-    }
-    let mut edges = Vec::new();
-    let mut k = 0;
-    for j in 1..n {
-        for i in 0..j {
-            if (bytes[1 + k / 6] - 63) & (32 >> (k % 6)) != 0 {
-                edges.push((i, j));
-            }
-            k += 1;
-        }
-    }
-    Ok((n, edges))
-}
-
 /// Reads one entry.
 fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
     let bad = |why: &str| entry_error(index, token, why);
@@ -136,7 +110,13 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         return Ok(ClaimGraph::Clique(k));
     }
     if let Some(code) = token.strip_prefix("G6:") {
-        let (n, edges) = parse_graph6(code).map_err(|e| bad(&e))?;
+        let matrix = crate::graph6::decode_graph6("entry", 0, code.as_bytes())
+            .map_err(|e| bad(&e.message))?;
+        let n = matrix.order();
+        let edges: Vec<(usize, usize)> = (0..n)
+            .flat_map(|j| (0..j).map(move |i| (i, j)))
+            .filter(|&(i, j)| matrix.colour(i, j) == 1)
+            .collect();
         return graph_entry(token.to_string(), n, &edges).map_err(|e| bad(&e));
     }
     if let Some(list) = token.strip_prefix("E:") {

@@ -23,39 +23,35 @@ pub struct InputError {
 }
 
 impl InputError {
-    pub fn at_line(source_name: &str, line: usize, message: impl Into<String>) -> Self {
+    fn new(source_name: &str, position: Position, message: impl Into<String>) -> Self {
+        let (source_name, message) = (source_name.to_string(), message.into());
         InputError {
-            source_name: source_name.to_string(),
-            position: Position::Line(line),
-            message: message.into(),
+            source_name,
+            position,
+            message,
         }
+    }
+
+    pub fn at_line(source_name: &str, line: usize, message: impl Into<String>) -> Self {
+        Self::new(source_name, Position::Line(line), message)
     }
 
     pub fn at_byte(source_name: &str, offset: u64, message: impl Into<String>) -> Self {
-        InputError {
-            source_name: source_name.to_string(),
-            position: Position::Byte(offset),
-            message: message.into(),
-        }
+        Self::new(source_name, Position::Byte(offset), message)
     }
 
     pub fn whole(source_name: &str, message: impl Into<String>) -> Self {
-        InputError {
-            source_name: source_name.to_string(),
-            position: Position::Whole,
-            message: message.into(),
-        }
+        Self::new(source_name, Position::Whole, message)
     }
 }
 
 impl fmt::Display for InputError {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let name = &self.source_name;
         match self.position {
-            Position::Line(line) => write!(f, "{}:{}: {}", self.source_name, line, self.message),
-            Position::Byte(offset) => {
-                write!(f, "{}: byte {}: {}", self.source_name, offset, self.message)
-            }
-            Position::Whole => write!(f, "{}: {}", self.source_name, self.message),
+            Position::Line(line) => write!(f, "{name}:{line}: {}", self.message),
+            Position::Byte(offset) => write!(f, "{name}: byte {offset}: {}", self.message),
+            Position::Whole => write!(f, "{name}: {}", self.message),
         }
     }
 }

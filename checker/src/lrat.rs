@@ -13,7 +13,6 @@
 //! checked DRAT lemma used, and [`number_lemmas`] turns them into LRAT lines.
 
 use std::collections::HashMap;
-use std::fmt::Write as _;
 
 use crate::cnf::Cnf;
 use crate::dense_vars::DenseVars;
@@ -165,19 +164,15 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
 
 /// Writes lemmas as text LRAT.
 pub fn write_lrat(lemmas: &[LratLemma]) -> String {
-    let mut out = String::new();
-    for lemma in lemmas {
-        let _ = write!(out, "{}", lemma.id);
-        for l in &lemma.literals {
-            let _ = write!(out, " {l}");
-        }
-        out.push_str(" 0");
-        for h in &lemma.hints {
-            let _ = write!(out, " {h}");
-        }
-        out.push_str(" 0\n");
-    }
-    out
+    let words = |v: &mut dyn Iterator<Item = String>| v.map(|w| w + " ").collect::<String>();
+    lemmas
+        .iter()
+        .map(|l| {
+            let literals = words(&mut l.literals.iter().map(|x| x.to_string()));
+            let hints = words(&mut l.hints.iter().map(|x| x.to_string()));
+            format!("{} {literals}0 {hints}0\n", l.id)
+        })
+        .collect()
 }
 
 /// What a successful LRAT check saw.
