@@ -278,7 +278,9 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
             else {
                 continue;
             };
-            let k = bound - 1;
+            let Some(k) = bound.checked_sub(1) else {
+                continue;
+            };
             if k >= n - 1 {
                 continue;
             }
