@@ -85,10 +85,7 @@ pub(crate) fn check_nested(
         premises: manifest
             .premises
             .iter()
-            .map(|p| PremiseBound {
-                cliques: p.clique_sizes.clone(),
-                bound: p.upper_bound,
-            })
+            .map(|p| PremiseBound { cliques: p.clique_sizes.clone(), bound: p.upper_bound })
             .collect(),
     };
     let mut verdict = BundleVerdict {
@@ -140,11 +137,7 @@ fn sha256_of(path: &Path) -> Result<String, String> {
     let mut file = std::fs::File::open(path).map_err(|e| format!("{}: {e}", path.display()))?;
     let mut hasher = Sha256::new();
     std::io::copy(&mut file, &mut hasher).map_err(|e| format!("{}: {e}", path.display()))?;
-    Ok(hasher
-        .finalize()
-        .iter()
-        .map(|b| format!("{b:02x}"))
-        .collect())
+    Ok(hasher.finalize().iter().map(|b| format!("{b:02x}")).collect())
 }
 
 /// Steps 2 to 4; returns the premises the formula actually uses.
@@ -183,10 +176,7 @@ fn check_own_proof(
     if proof.is_none() && manifest.sharding.is_none() {
         return Err("the manifest lists no drat-proof file and no shards".into());
     }
-    verdict.passed.push(format!(
-        "{} files match their SHA-256",
-        manifest.files.len()
-    ));
+    verdict.passed.push(format!("{} files match their SHA-256", manifest.files.len()));
 
     let formula_name = formula.display().to_string();
     let cnf = read_input(&formula)
@@ -217,9 +207,7 @@ fn check_own_proof(
     }
     if let Some(path) = proof {
         let summary = check_trace(&cnf, &path, &[])?;
-        verdict
-            .passed
-            .push(format!("DRAT proof verified: {summary}"));
+        verdict.passed.push(format!("DRAT proof verified: {summary}"));
     }
     Ok(regenerated.used_premises)
 }

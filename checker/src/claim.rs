@@ -78,9 +78,7 @@ fn graph_entry(
     let mut edges = BTreeSet::new();
     for &(a, b) in pairs {
         if a == b || a >= vertices || b >= vertices {
-            return Err(format!(
-                "edge {a}-{b} is not an edge on vertices 0..{vertices}"
-            ));
+            return Err(format!("edge {a}-{b} is not an edge on vertices 0..{vertices}"));
         }
         edges.insert((a.min(b), a.max(b)));
     }
@@ -93,11 +91,7 @@ fn graph_entry(
     if vertices > MAX_GRAPH_VERTICES {
         return Err(format!("more than {MAX_GRAPH_VERTICES} vertices"));
     }
-    Ok(ClaimGraph::Graph {
-        token,
-        vertices,
-        edges: edges.into_iter().collect(),
-    })
+    Ok(ClaimGraph::Graph { token, vertices, edges: edges.into_iter().collect() })
 }
 
 /// Reads one entry.
@@ -122,9 +116,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
     if let Some(list) = token.strip_prefix("E:") {
         let mut pairs = Vec::new();
         for pair in list.split('/') {
-            let parsed = pair
-                .split_once('-')
-                .and_then(|(a, b)| Some((whole(a)?, whole(b)?)));
+            let parsed = pair.split_once('-').and_then(|(a, b)| Some((whole(a)?, whole(b)?)));
             pairs.push(parsed.ok_or_else(|| bad("expected edges a-b separated by /"))?);
         }
         let n = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
@@ -146,10 +138,8 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
     let (token, n, pairs): (String, usize, Vec<(usize, usize)>) = match letter {
         'K' if rest.ends_with("-E") => {
             let k = need(whole(&rest[..rest.len() - 2]), 3, "K_k - e needs k >= 3")?;
-            let pairs = (0..k)
-                .flat_map(|b| (0..b).map(move |a| (a, b)))
-                .filter(|&e| e != (0, 1))
-                .collect();
+            let pairs =
+                (0..k).flat_map(|b| (0..b).map(move |a| (a, b))).filter(|&e| e != (0, 1)).collect();
             (format!("K{k}-e"), k, pairs)
         }
         'K' if rest.contains(':') => {
@@ -157,9 +147,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
             let a = need(whole(a), 1, "both parts of K_{a,b} need a vertex")?;
             let b = need(whole(b), 1, "both parts of K_{a,b} need a vertex")?;
             let (a, b) = (a.min(b), a.max(b));
-            let pairs = (0..a)
-                .flat_map(|x| (a..a + b).map(move |y| (x, y)))
-                .collect();
+            let pairs = (0..a).flat_map(|x| (a..a + b).map(move |y| (x, y))).collect();
             (format!("K{a}:{b}"), a + b, pairs)
         }
         'K' => {
@@ -168,11 +156,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         }
         'C' => {
             let k = need(whole(rest), 3, "a cycle needs at least 3 vertices")?;
-            (
-                format!("C{k}"),
-                k,
-                (0..k).map(|i| (i, (i + 1) % k)).collect(),
-            )
+            (format!("C{k}"), k, (0..k).map(|i| (i, (i + 1) % k)).collect())
         }
         'P' => {
             let k = need(whole(rest), 2, "a path needs at least 2 vertices")?;
@@ -189,16 +173,11 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         }
         'B' => {
             let k = need(whole(rest), 1, "a book needs a page")?;
-            let pairs = std::iter::once((0, 1))
-                .chain((2..k + 2).flat_map(|p| [(0, p), (1, p)]))
-                .collect();
+            let pairs =
+                std::iter::once((0, 1)).chain((2..k + 2).flat_map(|p| [(0, p), (1, p)])).collect();
             (format!("B{k}"), k + 2, pairs)
         }
-        _ => {
-            return Err(bad(
-                "expected a clique size such as 4 or K4, or a graph such as C5",
-            ))
-        }
+        _ => return Err(bad("expected a clique size such as 4 or K4, or a graph such as C5")),
     };
     graph_entry(token, n, &pairs).map_err(|e| bad(&e))
 }
@@ -206,9 +185,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
 impl Claim {
     /// A claim forbidding cliques of these sizes.
     pub fn cliques(sizes: &[usize]) -> Claim {
-        Claim {
-            forbidden: sizes.iter().map(|&k| ClaimGraph::Clique(k)).collect(),
-        }
+        Claim { forbidden: sizes.iter().map(|&k| ClaimGraph::Clique(k)).collect() }
     }
 
     /// Reads `4,4` or `C4,K4`; the error says which entry is wrong and why.
@@ -260,14 +237,8 @@ mod tests {
 
     #[test]
     fn reads_lists() {
-        assert_eq!(
-            Claim::parse("4,4").unwrap().clique_sizes(),
-            Some(vec![4, 4])
-        );
-        assert_eq!(
-            Claim::parse("K3,3,k3").unwrap().clique_sizes(),
-            Some(vec![3, 3, 3])
-        );
+        assert_eq!(Claim::parse("4,4").unwrap().clique_sizes(), Some(vec![4, 4]));
+        assert_eq!(Claim::parse("K3,3,k3").unwrap().clique_sizes(), Some(vec![3, 3, 3]));
         let claim = Claim::parse("C4,K4").unwrap();
         assert_eq!(claim.clique_sizes(), None);
         assert_eq!(claim.to_string(), "C4,4");
@@ -277,10 +248,7 @@ mod tests {
             Claim::parse("C5,3").unwrap().forbidden[0].edge_list()
         );
         // A triangle given as a cycle is a clique.
-        assert_eq!(
-            Claim::parse("C3,P2").unwrap().clique_sizes(),
-            Some(vec![3, 2])
-        );
+        assert_eq!(Claim::parse("C3,P2").unwrap().clique_sizes(), Some(vec![3, 2]));
     }
 
     #[test]

@@ -17,11 +17,7 @@ pub struct Cnf {
 /// Parses DIMACS CNF text; `name` is used in error messages.
 pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     let text = std::str::from_utf8(bytes).map_err(|e| {
-        InputError::at_byte(
-            name,
-            e.valid_up_to() as u64,
-            "not text: expected DIMACS CNF",
-        )
+        InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected DIMACS CNF")
     })?;
     let mut header: Option<(usize, usize)> = None;
     let mut clauses: Vec<Vec<i32>> = Vec::new();
@@ -78,11 +74,7 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
         };
         for token in trimmed.split_whitespace() {
             let lit: i64 = token.parse().map_err(|_| {
-                InputError::at_line(
-                    name,
-                    line_no,
-                    format!("{token:?} is not an integer literal"),
-                )
+                InputError::at_line(name, line_no, format!("{token:?} is not an integer literal"))
             })?;
             if lit == 0 {
                 if clauses.len() == clause_count {
@@ -109,11 +101,7 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
         return Err(InputError::whole(name, "no problem line `p cnf V C`"));
     };
     if !current.is_empty() {
-        return Err(InputError::at_line(
-            name,
-            last_line,
-            "the last clause is not ended by 0",
-        ));
+        return Err(InputError::at_line(name, last_line, "the last clause is not ended by 0"));
     }
     if clauses.len() != clause_count {
         return Err(InputError::whole(
@@ -124,11 +112,7 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
             ),
         ));
     }
-    Ok(Cnf {
-        variables,
-        clauses,
-        comments,
-    })
+    Ok(Cnf { variables, clauses, comments })
 }
 
 #[cfg(test)]

@@ -37,10 +37,7 @@ pub fn parse_colouring_file(name: &str, text: &str) -> Result<ColouringFile, Inp
         .filter(|(_, l)| !l.is_empty() && !l.starts_with('#'));
 
     let (header_line, header) = lines.next().ok_or_else(|| {
-        InputError::whole(
-            name,
-            format!("empty file: expected a header line starting with {MAGIC}"),
-        )
+        InputError::whole(name, format!("empty file: expected a header line starting with {MAGIC}"))
     })?;
     let (claim, order) = parse_header(name, header_line, header)?;
     let colours = claim.colours();
@@ -154,16 +151,8 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
     }
     match (claim, order) {
         (Some(c), Some(n)) => Ok((c, n)),
-        (None, _) => Err(InputError::at_line(
-            name,
-            line_no,
-            "header has no spec= field",
-        )),
-        (_, None) => Err(InputError::at_line(
-            name,
-            line_no,
-            "header has no order= field",
-        )),
+        (None, _) => Err(InputError::at_line(name, line_no, "header has no spec= field")),
+        (_, None) => Err(InputError::at_line(name, line_no, "header has no order= field")),
     }
 }
 
@@ -206,9 +195,7 @@ mod tests {
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 3\n3 .\n")
             .contains("colour from 1 to 2"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n2 .\n").contains("symmetric"));
-        assert!(
-            error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n")
-                .contains("after the 2 matrix rows")
-        );
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n")
+            .contains("after the 2 matrix rows"));
     }
 }

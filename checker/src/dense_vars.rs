@@ -18,24 +18,15 @@ pub struct DenseVars {
 impl DenseVars {
     /// Keeps variables 1..=(largest variable occurring in `clauses`).
     pub fn new(clauses: &[Vec<i32>]) -> Self {
-        let formula_max = clauses
-            .iter()
-            .flatten()
-            .map(|l| l.unsigned_abs())
-            .max()
-            .unwrap_or(0);
-        DenseVars {
-            formula_max,
-            ..DenseVars::default()
-        }
+        let formula_max = clauses.iter().flatten().map(|l| l.unsigned_abs()).max().unwrap_or(0);
+        DenseVars { formula_max, ..DenseVars::default() }
     }
 
     /// Registers the variable of `lit` (a literal within ±(2^31−1)).
     pub fn add(&mut self, lit: i32) {
         let var = lit.unsigned_abs();
         if var > self.formula_max && !self.extra.contains_key(&var) {
-            self.extra
-                .insert(var, self.formula_max + 1 + self.original.len() as u32);
+            self.extra.insert(var, self.formula_max + 1 + self.original.len() as u32);
             self.original.push(var);
         }
     }
@@ -43,11 +34,7 @@ impl DenseVars {
     /// The dense literal of a registered literal.
     pub fn dense(&self, lit: i32) -> i32 {
         let var = lit.unsigned_abs();
-        let mapped = if var <= self.formula_max {
-            var
-        } else {
-            self.extra[&var]
-        } as i32;
+        let mapped = if var <= self.formula_max { var } else { self.extra[&var] } as i32;
         if lit < 0 {
             -mapped
         } else {

@@ -160,10 +160,7 @@ impl Checker {
         lits.dedup();
         // Keep the pivot first: it is the literal RAT is checked on.
         if let Some(p) = pivot.map(code) {
-            let at = lits
-                .iter()
-                .position(|&l| l == p)
-                .expect("pivot is in the clause");
+            let at = lits.iter().position(|&l| l == p).expect("pivot is in the clause");
             lits.swap(0, at);
         }
         let id = self.clauses.len() as u32;
@@ -399,11 +396,7 @@ impl Checker {
         for candidate in candidates {
             let mut resolvent = lemma_lits.clone();
             resolvent.extend(
-                self.clauses[candidate as usize]
-                    .lits
-                    .iter()
-                    .copied()
-                    .filter(|&l| l != pivot ^ 1),
+                self.clauses[candidate as usize].lits.iter().copied().filter(|&l| l != pivot ^ 1),
             );
             self.mark_core(candidate);
             match self.rup(&resolvent) {
@@ -423,14 +416,8 @@ pub fn check_drat(
     emit_lrat: bool,
 ) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
     let mut vars = DenseVars::new(&cnf.clauses);
-    steps
-        .iter()
-        .flat_map(|s| s.literals.iter())
-        .for_each(|&l| vars.add(l));
-    let mut report = DratReport {
-        original_clauses: cnf.clauses.len(),
-        ..DratReport::default()
-    };
+    steps.iter().flat_map(|s| s.literals.iter()).for_each(|&l| vars.add(l));
+    let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
     if cnf.clauses.iter().any(|c| c.is_empty()) {
         report.formula_has_empty_clause = true;
         return Ok((report, emit_lrat.then(Vec::new)));
@@ -468,9 +455,7 @@ pub fn check_drat(
                 report.deletions += 1;
                 let k = key(&literals);
                 let found = by_content.get_mut(&k).and_then(|ids| {
-                    let at = ids
-                        .iter()
-                        .rposition(|&id| checker.clauses[id as usize].active)?;
+                    let at = ids.iter().rposition(|&id| checker.clauses[id as usize].active)?;
                     Some(ids.remove(at))
                 });
                 match found {
@@ -539,10 +524,8 @@ pub fn check_drat(
             }
         }
     }
-    report.core_original_clauses = checker.clauses[..cnf.clauses.len()]
-        .iter()
-        .filter(|c| c.core)
-        .count();
+    report.core_original_clauses =
+        checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {
@@ -553,13 +536,7 @@ pub fn check_drat(
             let literals = clause
                 .pivot
                 .into_iter()
-                .chain(
-                    clause
-                        .lits
-                        .iter()
-                        .copied()
-                        .filter(|&l| Some(l) != clause.pivot),
-                )
+                .chain(clause.lits.iter().copied().filter(|&l| Some(l) != clause.pivot))
                 .map(|l| vars.original(dimacs(l)))
                 .collect();
             (id, literals, justification)

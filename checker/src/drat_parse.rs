@@ -173,11 +173,7 @@ fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
             let lit = magnitude as i32;
             literals.push(if value & 1 == 1 { -lit } else { lit });
         }
-        steps.push(DratStep {
-            kind,
-            literals,
-            offset: start as u64,
-        });
+        steps.push(DratStep { kind, literals, offset: start as u64 });
     }
     Ok(steps)
 }
@@ -189,27 +185,13 @@ mod tests {
     #[test]
     fn binary_examples_from_the_format() {
         // 129 -> 82 02 and -8193 -> 83 80 01 (binary DRAT description; shared facts).
-        let steps = parse_drat(
-            "p",
-            &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00],
-        )
-        .unwrap();
+        let steps =
+            parse_drat("p", &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00]).unwrap();
         assert_eq!(
             steps[0],
-            DratStep {
-                kind: StepKind::Add,
-                literals: vec![129, -8193],
-                offset: 0
-            }
+            DratStep { kind: StepKind::Add, literals: vec![129, -8193], offset: 0 }
         );
-        assert_eq!(
-            steps[1],
-            DratStep {
-                kind: StepKind::Delete,
-                literals: vec![2],
-                offset: 7
-            }
-        );
+        assert_eq!(steps[1], DratStep { kind: StepKind::Delete, literals: vec![2], offset: 7 });
     }
 
     #[test]

@@ -27,21 +27,16 @@ pub fn decode_graph6(name: &str, offset: u64, bytes: &[u8]) -> Result<ColourMatr
     }
     let (order, header_len) = match bytes {
         [] => return Err(at(0, "empty graph6 string".to_string())),
-        [126, 126, rest @ ..] => (
-            read_bits(rest, 6).ok_or_else(|| at(2, "truncated 36-bit order".to_string()))?,
-            8,
-        ),
-        [126, rest @ ..] => (
-            read_bits(rest, 3).ok_or_else(|| at(1, "truncated 18-bit order".to_string()))?,
-            4,
-        ),
+        [126, 126, rest @ ..] => {
+            (read_bits(rest, 6).ok_or_else(|| at(2, "truncated 36-bit order".to_string()))?, 8)
+        }
+        [126, rest @ ..] => {
+            (read_bits(rest, 3).ok_or_else(|| at(1, "truncated 18-bit order".to_string()))?, 4)
+        }
         [first, ..] => ((*first - 63) as u64, 1),
     };
     if order as usize > MAX_ORDER {
-        return Err(at(
-            0,
-            format!("order {order} is above the limit of {MAX_ORDER}"),
-        ));
+        return Err(at(0, format!("order {order} is above the limit of {MAX_ORDER}")));
     }
     let order = order as usize;
     let pairs = order * order.saturating_sub(1) / 2;
@@ -50,10 +45,7 @@ pub fn decode_graph6(name: &str, offset: u64, bytes: &[u8]) -> Result<ColourMatr
     if body.len() != expected {
         return Err(at(
             header_len,
-            format!(
-                "order {order} needs {expected} bytes after the order, found {}",
-                body.len()
-            ),
+            format!("order {order} needs {expected} bytes after the order, found {}", body.len()),
         ));
     }
     let mut matrix = ColourMatrix::filled(order, 2);
@@ -67,21 +59,14 @@ pub fn decode_graph6(name: &str, offset: u64, bytes: &[u8]) -> Result<ColourMatr
         }
     }
     if bit % 6 != 0 && (body[bit / 6] - 63) & ((1 << (6 - bit % 6)) - 1) != 0 {
-        return Err(at(
-            header_len + bit / 6,
-            "padding bits at the end are not zero".to_string(),
-        ));
+        return Err(at(header_len + bit / 6, "padding bits at the end are not zero".to_string()));
     }
     Ok(matrix)
 }
 
 fn read_bits(bytes: &[u8], count: usize) -> Option<u64> {
     let chunk = bytes.get(..count)?;
-    Some(
-        chunk
-            .iter()
-            .fold(0u64, |acc, &b| acc << 6 | (b - 63) as u64),
-    )
+    Some(chunk.iter().fold(0u64, |acc, &b| acc << 6 | (b - 63) as u64))
 }
 
 /// Decodes every graph in a graph6 file (one per line).
@@ -125,23 +110,11 @@ mod tests {
     #[test]
     fn malformed_strings_are_rejected_with_offsets() {
         assert!(decode_graph6("t", 0, b"").is_err());
-        assert!(decode_graph6("t", 0, b"Dh")
-            .unwrap_err()
-            .to_string()
-            .contains("needs 2 bytes"));
+        assert!(decode_graph6("t", 0, b"Dh").unwrap_err().to_string().contains("needs 2 bytes"));
         assert!(decode_graph6("t", 0, b"Dhcc").is_err());
-        assert!(decode_graph6("t", 0, b"Dhd")
-            .unwrap_err()
-            .to_string()
-            .contains("padding"));
-        assert!(decode_graph6("t", 5, b"D h")
-            .unwrap_err()
-            .to_string()
-            .contains("byte 6"));
-        assert!(decode_graph6("t", 0, b"~?")
-            .unwrap_err()
-            .to_string()
-            .contains("truncated"));
+        assert!(decode_graph6("t", 0, b"Dhd").unwrap_err().to_string().contains("padding"));
+        assert!(decode_graph6("t", 5, b"D h").unwrap_err().to_string().contains("byte 6"));
+        assert!(decode_graph6("t", 0, b"~?").unwrap_err().to_string().contains("truncated"));
         assert!(decode_graph6_file("t", b"\n\n").is_err());
     }
 

@@ -22,15 +22,8 @@ pub fn require_regular_file(path: &Path) -> Result<std::fs::Metadata, InputError
     if meta.is_file() {
         return Ok(meta);
     }
-    let kind = if meta.is_dir() {
-        "a directory"
-    } else {
-        "a device, FIFO or socket"
-    };
-    Err(InputError::whole(
-        &name,
-        format!("is {kind}: only regular files are read"),
-    ))
+    let kind = if meta.is_dir() { "a directory" } else { "a device, FIFO or socket" };
+    Err(InputError::whole(&name, format!("is {kind}: only regular files are read")))
 }
 
 /// Reads a regular file, decompressing it if it is gzip.

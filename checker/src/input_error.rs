@@ -25,11 +25,7 @@ pub struct InputError {
 impl InputError {
     fn new(source_name: &str, position: Position, message: impl Into<String>) -> Self {
         let (source_name, message) = (source_name.to_string(), message.into());
-        InputError {
-            source_name,
-            position,
-            message,
-        }
+        InputError { source_name, position, message }
     }
 
     pub fn at_line(source_name: &str, line: usize, message: impl Into<String>) -> Self {

@@ -7,8 +7,8 @@
 //!
 //! * [`claim`] reads the forbidden-graph list of a claim (`4,4`, `3,3,3`, `C4,K4`).
 //! * [`colouring_file`] and [`graph6`] read the two witness formats.
-//! * [`cliques`] searches a colour class for a clique by direct enumeration;
-//!   [`subgraphs`] searches it for a copy of any other forbidden graph.
+//! * [`subgraphs`] searches a colour class for a copy of its forbidden graph
+//!   (a clique or any other) by direct backtracking.
 //! * [`witness`] puts these together into a verdict.
 //! * [`cnf`], [`drat_parse`] and [`lrat`] read formulas and refutation proofs;
 //!   [`drat_check`] checks DRAT backwards (and can emit LRAT), [`lrat`] checks LRAT
@@ -27,7 +27,6 @@
 
 pub mod bundle;
 pub mod claim;
-pub mod cliques;
 pub mod cnf;
 pub mod colouring_file;
 pub mod dense_vars;

@@ -58,11 +58,7 @@ pub fn number_lemmas(
             }
         };
         lrat_id.insert(clause, next);
-        lines.push(LratLemma {
-            id: next,
-            literals,
-            hints,
-        });
+        lines.push(LratLemma { id: next, literals, hints });
     }
     lines
 }
@@ -95,11 +91,10 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
         }
         let err = |m: String| InputError::at_line(name, line, m);
         let mut tokens = trimmed.split_whitespace();
-        let id: u64 = tokens
-            .next()
-            .and_then(|t| t.parse().ok())
-            .filter(|&id| id > 0)
-            .ok_or_else(|| err("expected a positive clause id at the start of the line".into()))?;
+        let id: u64 =
+            tokens.next().and_then(|t| t.parse().ok()).filter(|&id| id > 0).ok_or_else(|| {
+                err("expected a positive clause id at the start of the line".into())
+            })?;
         let rest: Vec<&str> = tokens.collect();
         let numbers = |tokens: &[&str]| -> Result<Vec<i64>, InputError> {
             tokens
@@ -116,27 +111,18 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
             let values = numbers(&rest[1..])?;
             match values.split_last() {
                 Some((0, ids)) if ids.iter().all(|&i| i > 0) => out.push(LratLine {
-                    step: LratStep::Delete {
-                        id,
-                        clauses: ids.iter().map(|&i| i as u64).collect(),
-                    },
+                    step: LratStep::Delete { id, clauses: ids.iter().map(|&i| i as u64).collect() },
                     line,
                 }),
                 _ => {
-                    return Err(err(
-                        "a deletion line lists positive clause ids ending in 0".into()
-                    ))
+                    return Err(err("a deletion line lists positive clause ids ending in 0".into()))
                 }
             }
             continue;
         }
         let values = numbers(&rest)?;
-        let zeros: Vec<usize> = values
-            .iter()
-            .enumerate()
-            .filter(|(_, &v)| v == 0)
-            .map(|(i, _)| i)
-            .collect();
+        let zeros: Vec<usize> =
+            values.iter().enumerate().filter(|(_, &v)| v == 0).map(|(i, _)| i).collect();
         if zeros.len() != 2 || zeros[1] != values.len() - 1 {
             return Err(err("expected `id literals 0 hints 0`".into()));
         }
@@ -150,14 +136,7 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
             })
             .collect::<Result<_, _>>()?;
         let hints = values[zeros[0] + 1..zeros[1]].to_vec();
-        out.push(LratLine {
-            step: LratStep::Add(LratLemma {
-                id,
-                literals,
-                hints,
-            }),
-            line,
-        });
+        out.push(LratLine { step: LratStep::Add(LratLemma { id, literals, hints }), line });
     }
     Ok(out)
 }
@@ -231,9 +210,7 @@ fn replay(
         for &l in clause {
             match assignment.value(l) {
                 1 => {
-                    return Err(format!(
-                        "line {line}: hint {hint} is already satisfied, not unit"
-                    ))
+                    return Err(format!("line {line}: hint {hint} is already satisfied, not unit"))
                 }
                 0 if unassigned != Some(l) => {
                     open += 1;
@@ -246,9 +223,7 @@ fn replay(
             (0, _) => return Ok(HintResult::Conflict),
             (1, Some(l)) => assignment.set_true(l),
             _ => {
-                return Err(format!(
-                    "line {line}: hint {hint} is not unit ({open} literals open)"
-                ))
+                return Err(format!("line {line}: hint {hint} is not unit ({open} literals open)"))
             }
         }
     }
@@ -271,10 +246,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
         db.insert(i as u64 + 1, c.clone());
     }
     let mut last_id = cnf.clauses.len() as u64;
-    let mut assignment = Assignment {
-        value: vec![0; vars.max_var() + 1],
-        trail: Vec::new(),
-    };
+    let mut assignment = Assignment { value: vec![0; vars.max_var() + 1], trail: Vec::new() };
     let mut report = LratReport::default();
     for entry in lines {
         let line = entry.line;
@@ -282,9 +254,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
             LratStep::Delete { clauses, .. } => {
                 for id in clauses {
                     if db.remove(id).is_none() {
-                        return Err(format!(
-                            "line {line}: deletes clause {id}, which is not live"
-                        ));
+                        return Err(format!("line {line}: deletes clause {id}, which is not live"));
                     }
                     report.deletions += 1;
                 }
@@ -308,11 +278,8 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                         _ => {}
                     }
                 }
-                let first_rat = lemma
-                    .hints
-                    .iter()
-                    .position(|&h| h < 0)
-                    .unwrap_or(lemma.hints.len());
+                let first_rat =
+                    lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
                 let verified = tautology
                     || match replay(&db, &mut assignment, &lemma.hints[..first_rat], line)? {
                         HintResult::Conflict => true,
@@ -352,18 +319,14 @@ fn check_rat_groups(
     groups: &[i64],
     line: usize,
 ) -> Result<(), String> {
-    let pivot = *literals
-        .first()
-        .ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
+    let pivot =
+        *literals.first().ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
     let base = assignment.trail.len();
     let mut covered: Vec<u64> = Vec::new();
     let mut k = 0;
     while k < groups.len() {
         let candidate = (-groups[k]) as u64;
-        let end = groups[k + 1..]
-            .iter()
-            .position(|&h| h < 0)
-            .map_or(groups.len(), |p| k + 1 + p);
+        let end = groups[k + 1..].iter().position(|&h| h < 0).map_or(groups.len(), |p| k + 1 + p);
         let clause = db.get(&candidate).ok_or_else(|| {
             format!("line {line}: RAT candidate {candidate} names no live clause")
         })?;
@@ -436,25 +399,15 @@ mod tests {
             b"5 -2 0 4 3 0\n",              // never adds the empty clause
         ] {
             let lines = parse_lrat("p", bad).unwrap();
-            assert!(
-                check_lrat(&cnf, &lines).is_err(),
-                "{}",
-                String::from_utf8_lossy(bad)
-            );
+            assert!(check_lrat(&cnf, &lines).is_err(), "{}", String::from_utf8_lossy(bad));
         }
     }
 
     #[test]
     fn malformed_lines_name_the_line() {
-        assert!(parse_lrat("p", b"5 -2 0 4 3\n")
-            .unwrap_err()
-            .to_string()
-            .contains("p:1"));
+        assert!(parse_lrat("p", b"5 -2 0 4 3\n").unwrap_err().to_string().contains("p:1"));
         assert!(parse_lrat("p", b"x 1 0 0\n").is_err());
         assert!(parse_lrat("p", b"5 d 3 -4 0\n").is_err());
-        assert!(parse_lrat("p", b"5 1 0 0\n6 a 0 0\n")
-            .unwrap_err()
-            .to_string()
-            .contains("p:2"));
+        assert!(parse_lrat("p", b"5 1 0 0\n6 a 0 0\n").unwrap_err().to_string().contains("p:2"));
     }
 }

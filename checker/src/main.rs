@@ -97,16 +97,9 @@ fn main() -> ExitCode {
         Command::Colouring { file, forbid, json } => {
             (cli::colouring::run(&file, forbid.as_deref()), json)
         }
-        Command::Drat {
-            cnf,
-            proof,
-            cube,
-            emit_lrat,
-            json,
-        } => (
-            cli::proofs::run_drat(&cnf, &proof, cube.as_deref(), emit_lrat.as_deref()),
-            json,
-        ),
+        Command::Drat { cnf, proof, cube, emit_lrat, json } => {
+            (cli::proofs::run_drat(&cnf, &proof, cube.as_deref(), emit_lrat.as_deref()), json)
+        }
         Command::Lrat { cnf, proof, json } => (cli::proofs::run_lrat(&cnf, &proof), json),
         Command::Bundle { dir, premise, json } => (cli::bundle::run(&dir, &premise), json),
     };

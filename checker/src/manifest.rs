@@ -73,14 +73,8 @@ pub struct Sharding {
 #[derive(Clone, Debug, Deserialize)]
 #[serde(untagged)]
 pub enum CoverTree {
-    Leaf {
-        leaf: usize,
-    },
-    Split {
-        split: i32,
-        positive: Box<CoverTree>,
-        negative: Box<CoverTree>,
-    },
+    Leaf { leaf: usize },
+    Split { split: i32, positive: Box<CoverTree>, negative: Box<CoverTree> },
 }
 
 /// Reads `dir/manifest.json` (a regular file of at most [`MAX_MANIFEST_BYTES`]).
@@ -88,19 +82,12 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
     let path = dir.join("manifest.json");
     let name = path.display().to_string();
     if require_regular_file(&path)?.len() > MAX_MANIFEST_BYTES {
-        return Err(InputError::whole(
-            &name,
-            format!("larger than {MAX_MANIFEST_BYTES} bytes"),
-        ));
+        return Err(InputError::whole(&name, format!("larger than {MAX_MANIFEST_BYTES} bytes")));
     }
     let text =
         std::fs::read(&path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
     let not_manifest = |e: serde_json::Error| {
-        InputError::at_line(
-            &name,
-            e.line(),
-            format!("not a ramsift bundle manifest: {e}"),
-        )
+        InputError::at_line(&name, e.line(), format!("not a ramsift bundle manifest: {e}"))
     };
     #[derive(Deserialize)]
     struct FormatTag {
@@ -110,10 +97,7 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
     if tag.bundle_format.as_deref() != Some(BUNDLE_FORMAT) {
         return Err(InputError::whole(
             &name,
-            format!(
-                "bundle_format is {:?}, expected {BUNDLE_FORMAT:?}",
-                tag.bundle_format
-            ),
+            format!("bundle_format is {:?}, expected {BUNDLE_FORMAT:?}", tag.bundle_format),
         ));
     }
     let manifest: Manifest = serde_json::from_slice(&text).map_err(not_manifest)?;

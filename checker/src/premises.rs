@@ -35,14 +35,9 @@ fn candidates(root: &Path, premise_dirs: &[PathBuf]) -> Result<Vec<(PathBuf, Str
     let mut nested = Vec::new();
     for entry in entries {
         let entry = entry.map_err(|e| format!("premises/ cannot be read: {e}"))?;
-        let label = format!(
-            "premise bundle premises/{}",
-            entry.file_name().to_string_lossy()
-        );
-        let path = entry
-            .path()
-            .canonicalize()
-            .map_err(|e| format!("{label} cannot be opened: {e}"))?;
+        let label = format!("premise bundle premises/{}", entry.file_name().to_string_lossy());
+        let path =
+            entry.path().canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
         if !path.starts_with(root) {
             return Err(format!("{label} is a link that leads outside the bundle"));
         }
@@ -72,17 +67,12 @@ pub fn certify_premises(
     let mut passing: Vec<(PathBuf, BundleVerdict)> = Vec::new();
     for (path, label) in candidates(root, premise_dirs)? {
         if chain.len() >= MAX_PREMISE_DEPTH {
-            return Err(format!(
-                "{label}: premises nest deeper than {MAX_PREMISE_DEPTH} bundles"
-            ));
+            return Err(format!("{label}: premises nest deeper than {MAX_PREMISE_DEPTH} bundles"));
         }
-        let canonical = path
-            .canonicalize()
-            .map_err(|e| format!("{label} cannot be opened: {e}"))?;
+        let canonical =
+            path.canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
         if chain.contains(&canonical) {
-            return Err(format!(
-                "{label} is a bundle that rests on itself (a cycle of premises)"
-            ));
+            return Err(format!("{label} is a bundle that rests on itself (a cycle of premises)"));
         }
         let verdict =
             check_nested(&path, &[], chain).map_err(|e| format!("{label} cannot be read: {e}"))?;

@@ -183,16 +183,12 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 clauses.push(clause);
                 clauses.len() <= max_clauses
             }),
-            ClaimGraph::Graph {
-                vertices, edges, ..
-            } => {
+            ClaimGraph::Graph { vertices, edges, .. } => {
                 let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
                 let room = max_clauses.saturating_sub(clauses.len());
                 let complete = placements(n, *vertices, &mut Vec::new(), &mut |place| {
-                    let mut clause: Vec<i32> = edges
-                        .iter()
-                        .map(|&(a, b)| -num.lit(place[a], place[b], colour))
-                        .collect();
+                    let mut clause: Vec<i32> =
+                        edges.iter().map(|&(a, b)| -num.lit(place[a], place[b], colour)).collect();
                     clause.sort_unstable();
                     copies.insert(clause);
                     copies.len() <= room
@@ -214,9 +210,8 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 continue;
             }
             seen.push(graph);
-            let mut class: Vec<usize> = (1..=r)
-                .filter(|&d| statement.forbidden[d - 1] == *graph)
-                .collect();
+            let mut class: Vec<usize> =
+                (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
             if has("lex-leader") && class[0] == 1 && r > 2 {
                 class.remove(0);
             }
@@ -244,10 +239,7 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 let equal_before = (p > 0).then(|| -((first + i * per_pair + p - 1) as i32));
                 let equal_here = (first + i * per_pair + p) as i32;
                 let guarded = |rest: &[i32]| {
-                    equal_before
-                        .into_iter()
-                        .chain(rest.iter().copied())
-                        .collect::<Vec<i32>>()
+                    equal_before.into_iter().chain(rest.iter().copied()).collect::<Vec<i32>>()
                 };
                 clauses.push(guarded(&[-a, b]));
                 if p + 1 < cols.len() {
@@ -290,10 +282,8 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 }
             }
             for v in 0..n {
-                let xs: Vec<i32> = (0..n)
-                    .filter(|&u| u != v)
-                    .map(|u| num.lit(v, u, colour))
-                    .collect();
+                let xs: Vec<i32> =
+                    (0..n).filter(|&u| u != v).map(|u| num.lit(v, u, colour)).collect();
                 if k == 0 {
                     clauses.extend(xs.iter().map(|&x| vec![-x]));
                     continue;
@@ -324,11 +314,7 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
     if clauses.len() > max_clauses {
         return Err(too_many());
     }
-    Ok(Regenerated {
-        variables,
-        clauses,
-        used_premises,
-    })
+    Ok(Regenerated { variables, clauses, used_premises })
 }
 
 /// Clauses as a sorted multiset of sorted clauses (order and literal order free).

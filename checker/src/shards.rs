@@ -21,21 +21,13 @@ fn tree_leaves(
             out.push((*leaf, path.clone()));
             return Ok(());
         }
-        CoverTree::Split {
-            split,
-            positive,
-            negative,
-        } => (*split, positive, negative),
+        CoverTree::Split { split, positive, negative } => (*split, positive, negative),
     };
     if var < 1 || var as usize > variables {
-        return Err(format!(
-            "the tree splits on {var}, which is not a variable of the formula"
-        ));
+        return Err(format!("the tree splits on {var}, which is not a variable of the formula"));
     }
     if path.iter().any(|l| l.abs() == var) {
-        return Err(format!(
-            "the tree splits twice on variable {var} along one path"
-        ));
+        return Err(format!("the tree splits twice on variable {var} along one path"));
     }
     for (branch, literal) in [(positive, var), (negative, -var)] {
         path.push(literal);
@@ -64,33 +56,24 @@ pub fn check_shards(
         }
     }
     if sharding.shards != count {
-        return Err(format!(
-            "sharding.shards does not match the {count} leaves of the tree"
-        ));
+        return Err(format!("sharding.shards does not match the {count} leaves of the tree"));
     }
     let mut checked = 0;
     for (leaf, path) in &leaves {
-        let traces: Vec<&FileRecord> = files
-            .iter()
-            .filter(|f| f.role == "shard-proof" && f.shard == Some(*leaf))
-            .collect();
+        let traces: Vec<&FileRecord> =
+            files.iter().filter(|f| f.role == "shard-proof" && f.shard == Some(*leaf)).collect();
         let [file] = traces.as_slice() else {
             return Err(format!(
                 "shard {leaf} has {} traces listed, expected exactly one",
                 traces.len()
             ));
         };
-        let mut cube = file
-            .cube
-            .clone()
-            .ok_or(format!("shard {leaf} has no cube"))?;
+        let mut cube = file.cube.clone().ok_or(format!("shard {leaf} has no cube"))?;
         let mut expected = path.clone();
         cube.sort_unstable();
         expected.sort_unstable();
         if cube != expected {
-            return Err(format!(
-                "shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"
-            ));
+            return Err(format!("shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"));
         }
         check_trace(cnf, &bundle_file(root, &file.name)?, &cube)
             .map_err(|e| format!("shard {leaf}: {e}"))?;

@@ -1,58 +1,59 @@
 //! Search for a monochromatic copy of a small graph H by direct backtracking: H's
 //! vertices are placed one at a time on distinct vertices of K_n, and a placement is
 //! kept only while every edge of H between placed vertices has the colour. Every
-//! injective placement that is a copy is reached, so the search is exhaustive.
+//! injective placement that is a copy is reached, so the search is exhaustive. For
+//! a clique every order of its vertices is a copy, so only increasing placements
+//! are tried: each k-subset is then met once, and pruning only skips subsets that
+//! already contain an edge of another colour.
 
 use crate::matrix::ColourMatrix;
 
-/// The vertices (in H's vertex order) of the first copy of H in colour `colour`.
+/// The vertices (in H's vertex order) of the first copy of H in colour `colour`;
+/// for a clique, the lexicographically first one.
 pub fn find_monochromatic_copy(
     matrix: &ColourMatrix,
     colour: u8,
     vertices: usize,
     edges: &[(usize, usize)],
 ) -> Option<Vec<usize>> {
+    let clique = edges.len() == vertices * vertices.saturating_sub(1) / 2;
     // For each H-vertex, its H-neighbours placed before it.
     let earlier: Vec<Vec<usize>> = (0..vertices)
         .map(|v| {
-            edges
-                .iter()
-                .filter_map(|&(a, b)| match (a == v, b == v) {
-                    (true, _) if b < v => Some(b),
-                    (_, true) if a < v => Some(a),
-                    _ => None,
-                })
-                .collect()
+            let before = |&(a, b): &(usize, usize)| match (a == v, b == v) {
+                (true, _) if b < v => Some(b),
+                (_, true) if a < v => Some(a),
+                _ => None,
+            };
+            edges.iter().filter_map(before).collect()
         })
         .collect();
     let mut placed = Vec::with_capacity(vertices);
-    place(matrix, colour, &earlier, &mut placed).then_some(placed)
+    place(matrix, colour, &earlier, clique, &mut placed).then_some(placed)
 }
 
 fn place(
     matrix: &ColourMatrix,
     colour: u8,
     earlier: &[Vec<usize>],
+    increasing: bool,
     placed: &mut Vec<usize>,
 ) -> bool {
     let v = placed.len();
     if v == earlier.len() {
         return true;
     }
-    for x in 0..matrix.order() {
-        if placed.contains(&x) {
+    let start = if increasing { placed.last().map_or(0, |&l| l + 1) } else { 0 };
+    for x in start..matrix.order() {
+        if placed.contains(&x) || !earlier[v].iter().all(|&u| matrix.colour(placed[u], x) == colour)
+        {
             continue;
         }
-        if earlier[v]
-            .iter()
-            .all(|&u| matrix.colour(placed[u], x) == colour)
-        {
-            placed.push(x);
-            if place(matrix, colour, earlier, placed) {
-                return true;
-            }
-            placed.pop();
+        placed.push(x);
+        if place(matrix, colour, earlier, increasing, placed) {
+            return true;
         }
+        placed.pop();
     }
     false
 }
@@ -60,6 +61,32 @@ fn place(
 #[cfg(test)]
 mod tests {
     use super::*;
+    use proptest::prelude::*;
+
+    fn clique(m: &ColourMatrix, colour: u8, k: usize) -> Option<Vec<usize>> {
+        let edges: Vec<(usize, usize)> = (0..k).flat_map(|b| (0..b).map(move |a| (a, b))).collect();
+        find_monochromatic_copy(m, colour, k, &edges)
+    }
+
+    /// The pentagon 0-1-2-3-4-0 in colour 1, its complement in colour 2.
+    fn pentagon() -> ColourMatrix {
+        let mut m = ColourMatrix::filled(5, 2);
+        for i in 0..5 {
+            m.set(i, (i + 1) % 5, 1);
+        }
+        m
+    }
+
+    #[test]
+    fn pentagon_has_no_monochromatic_triangle() {
+        let m = pentagon();
+        assert_eq!(clique(&m, 1, 3), None);
+        assert_eq!(clique(&m, 2, 3), None);
+        assert_eq!(clique(&m, 1, 2), Some(vec![0, 1]));
+        let mut with_chord = pentagon();
+        with_chord.set(0, 2, 1);
+        assert_eq!(clique(&with_chord, 1, 3), Some(vec![0, 1, 2]));
+    }
 
     #[test]
     fn finds_a_four_cycle_and_not_in_a_star() {
@@ -79,5 +106,38 @@ mod tests {
             star.set(v, 4, 1);
         }
         assert!(find_monochromatic_copy(&star, 1, 4, &c4).is_none());
+    }
+
+    /// Brute force over all k-subsets, written as plainly as possible.
+    fn brute_force(m: &ColourMatrix, colour: u8, k: usize) -> bool {
+        let n = m.order();
+        (0u32..1 << n).any(|mask| {
+            let vs: Vec<usize> = (0..n).filter(|&v| mask >> v & 1 == 1).collect();
+            vs.len() == k
+                && vs
+                    .iter()
+                    .enumerate()
+                    .all(|(p, &a)| vs[p + 1..].iter().all(|&b| m.colour(a, b) == colour))
+        })
+    }
+
+    proptest! {
+        #[test]
+        fn cliques_agree_with_brute_force(n in 2usize..=9, k in 2usize..=5, bits in any::<u64>()) {
+            let mut m = ColourMatrix::filled(n, 2);
+            let mut bit = 0;
+            for j in 0..n {
+                for i in 0..j {
+                    if bits >> (bit % 64) & 1 == 1 { m.set(i, j, 1); }
+                    bit += 1;
+                }
+            }
+            let found = clique(&m, 1, k);
+            prop_assert_eq!(found.is_some(), brute_force(&m, 1, k));
+            if let Some(vs) = found {
+                prop_assert_eq!(vs.len(), k);
+                prop_assert!(vs.windows(2).all(|w| w[0] < w[1] && m.colour(w[0], w[1]) == 1));
+            }
+        }
     }
 }

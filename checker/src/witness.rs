@@ -4,7 +4,6 @@
 use std::fmt;
 
 use crate::claim::{Claim, ClaimGraph};
-use crate::cliques::find_monochromatic_clique;
 use crate::matrix::ColourMatrix;
 use crate::subgraphs::find_monochromatic_copy;
 
@@ -15,12 +14,7 @@ pub enum Verdict {
     Valid,
     /// Colour `colour` contains its forbidden graph (`graph`, as the claim names
     /// it) on `vertices`, using `edges` of K_n.
-    Monochromatic {
-        colour: usize,
-        graph: String,
-        vertices: Vec<usize>,
-        edges: Vec<(usize, usize)>,
-    },
+    Monochromatic { colour: usize, graph: String, vertices: Vec<usize>, edges: Vec<(usize, usize)> },
     /// The matrix uses a colour the claim does not have.
     ColourOutOfRange { colour: usize, colours: usize },
 }
@@ -35,12 +29,7 @@ impl fmt::Display for Verdict {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             Verdict::Valid => f.write_str("valid"),
-            Verdict::Monochromatic {
-                colour,
-                graph,
-                vertices,
-                edges,
-            } => {
+            Verdict::Monochromatic { colour, graph, vertices, edges } => {
                 let list: Vec<String> = vertices.iter().map(|v| v.to_string()).collect();
                 let edges: Vec<String> = edges.iter().map(|(a, b)| format!("{a}-{b}")).collect();
                 write!(
@@ -51,10 +40,7 @@ impl fmt::Display for Verdict {
                 )
             }
             Verdict::ColourOutOfRange { colour, colours } => {
-                write!(
-                    f,
-                    "colour {colour} is used, but the claim has only {colours} colours"
-                )
+                write!(f, "colour {colour} is used, but the claim has only {colours} colours")
             }
         }
     }
@@ -64,19 +50,12 @@ impl fmt::Display for Verdict {
 pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
     let used = matrix.max_colour() as usize;
     if used > claim.colours() {
-        return Verdict::ColourOutOfRange {
-            colour: used,
-            colours: claim.colours(),
-        };
+        return Verdict::ColourOutOfRange { colour: used, colours: claim.colours() };
     }
     for (index, graph) in claim.forbidden.iter().enumerate() {
         let colour = index + 1;
-        let copy = match graph {
-            ClaimGraph::Clique(k) => find_monochromatic_clique(matrix, colour as u8, *k),
-            ClaimGraph::Graph {
-                vertices, edges, ..
-            } => find_monochromatic_copy(matrix, colour as u8, *vertices, edges),
-        };
+        let copy =
+            find_monochromatic_copy(matrix, colour as u8, graph.vertices(), &graph.edge_list());
         if let Some(vertices) = copy {
             let edges = graph
                 .edge_list()
@@ -87,12 +66,7 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
                 ClaimGraph::Clique(k) => format!("K{k}"),
                 ClaimGraph::Graph { token, .. } => token.clone(),
             };
-            return Verdict::Monochromatic {
-                colour,
-                graph,
-                vertices,
-                edges,
-            };
+            return Verdict::Monochromatic { colour, graph, vertices, edges };
         }
     }
     Verdict::Valid

@@ -38,11 +38,7 @@ fn valid_colouring_exits_0() {
     let path = s.file("p.colouring", PENTAGON.as_bytes());
     let o = check(&["colouring", path.to_str().unwrap()]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
-    assert!(
-        text(&o.stdout).starts_with("PASS: R(3,3) > 5"),
-        "{}",
-        text(&o.stdout)
-    );
+    assert!(text(&o.stdout).starts_with("PASS: R(3,3) > 5"), "{}", text(&o.stdout));
     assert!(text(&o.stdout).contains("R(3,3) > 5"));
 }
 
@@ -50,9 +46,7 @@ fn valid_colouring_exits_0() {
 fn monochromatic_triangle_exits_1_and_names_it() {
     let s = Scratch::new();
     // Recolour edge {0,2} to colour 1: triangle 0-1-2 in colour 1.
-    let bad = PENTAGON
-        .replace(". 1 2 2 1\n", ". 1 1 2 1\n")
-        .replace("2 1 . 1 2\n", "1 1 . 1 2\n");
+    let bad = PENTAGON.replace(". 1 2 2 1\n", ". 1 1 2 1\n").replace("2 1 . 1 2\n", "1 1 . 1 2\n");
     let path = s.file("bad.colouring", bad.as_bytes());
     let o = check(&["colouring", path.to_str().unwrap()]);
     assert_eq!(o.status.code(), Some(1), "{}", text(&o.stderr));
@@ -70,13 +64,7 @@ fn forbid_overrides_the_header_claim() {
     // Colour 2 is a pentagon, which has an edge: K2 is present.
     let o = check(&["colouring", path.to_str().unwrap(), "--forbid", "3,2"]);
     assert_eq!(o.status.code(), Some(1));
-    let o = check(&[
-        "colouring",
-        path.to_str().unwrap(),
-        "--forbid",
-        "4,4",
-        "--json",
-    ]);
+    let o = check(&["colouring", path.to_str().unwrap(), "--forbid", "4,4", "--json"]);
     assert_eq!(o.status.code(), Some(0));
     assert!(text(&o.stdout).contains("\"verdict\":\"PASS\""));
 }
@@ -87,14 +75,8 @@ fn graph6_files_need_and_use_forbid() {
     // C5 is "Dhc" (McKay's graph6 description).
     let path = s.file("c5.g6", b">>graph6<<Dhc\n");
     let p = path.to_str().unwrap();
-    assert_eq!(
-        check(&["colouring", p, "--forbid", "3,3"]).status.code(),
-        Some(0)
-    );
-    assert_eq!(
-        check(&["colouring", p, "--forbid", "2,3"]).status.code(),
-        Some(1)
-    );
+    assert_eq!(check(&["colouring", p, "--forbid", "3,3"]).status.code(), Some(0));
+    assert_eq!(check(&["colouring", p, "--forbid", "2,3"]).status.code(), Some(1));
     let o = check(&["colouring", p]);
     assert_eq!(o.status.code(), Some(2));
     assert!(text(&o.stderr).contains("needs --forbid"));
@@ -130,24 +112,14 @@ fn malformed_colouring_files_exit_2_with_position() {
         &[],
         ":1: unknown header field",
     );
-    assert_unreadable(
-        "bad-order",
-        b"ramsift-colouring spec=3,3 order=abc\n",
-        &[],
-        "order=abc",
-    );
+    assert_unreadable("bad-order", b"ramsift-colouring spec=3,3 order=abc\n", &[], "order=abc");
     assert_unreadable(
         "huge-order",
         b"ramsift-colouring spec=3,3 order=99999999999\n",
         &[],
         "from 1 to",
     );
-    assert_unreadable(
-        "bad-spec",
-        b"ramsift-colouring spec=3 order=2\n. 1\n1 .\n",
-        &[],
-        "spec",
-    );
+    assert_unreadable("bad-spec", b"ramsift-colouring spec=3 order=2\n. 1\n1 .\n", &[], "spec");
     assert_unreadable(
         "short-row",
         b"# c\nramsift-colouring spec=3,3 order=2\n. 1\n1\n",
@@ -178,18 +150,8 @@ fn malformed_colouring_files_exit_2_with_position() {
         &[],
         "after the 1 matrix rows",
     );
-    assert_unreadable(
-        "binary",
-        b"ramsift-colouring spec=3,3 order=1\n\xff\n",
-        &[],
-        "not UTF-8",
-    );
-    assert_unreadable(
-        "forbid",
-        PENTAGON.as_bytes(),
-        &["--forbid", "3,x"],
-        "--forbid: entry 2",
-    );
+    assert_unreadable("binary", b"ramsift-colouring spec=3,3 order=1\n\xff\n", &[], "not UTF-8");
+    assert_unreadable("forbid", PENTAGON.as_bytes(), &["--forbid", "3,x"], "--forbid: entry 2");
 }
 
 #[test]
@@ -197,12 +159,7 @@ fn malformed_graph6_exits_2_with_byte_offset() {
     assert_unreadable("short.g6", b"Dh\n", &["--forbid", "3,3"], "needs 2 bytes");
     assert_unreadable("char.g6", b"Dhc\nD c\n", &["--forbid", "3,3"], "byte 5");
     assert_unreadable("padding.g6", b"Dhd\n", &["--forbid", "3,3"], "padding");
-    assert_unreadable(
-        "blank.g6",
-        b"\n\n",
-        &["--forbid", "3,3"],
-        "no graph6 string",
-    );
+    assert_unreadable("blank.g6", b"\n\n", &["--forbid", "3,3"], "no graph6 string");
 }
 
 #[test]
@@ -220,19 +177,12 @@ fn forbidden_graphs_are_searched_directly() {
     let path = s.file("c5.g6", b"Dhc\n");
     let p = path.to_str().unwrap();
     // No 4-cycle in a pentagon, no triangle in its complement.
-    assert_eq!(
-        check(&["colouring", p, "--forbid", "C4,3"]).status.code(),
-        Some(0)
-    );
+    assert_eq!(check(&["colouring", p, "--forbid", "C4,3"]).status.code(), Some(0));
     // The pentagon itself, and a path on 3 vertices, are in colour 1.
     for forbid in ["C5,3", "P3,3", "G6:Dhc,3", "E:0-1/1-2/2-3,3"] {
         let o = check(&["colouring", p, "--forbid", forbid]);
         assert_eq!(o.status.code(), Some(1), "{forbid}");
-        assert!(
-            text(&o.stdout).contains("colour 1"),
-            "{forbid}: {}",
-            text(&o.stdout)
-        );
+        assert!(text(&o.stdout).contains("colour 1"), "{forbid}: {}", text(&o.stdout));
     }
     let o = check(&["colouring", p, "--forbid", "C2,3"]);
     assert_eq!(o.status.code(), Some(2));

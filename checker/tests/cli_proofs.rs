@@ -42,30 +42,14 @@ fn worked_examples_verify_and_lrat_is_emitted() {
 
     let drat = write(dir.path(), "p.drat", DRAT);
     let emitted = dir.path().join("emitted.lrat");
-    let o = check(&[
-        "drat",
-        p(&cnf),
-        p(&drat),
-        "--emit-lrat",
-        p(&emitted),
-        "--json",
-    ]);
+    let o = check(&["drat", p(&cnf), p(&drat), "--emit-lrat", p(&emitted), "--json"]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
     assert!(text(&o.stdout).contains("\"verdict\":\"PASS\""));
     let o = check(&["lrat", p(&cnf), p(&emitted)]);
-    assert_eq!(
-        o.status.code(),
-        Some(0),
-        "emitted LRAT: {}",
-        text(&o.stdout)
-    );
+    assert_eq!(o.status.code(), Some(0), "emitted LRAT: {}", text(&o.stdout));
 
     // Binary form of the same proof: a -2 0, d 1 -2 0, a 1 0, a 0.
-    let binary = write(
-        dir.path(),
-        "p.bin",
-        &[b'a', 5, 0, b'd', 2, 5, 0, b'a', 2, 0, b'a', 0],
-    );
+    let binary = write(dir.path(), "p.bin", &[b'a', 5, 0, b'd', 2, 5, 0, b'a', 2, 0, b'a', 0]);
     assert_eq!(check(&["drat", p(&cnf), p(&binary)]).status.code(), Some(0));
 }
 
@@ -90,11 +74,7 @@ fn wrong_proofs_exit_1_naming_the_step() {
     let lemma_bad = write(dir.path(), "lemma.drat", b"-1 -2 0\n1 0\n0\n");
     let o = check(&["drat", p(&sat), p(&lemma_bad)]);
     assert_eq!(o.status.code(), Some(1));
-    assert!(
-        text(&o.stdout).contains("proof step"),
-        "{}",
-        text(&o.stdout)
-    );
+    assert!(text(&o.stdout).contains("proof step"), "{}", text(&o.stdout));
     let lrat_bad = write(dir.path(), "bad.lrat", b"5 -2 0 4 0\n");
     let o = check(&["lrat", p(&cnf), p(&lrat_bad)]);
     assert_eq!(o.status.code(), Some(1));
@@ -104,16 +84,8 @@ fn wrong_proofs_exit_1_naming_the_step() {
 fn assert_unreadable(args: &[&str], expected: &str) {
     let o = check(args);
     let err = text(&o.stderr);
-    assert_eq!(
-        o.status.code(),
-        Some(2),
-        "{args:?}: {err} / {}",
-        text(&o.stdout)
-    );
-    assert!(
-        err.contains(expected),
-        "{args:?}: {err:?} lacks {expected:?}"
-    );
+    assert_eq!(o.status.code(), Some(2), "{args:?}: {err} / {}", text(&o.stdout));
+    assert!(err.contains(expected), "{args:?}: {err:?} lacks {expected:?}");
     assert!(!err.contains("panicked"));
 }
 
@@ -130,60 +102,20 @@ fn malformed_inputs_exit_2_with_their_position() {
             "drat",
             ":2: \"x\" is not an integer",
         ),
-        (
-            write(d, "b.cnf", b"1 2 0\n"),
-            drat.clone(),
-            "drat",
-            ":1: clause before the problem line",
-        ),
-        (
-            write(d, "c.cnf", b"p cnf 2 2\n1 2 0\n"),
-            drat.clone(),
-            "drat",
-            "promises 2 clauses",
-        ),
+        (write(d, "b.cnf", b"1 2 0\n"), drat.clone(), "drat", ":1: clause before the problem line"),
+        (write(d, "c.cnf", b"p cnf 2 2\n1 2 0\n"), drat.clone(), "drat", "promises 2 clauses"),
         (
             write(d, "d.cnf", b"p cnf 1 1\n2 0\n"),
             drat.clone(),
             "drat",
             "outside the 1 declared variables",
         ),
-        (
-            write(d, "e.cnf", b"\x1f\x8b\x08garbage"),
-            drat.clone(),
-            "drat",
-            "gzip data is damaged",
-        ),
-        (
-            cnf.clone(),
-            write(d, "a.drat", b"1 2 0\n-1 q 0\n"),
-            "drat",
-            "byte 9",
-        ),
-        (
-            cnf.clone(),
-            write(d, "b.drat", b"1 2 0\n-1"),
-            "drat",
-            "not ended by 0",
-        ),
-        (
-            cnf.clone(),
-            write(d, "c.drat", &[b'a', 0x82]),
-            "drat",
-            "cut off",
-        ),
-        (
-            cnf.clone(),
-            write(d, "d.drat", &[b'a', 2, 0, b'z', 2, 0]),
-            "drat",
-            "byte 3",
-        ),
-        (
-            cnf.clone(),
-            write(d, "e.drat", b"1 d 0\n"),
-            "drat",
-            "'d' inside a clause",
-        ),
+        (write(d, "e.cnf", b"\x1f\x8b\x08garbage"), drat.clone(), "drat", "gzip data is damaged"),
+        (cnf.clone(), write(d, "a.drat", b"1 2 0\n-1 q 0\n"), "drat", "byte 9"),
+        (cnf.clone(), write(d, "b.drat", b"1 2 0\n-1"), "drat", "not ended by 0"),
+        (cnf.clone(), write(d, "c.drat", &[b'a', 0x82]), "drat", "cut off"),
+        (cnf.clone(), write(d, "d.drat", &[b'a', 2, 0, b'z', 2, 0]), "drat", "byte 3"),
+        (cnf.clone(), write(d, "e.drat", b"1 d 0\n"), "drat", "'d' inside a clause"),
         (
             cnf.clone(),
             write(d, "a.lrat", b"5 -2 0 4 3\n"),
@@ -196,12 +128,7 @@ fn malformed_inputs_exit_2_with_their_position() {
             "lrat",
             ":2: expected a positive clause id",
         ),
-        (
-            cnf.clone(),
-            write(d, "c.lrat", b"5 d 3 -4 0\n"),
-            "lrat",
-            "deletion line",
-        ),
+        (cnf.clone(), write(d, "c.lrat", b"5 d 3 -4 0\n"), "lrat", "deletion line"),
         (cnf.clone(), d.join("missing.drat"), "drat", "cannot read"),
         (d.join("missing.cnf"), drat.clone(), "drat", "cannot read"),
     ];
@@ -217,17 +144,9 @@ fn malformed_manifests_exit_2() {
     assert_unreadable(&["bundle", p(d)], "manifest.json: cannot read");
     write(d, "manifest.json", b"{ \"bundle_format\": ");
     assert_unreadable(&["bundle", p(d)], "not a ramsift bundle manifest");
-    write(
-        d,
-        "manifest.json",
-        b"{ \"bundle_format\": \"something else\" }",
-    );
+    write(d, "manifest.json", b"{ \"bundle_format\": \"something else\" }");
     assert_unreadable(&["bundle", p(d)], "expected \"ramsift-bundle 1\"");
-    write(
-        d,
-        "manifest.json",
-        b"{ \"bundle_format\": \"ramsift-bundle 1\" }",
-    );
+    write(d, "manifest.json", b"{ \"bundle_format\": \"ramsift-bundle 1\" }");
     assert_unreadable(&["bundle", p(d)], "missing field `claim`");
     write(
         d,

@@ -37,11 +37,7 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         .collect();
     for p in &verdict.premises {
         lines.push(match &p.certified_by {
-            Some(by) => format!(
-                "  premise {}: certified by bundle {}",
-                p.statement,
-                by.display()
-            ),
+            Some(by) => format!("  premise {}: certified by bundle {}", p.statement, by.display()),
             None => format!(
                 "  premise {}: ASSUMED, not certified by any bundle ({})",
                 p.statement, p.source

@@ -26,25 +26,16 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
     let mut items = Vec::new();
     let mut failures = Vec::new();
     for (index, matrix) in matrices.iter().enumerate() {
-        let label = if matrices.len() > 1 {
-            format!("{name} graph {}", index + 1)
-        } else {
-            name.clone()
-        };
+        let label =
+            if matrices.len() > 1 { format!("{name} graph {}", index + 1) } else { name.clone() };
         let verdict = check_colouring(matrix, &claim);
         let pass = verdict.is_valid();
         let detail = if pass {
-            format!(
-                "a colouring of K_{} with no monochromatic forbidden graph",
-                matrix.order()
-            )
+            format!("a colouring of K_{} with no monochromatic forbidden graph", matrix.order())
         } else {
             verdict.to_string()
         };
-        lines.push(format!(
-            "{}: {label}: {detail}",
-            if pass { "ok" } else { "bad" }
-        ));
+        lines.push(format!("{}: {label}: {detail}", if pass { "ok" } else { "bad" }));
         if !pass {
             failures.push(format!("{label}: {detail}"));
         }
@@ -64,14 +55,8 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
     } else {
         Report::new(Outcome::Fail, failures.join("; "))
     };
-    report.lines = if matrices.len() > 1 {
-        lines
-    } else {
-        Vec::new()
-    };
-    report
-        .field("claim", claim.to_string())
-        .field("colourings", items)
+    report.lines = if matrices.len() > 1 { lines } else { Vec::new() };
+    report.field("claim", claim.to_string()).field("colourings", items)
 }
 
 fn read(

@@ -53,11 +53,7 @@ pub fn run_drat(
         Ok(b) => b,
         Err(e) => return Report::unreadable(e),
     };
-    let format = if is_binary(&bytes) {
-        "binary DRAT"
-    } else {
-        "text DRAT"
-    };
+    let format = if is_binary(&bytes) { "binary DRAT" } else { "text DRAT" };
     let steps = match parse_drat(&proof_path.display().to_string(), &bytes) {
         Ok(s) => s,
         Err(e) => return Report::unreadable(e),
@@ -66,10 +62,7 @@ pub fn run_drat(
     let (report, lemmas) = match check_drat(&cnf, &steps, emit_lrat.is_some()) {
         Ok(done) => done,
         Err(failure) => {
-            return Report::new(
-                Outcome::Fail,
-                format!("{}: {failure}", proof_path.display()),
-            )
+            return Report::new(Outcome::Fail, format!("{}: {failure}", proof_path.display()))
         }
     };
     let mut lines = Vec::new();
@@ -88,11 +81,7 @@ pub fn run_drat(
             report.ignored_unit_deletions, report.deletions_of_absent_clauses
         ));
     }
-    let under = if cube.is_empty() {
-        String::new()
-    } else {
-        format!(" under the cube {cube:?}")
-    };
+    let under = if cube.is_empty() { String::new() } else { format!(" under the cube {cube:?}") };
     let seconds = started.elapsed().as_secs_f64();
     let mut out = Report::new(
         Outcome::Pass,
@@ -158,10 +147,7 @@ pub fn run_lrat(cnf_path: &Path, proof_path: &Path) -> Report {
 
 /// Writes under a temporary name in the same directory, then renames.
 fn write_file_atomically(path: &Path, content: &[u8]) -> std::io::Result<()> {
-    let file_name = path
-        .file_name()
-        .map(|n| n.to_string_lossy().into_owned())
-        .unwrap_or_default();
+    let file_name = path.file_name().map(|n| n.to_string_lossy().into_owned()).unwrap_or_default();
     let temp = path.with_file_name(format!(".{file_name}.{}.tmp", std::process::id()));
     let result = (|| {
         let mut file = std::fs::File::create(&temp)?;

@@ -48,12 +48,7 @@ pub struct Report {
 
 impl Report {
     pub fn new(outcome: Outcome, reason: impl Into<String>) -> Self {
-        Report {
-            outcome,
-            reason: reason.into(),
-            lines: Vec::new(),
-            fields: Map::new(),
-        }
+        Report { outcome, reason: reason.into(), lines: Vec::new(), fields: Map::new() }
     }
 
     /// An input that could not be read.
