@@ -35,125 +35,84 @@ pub fn parse_colouring_file(name: &str, text: &str) -> Result<ColouringFile, Inp
         .enumerate()
         .map(|(i, l)| (i + 1, l.trim()))
         .filter(|(_, l)| !l.is_empty() && !l.starts_with('#'));
-
     let (header_line, header) = lines.next().ok_or_else(|| {
         InputError::whole(name, format!("empty file: expected a header line starting with {MAGIC}"))
     })?;
     let (claim, order) = parse_header(name, header_line, header)?;
     let colours = claim.colours();
-
     let mut matrix = ColourMatrix::filled(order, 0);
     for row in 0..order {
         let (line_no, line) = lines.next().ok_or_else(|| {
-            InputError::whole(
-                name,
-                format!("the file ends after {row} matrix rows; the header promises {order}"),
-            )
+            let why = format!("the file ends after {row} matrix rows; the header promises {order}");
+            InputError::whole(name, why)
         })?;
+        let bad = |why: String| InputError::at_line(name, line_no, why);
         let entries: Vec<&str> = line.split_whitespace().collect();
         if entries.len() != order {
-            return Err(InputError::at_line(
-                name,
-                line_no,
-                format!("row {row} has {} entries, expected {order}", entries.len()),
-            ));
+            return Err(bad(format!("row {row} has {} entries, expected {order}", entries.len())));
         }
         for (col, entry) in entries.iter().enumerate() {
+            let at = format!("row {row}, column {col}");
             if col == row {
                 if *entry != "." {
-                    return Err(InputError::at_line(
-                        name,
-                        line_no,
-                        format!("row {row}, column {col} is the diagonal: expected '.', found {entry:?}"),
-                    ));
+                    return Err(bad(format!(
+                        "{at} is the diagonal: expected '.', found {entry:?}"
+                    )));
                 }
                 continue;
             }
-            let colour: usize = entry
-                .parse()
-                .ok()
-                .filter(|c| (1..=colours).contains(c))
-                .ok_or_else(|| {
-                    InputError::at_line(
-                        name,
-                        line_no,
-                        format!("row {row}, column {col} is {entry:?}: expected a colour from 1 to {colours}"),
-                    )
+            let colour: usize =
+                entry.parse().ok().filter(|c| (1..=colours).contains(c)).ok_or_else(|| {
+                    bad(format!("{at} is {entry:?}: expected a colour from 1 to {colours}"))
                 })?;
-            if col < row && matrix.colour(col, row) as usize != colour {
-                return Err(InputError::at_line(
-                    name,
-                    line_no,
-                    format!(
-                        "row {row}, column {col} is {colour} but row {col}, column {row} is {}: the matrix must be symmetric",
-                        matrix.colour(col, row)
-                    ),
-                ));
+            let mirror = matrix.colour(col, row) as usize;
+            if col < row && mirror != colour {
+                return Err(bad(format!(
+                    "{at} is {colour} but row {col}, column {row} is {mirror}: the matrix must be symmetric"
+                )));
             }
-            if col > row {
-                matrix.set(row, col, colour as u8);
-            }
+            matrix.set(row, col, colour as u8);
         }
     }
     if let Some((line_no, _)) = lines.next() {
-        return Err(InputError::at_line(
-            name,
-            line_no,
-            format!("unexpected content after the {order} matrix rows"),
-        ));
+        let why = format!("unexpected content after the {order} matrix rows");
+        return Err(InputError::at_line(name, line_no, why));
     }
     Ok(ColouringFile { claim, matrix })
 }
 
 fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usize), InputError> {
+    let bad = |why: String| InputError::at_line(name, line_no, why);
     let mut words = header.split_whitespace();
     if words.next() != Some(MAGIC) {
-        return Err(InputError::at_line(
-            name,
-            line_no,
-            format!("expected a header line starting with {MAGIC}, found {header:?}"),
-        ));
+        return Err(bad(format!("expected a header line starting with {MAGIC}, found {header:?}")));
     }
-    let mut claim = None;
-    let mut order = None;
+    let (mut claim, mut order) = (None, None);
     for word in words {
-        let (key, value) = word.split_once('=').ok_or_else(|| {
-            InputError::at_line(
-                name,
-                line_no,
-                format!("header field {word:?} is not of the form key=value"),
-            )
-        })?;
+        let (key, value) = word
+            .split_once('=')
+            .ok_or_else(|| bad(format!("header field {word:?} is not of the form key=value")))?;
         match key {
             "spec" => {
-                claim = Some(Claim::parse(value).map_err(|e| {
-                    InputError::at_line(name, line_no, format!("header field spec: {e}"))
-                })?)
+                claim =
+                    Some(Claim::parse(value).map_err(|e| bad(format!("header field spec: {e}")))?)
             }
             "order" => {
-                let n: usize = value.parse().ok().filter(|n| (1..=MAX_ORDER).contains(n)).ok_or_else(|| {
-                    InputError::at_line(
-                        name,
-                        line_no,
-                        format!("header field order={value}: expected a whole number from 1 to {MAX_ORDER}"),
-                    )
-                })?;
-                order = Some(n);
+                let n = value.parse().ok().filter(|n| (1..=MAX_ORDER).contains(n));
+                let why = format!(
+                    "header field order={value}: expected a whole number from 1 to {MAX_ORDER}"
+                );
+                order = Some(n.ok_or_else(|| bad(why))?);
             }
             other => {
-                return Err(InputError::at_line(
-                    name,
-                    line_no,
-                    format!("unknown header field {other:?}: expected spec= and order="),
-                ))
+                return Err(bad(format!(
+                    "unknown header field {other:?}: expected spec= and order="
+                )))
             }
         }
     }
-    match (claim, order) {
-        (Some(c), Some(n)) => Ok((c, n)),
-        (None, _) => Err(InputError::at_line(name, line_no, "header has no spec= field")),
-        (_, None) => Err(InputError::at_line(name, line_no, "header has no order= field")),
-    }
+    let claim = claim.ok_or_else(|| bad("header has no spec= field".into()))?;
+    Ok((claim, order.ok_or_else(|| bad("header has no order= field".into()))?))
 }
 
 #[cfg(test)]
