@@ -54,6 +54,9 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
     }
     for (index, graph) in claim.forbidden.iter().enumerate() {
         let colour = index + 1;
+        if graph.vertices() > matrix.order() {
+            continue; // no room for a copy (and no edge list built for a huge clique)
+        }
         let copy =
             find_monochromatic_copy(matrix, colour as u8, graph.vertices(), &graph.edge_list());
         if let Some(vertices) = copy {
