@@ -71,9 +71,7 @@ pub(crate) fn check_nested(
     chain: &mut Vec<PathBuf>,
 ) -> Result<BundleVerdict, InputError> {
     let name = dir.display().to_string();
-    let root = dir
-        .canonicalize()
-        .map_err(|e| InputError::whole(&name, format!("cannot open the bundle: {e}")))?;
+    let root = dir.canonicalize().map_err(|e| InputError::whole(&name, format!("cannot open the bundle: {e}")))?;
     let manifest = read_manifest(&root)?;
     let manifest_name = dir.join("manifest.json").display().to_string();
     let claim = manifest.claim(&manifest_name)?;
@@ -116,10 +114,7 @@ pub(crate) fn check_nested(
 
 /// Resolves a file named in the manifest: inside the bundle, a regular file.
 pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
-    if name.starts_with('/')
-        || name.contains('\\')
-        || name.split('/').any(|p| p == ".." || p.is_empty())
-    {
+    if name.starts_with('/') || name.contains('\\') || name.split('/').any(|p| p == ".." || p.is_empty()) {
         return Err(format!("file name {name:?} points outside the bundle"));
     }
     let path = root
@@ -158,17 +153,12 @@ fn check_own_proof(
         let path = bundle_file(root, &file.name)?;
         let actual = sha256_of(&path)?;
         if actual != file.sha256 {
-            return Err(format!(
-                "{}: SHA-256 is {actual}, the manifest says {}",
-                file.name, file.sha256
-            ));
+            return Err(format!("{}: SHA-256 is {actual}, the manifest says {}", file.name, file.sha256));
         }
         match file.role.as_str() {
             "formula" if formula.is_none() => formula = Some(path),
             "drat-proof" if proof.is_none() => proof = Some(path),
-            "formula" | "drat-proof" => {
-                return Err(format!("the manifest lists a second {} file", file.role))
-            }
+            "formula" | "drat-proof" => return Err(format!("the manifest lists a second {} file", file.role)),
             _ => {}
         }
     }
@@ -183,9 +173,7 @@ fn check_own_proof(
         .and_then(|b| parse_cnf(&formula_name, &b))
         .map_err(|e| format!("the formula cannot be read: {e}"))?;
     let regenerated = regenerate(statement, cnf.clauses.len())?;
-    if cnf.variables != regenerated.variables
-        || normalized(&cnf.clauses) != normalized(&regenerated.clauses)
-    {
+    if cnf.variables != regenerated.variables || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
         return Err(format!(
             "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
             cnf.variables,
@@ -215,9 +203,8 @@ fn check_own_proof(
 /// Checks one DRAT trace against the formula with `cube` added as unit clauses.
 pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String, String> {
     let name = path.display().to_string();
-    let steps = read_input(path)
-        .and_then(|b| parse_drat(&name, &b))
-        .map_err(|e| format!("the proof cannot be read: {e}"))?;
+    let steps =
+        read_input(path).and_then(|b| parse_drat(&name, &b)).map_err(|e| format!("the proof cannot be read: {e}"))?;
     let mut with_cube;
     let formula = if cube.is_empty() {
         cnf
@@ -226,8 +213,7 @@ pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String
         with_cube.clauses.extend(cube.iter().map(|&l| vec![l]));
         &with_cube
     };
-    let (report, _) =
-        check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
+    let (report, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
     Ok(format!(
         "{} lemmas, {} checked, core of {} original clauses",
         report.lemmas, report.checked_lemmas, report.core_original_clauses

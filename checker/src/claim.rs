@@ -64,17 +64,11 @@ fn entry_error(index: usize, token: &str, why: &str) -> String {
 }
 
 fn whole(text: &str) -> Option<usize> {
-    (!text.is_empty() && text.bytes().all(|b| b.is_ascii_digit()))
-        .then(|| text.parse().ok())
-        .flatten()
+    (!text.is_empty() && text.bytes().all(|b| b.is_ascii_digit())).then(|| text.parse().ok()).flatten()
 }
 
 /// Builds a graph entry from its edges, or a clique when they are all pairs.
-fn graph_entry(
-    token: String,
-    vertices: usize,
-    pairs: &[(usize, usize)],
-) -> Result<ClaimGraph, String> {
+fn graph_entry(token: String, vertices: usize, pairs: &[(usize, usize)]) -> Result<ClaimGraph, String> {
     let mut edges = BTreeSet::new();
     for &(a, b) in pairs {
         if a == b || a >= vertices || b >= vertices {
@@ -104,13 +98,10 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         return Ok(ClaimGraph::Clique(k));
     }
     if let Some(code) = token.strip_prefix("G6:") {
-        let matrix = crate::graph6::decode_graph6("entry", 0, code.as_bytes())
-            .map_err(|e| bad(&e.message))?;
+        let matrix = crate::graph6::decode_graph6("entry", 0, code.as_bytes()).map_err(|e| bad(&e.message))?;
         let n = matrix.order();
-        let edges: Vec<(usize, usize)> = (0..n)
-            .flat_map(|j| (0..j).map(move |i| (i, j)))
-            .filter(|&(i, j)| matrix.colour(i, j) == 1)
-            .collect();
+        let edges: Vec<(usize, usize)> =
+            (0..n).flat_map(|j| (0..j).map(move |i| (i, j))).filter(|&(i, j)| matrix.colour(i, j) == 1).collect();
         return graph_entry(token.to_string(), n, &edges).map_err(|e| bad(&e));
     }
     if let Some(list) = token.strip_prefix("E:") {
@@ -120,8 +111,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
             pairs.push(parsed.ok_or_else(|| bad("expected edges a-b separated by /"))?);
         }
         let n = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
-        let canonical: BTreeSet<(usize, usize)> =
-            pairs.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
+        let canonical: BTreeSet<(usize, usize)> = pairs.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
         let text: Vec<String> = canonical.iter().map(|(a, b)| format!("{a}-{b}")).collect();
         return graph_entry(format!("E:{}", text.join("/")), n, &pairs).map_err(|e| bad(&e));
     }
@@ -138,8 +128,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
     let (token, n, pairs): (String, usize, Vec<(usize, usize)>) = match letter {
         'K' if rest.ends_with("-E") => {
             let k = need(whole(&rest[..rest.len() - 2]), 3, "K_k - e needs k >= 3")?;
-            let pairs =
-                (0..k).flat_map(|b| (0..b).map(move |a| (a, b))).filter(|&e| e != (0, 1)).collect();
+            let pairs = (0..k).flat_map(|b| (0..b).map(move |a| (a, b))).filter(|&e| e != (0, 1)).collect();
             (format!("K{k}-e"), k, pairs)
         }
         'K' if rest.contains(':') => {
@@ -173,8 +162,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         }
         'B' => {
             let k = need(whole(rest), 1, "a book needs a page")?;
-            let pairs =
-                std::iter::once((0, 1)).chain((2..k + 2).flat_map(|p| [(0, p), (1, p)])).collect();
+            let pairs = std::iter::once((0, 1)).chain((2..k + 2).flat_map(|p| [(0, p), (1, p)])).collect();
             (format!("B{k}"), k + 2, pairs)
         }
         _ => return Err(bad("expected a clique size such as 4 or K4, or a graph such as C5")),
@@ -200,10 +188,7 @@ impl Claim {
             .map(|(index, raw)| parse_entry(index, raw.trim()))
             .collect::<Result<Vec<_>, _>>()?;
         if forbidden.len() < 2 || forbidden.len() > MAX_COLOURS {
-            return Err(format!(
-                "{} colour(s) listed: a claim needs between 2 and {MAX_COLOURS}",
-                forbidden.len()
-            ));
+            return Err(format!("{} colour(s) listed: a claim needs between 2 and {MAX_COLOURS}", forbidden.len()));
         }
         Ok(Claim { forbidden })
     }
@@ -253,10 +238,7 @@ mod tests {
 
     #[test]
     fn rejects_bad_lists() {
-        for bad in [
-            "", "4", "4,", "4,x", "4,1", "KK4,4", "-4,4", "4.5,4", "C2,4", "E:0-0,4", "G6:D,4",
-            "Q4,4",
-        ] {
+        for bad in ["", "4", "4,", "4,x", "4,1", "KK4,4", "-4,4", "4.5,4", "C2,4", "E:0-0,4", "G6:D,4", "Q4,4"] {
             assert!(Claim::parse(bad).is_err(), "{bad:?} accepted");
         }
     }

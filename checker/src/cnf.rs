@@ -16,9 +16,8 @@ pub struct Cnf {
 
 /// Parses DIMACS CNF text; `name` is used in error messages.
 pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
-    let text = std::str::from_utf8(bytes).map_err(|e| {
-        InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected DIMACS CNF")
-    })?;
+    let text = std::str::from_utf8(bytes)
+        .map_err(|e| InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected DIMACS CNF"))?;
     let mut header: Option<(usize, usize)> = None;
     let mut clauses: Vec<Vec<i32>> = Vec::new();
     let mut comments = Vec::new();
@@ -50,9 +49,7 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
                 InputError::at_line(
                     name,
                     line_no,
-                    format!(
-                        "expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}"
-                    ),
+                    format!("expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}"),
                 )
             })?;
             if v > i32::MAX as usize {
@@ -66,16 +63,12 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
             continue;
         }
         let Some((variables, clause_count)) = header else {
-            return Err(InputError::at_line(
-                name,
-                line_no,
-                "clause before the problem line `p cnf V C`",
-            ));
+            return Err(InputError::at_line(name, line_no, "clause before the problem line `p cnf V C`"));
         };
         for token in trimmed.split_whitespace() {
-            let lit: i64 = token.parse().map_err(|_| {
-                InputError::at_line(name, line_no, format!("{token:?} is not an integer literal"))
-            })?;
+            let lit: i64 = token
+                .parse()
+                .map_err(|_| InputError::at_line(name, line_no, format!("{token:?} is not an integer literal")))?;
             if lit == 0 {
                 if clauses.len() == clause_count {
                     return Err(InputError::at_line(
@@ -106,10 +99,7 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     if clauses.len() != clause_count {
         return Err(InputError::whole(
             name,
-            format!(
-                "the problem line promises {clause_count} clauses, the file has {}",
-                clauses.len()
-            ),
+            format!("the problem line promises {clause_count} clauses, the file has {}", clauses.len()),
         ));
     }
     Ok(Cnf { variables, clauses, comments })

@@ -30,14 +30,11 @@ pub struct ColouringFile {
 
 /// Parses a colouring file; `name` is used in error messages.
 pub fn parse_colouring_file(name: &str, text: &str) -> Result<ColouringFile, InputError> {
-    let mut lines = text
-        .lines()
-        .enumerate()
-        .map(|(i, l)| (i + 1, l.trim()))
-        .filter(|(_, l)| !l.is_empty() && !l.starts_with('#'));
-    let (header_line, header) = lines.next().ok_or_else(|| {
-        InputError::whole(name, format!("empty file: expected a header line starting with {MAGIC}"))
-    })?;
+    let mut lines =
+        text.lines().enumerate().map(|(i, l)| (i + 1, l.trim())).filter(|(_, l)| !l.is_empty() && !l.starts_with('#'));
+    let (header_line, header) = lines
+        .next()
+        .ok_or_else(|| InputError::whole(name, format!("empty file: expected a header line starting with {MAGIC}")))?;
     let (claim, order) = parse_header(name, header_line, header)?;
     let colours = claim.colours();
     let mut matrix = ColourMatrix::filled(order, 0);
@@ -55,16 +52,15 @@ pub fn parse_colouring_file(name: &str, text: &str) -> Result<ColouringFile, Inp
             let at = format!("row {row}, column {col}");
             if col == row {
                 if *entry != "." {
-                    return Err(bad(format!(
-                        "{at} is the diagonal: expected '.', found {entry:?}"
-                    )));
+                    return Err(bad(format!("{at} is the diagonal: expected '.', found {entry:?}")));
                 }
                 continue;
             }
-            let colour: usize =
-                entry.parse().ok().filter(|c| (1..=colours).contains(c)).ok_or_else(|| {
-                    bad(format!("{at} is {entry:?}: expected a colour from 1 to {colours}"))
-                })?;
+            let colour: usize = entry
+                .parse()
+                .ok()
+                .filter(|c| (1..=colours).contains(c))
+                .ok_or_else(|| bad(format!("{at} is {entry:?}: expected a colour from 1 to {colours}")))?;
             let mirror = matrix.colour(col, row) as usize;
             if col < row && mirror != colour {
                 return Err(bad(format!(
@@ -89,26 +85,16 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
     }
     let (mut claim, mut order) = (None, None);
     for word in words {
-        let (key, value) = word
-            .split_once('=')
-            .ok_or_else(|| bad(format!("header field {word:?} is not of the form key=value")))?;
+        let (key, value) =
+            word.split_once('=').ok_or_else(|| bad(format!("header field {word:?} is not of the form key=value")))?;
         match key {
-            "spec" => {
-                claim =
-                    Some(Claim::parse(value).map_err(|e| bad(format!("header field spec: {e}")))?)
-            }
+            "spec" => claim = Some(Claim::parse(value).map_err(|e| bad(format!("header field spec: {e}")))?),
             "order" => {
                 let n = value.parse().ok().filter(|n| (1..=MAX_ORDER).contains(n));
-                let why = format!(
-                    "header field order={value}: expected a whole number from 1 to {MAX_ORDER}"
-                );
+                let why = format!("header field order={value}: expected a whole number from 1 to {MAX_ORDER}");
                 order = Some(n.ok_or_else(|| bad(why))?);
             }
-            other => {
-                return Err(bad(format!(
-                    "unknown header field {other:?}: expected spec= and order="
-                )))
-            }
+            other => return Err(bad(format!("unknown header field {other:?}: expected spec= and order="))),
         }
     }
     let claim = claim.ok_or_else(|| bad("header has no spec= field".into()))?;
@@ -119,8 +105,7 @@ fn parse_header(name: &str, line_no: usize, header: &str) -> Result<(Claim, usiz
 mod tests {
     use super::*;
 
-    const PENTAGON: &str =
-        "# the pentagon and its complement\nramsift-colouring spec=3,3 order=5\n\
+    const PENTAGON: &str = "# the pentagon and its complement\nramsift-colouring spec=3,3 order=5\n\
         . 1 2 2 1\n1 . 1 2 2\n2 1 . 1 2\n2 2 1 . 1\n1 2 2 1 .\n";
 
     #[test]
@@ -144,17 +129,12 @@ mod tests {
         assert!(error_of("ramsift-colouring order=2\n").contains("no spec="));
         assert!(error_of("ramsift-colouring spec=3,3 order=0\n").contains("order=0"));
         assert!(error_of("ramsift-colouring spec=3 order=2\n").contains("spec"));
-        assert!(
-            error_of("ramsift-colouring spec=3,3 order=2 x=1\n").contains("unknown header field")
-        );
+        assert!(error_of("ramsift-colouring spec=3,3 order=2 x=1\n").contains("unknown header field"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n").contains("ends after 1"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 . 1\n")
-            .starts_with("f:3: row 1 has 3"));
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 . 1\n").starts_with("f:3: row 1 has 3"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n1 1\n1 .\n").contains("diagonal"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 3\n3 .\n")
-            .contains("colour from 1 to 2"));
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 3\n3 .\n").contains("colour from 1 to 2"));
         assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n2 .\n").contains("symmetric"));
-        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n")
-            .contains("after the 2 matrix rows"));
+        assert!(error_of("ramsift-colouring spec=3,3 order=2\n. 1\n1 .\n. .\n").contains("after the 2 matrix rows"));
     }
 }

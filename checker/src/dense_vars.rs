@@ -45,11 +45,8 @@ impl DenseVars {
     /// The literal as the proof wrote it.
     pub fn original(&self, dense: i32) -> i32 {
         let var = dense.unsigned_abs();
-        let back = if var <= self.formula_max {
-            var
-        } else {
-            self.original[(var - self.formula_max - 1) as usize]
-        } as i32;
+        let back =
+            if var <= self.formula_max { var } else { self.original[(var - self.formula_max - 1) as usize] } as i32;
         if dense < 0 {
             -back
         } else {

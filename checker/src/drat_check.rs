@@ -17,7 +17,6 @@
 //! those, an LRAT proof of the same refutation is written on request.
 
 use std::collections::HashMap;
-use std::fmt;
 
 use crate::cnf::Cnf;
 use crate::dense_vars::DenseVars;
@@ -45,35 +44,16 @@ pub struct DratReport {
 }
 
 /// Why a proof was rejected.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, thiserror::Error)]
 pub enum DratFailure {
-    /// A core lemma is neither RUP nor RAT on its first literal.
-    LemmaFailed {
-        /// 1-based index of the step in the proof.
-        step: usize,
-        offset: u64,
-        lemma: Vec<i32>,
-    },
+    /// A core lemma (`step` counts from 1) is neither RUP nor RAT on its first literal.
+    #[error("proof step {step} (byte {offset}): lemma {lemma:?} is neither RUP nor RAT on its first literal")]
+    LemmaFailed { step: usize, offset: u64, lemma: Vec<i32> },
     /// No empty lemma, and propagation on the final clause set finds no conflict.
+    #[error(
+        "the proof never derives the empty clause, and unit propagation on its final clause set finds no conflict"
+    )]
     NoRefutation,
-}
-
-impl fmt::Display for DratFailure {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        match self {
-            DratFailure::LemmaFailed { step, offset, lemma } => {
-                let text: Vec<String> = lemma.iter().map(|l| l.to_string()).collect();
-                write!(
-                    f,
-                    "proof step {step} (byte {offset}): lemma [{}] is neither RUP nor RAT on its first literal",
-                    text.join(" ")
-                )
-            }
-            DratFailure::NoRefutation => f.write_str(
-                "the proof never derives the empty clause, and unit propagation on its final clause set finds no conflict",
-            ),
-        }
-    }
 }
 
 const NO_REASON: u32 = u32::MAX;
@@ -287,10 +267,7 @@ impl Checker {
                 i += 1;
                 continue;
             }
-            let replacement = clause.lits[2..]
-                .iter()
-                .position(|&l| !self.is_true[(l ^ 1) as usize])
-                .map(|k| k + 2);
+            let replacement = clause.lits[2..].iter().position(|&l| !self.is_true[(l ^ 1) as usize]).map(|k| k + 2);
             if let Some(k) = replacement {
                 clause.lits.swap(1, k);
                 let new_watch = clause.lits[1] as usize;
@@ -395,9 +372,7 @@ impl Checker {
         let mut proofs = Vec::new();
         for candidate in candidates {
             let mut resolvent = lemma_lits.clone();
-            resolvent.extend(
-                self.clauses[candidate as usize].lits.iter().copied().filter(|&l| l != pivot ^ 1),
-            );
+            resolvent.extend(self.clauses[candidate as usize].lits.iter().copied().filter(|&l| l != pivot ^ 1));
             self.mark_core(candidate);
             match self.rup(&resolvent) {
                 Rup::Trivial => proofs.push((candidate, Vec::new())),
@@ -524,8 +499,7 @@ pub fn check_drat(
             }
         }
     }
-    report.core_original_clauses =
-        checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
+    report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {

@@ -28,10 +28,7 @@ pub struct DratStep {
 /// Whether the bytes look like binary DRAT.
 pub fn is_binary(bytes: &[u8]) -> bool {
     bytes.first() == Some(&b'a')
-        || bytes
-            .iter()
-            .take(1024)
-            .any(|&b| !(0x20..=0x7e).contains(&b) && !matches!(b, b'\n' | b'\r' | b'\t'))
+        || bytes.iter().take(1024).any(|&b| !(0x20..=0x7e).contains(&b) && !matches!(b, b'\n' | b'\r' | b'\t'))
 }
 
 /// Parses a DRAT proof in either form.
@@ -67,38 +64,26 @@ fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
         let token = &bytes[start..pos];
         if token == b"d" {
             if current.is_some() {
-                return Err(InputError::at_byte(
-                    name,
-                    start as u64,
-                    "'d' inside a clause: expected a literal or 0",
-                ));
+                return Err(InputError::at_byte(name, start as u64, "'d' inside a clause: expected a literal or 0"));
             }
-            current = Some(DratStep {
-                kind: StepKind::Delete,
-                literals: Vec::new(),
-                offset: start as u64,
-            });
+            current = Some(DratStep { kind: StepKind::Delete, literals: Vec::new(), offset: start as u64 });
             continue;
         }
-        let lit: i32 = std::str::from_utf8(token)
-            .ok()
-            .and_then(|t| t.parse::<i32>().ok())
-            .filter(|&l| l != i32::MIN)
-            .ok_or_else(|| {
-                InputError::at_byte(
-                    name,
-                    start as u64,
-                    format!(
-                        "{:?} is not a literal: expected an integer within ±2147483647, or 'd'",
-                        String::from_utf8_lossy(token)
-                    ),
-                )
-            })?;
-        let step = current.get_or_insert_with(|| DratStep {
-            kind: StepKind::Add,
-            literals: Vec::new(),
-            offset: start as u64,
-        });
+        let lit: i32 =
+            std::str::from_utf8(token).ok().and_then(|t| t.parse::<i32>().ok()).filter(|&l| l != i32::MIN).ok_or_else(
+                || {
+                    InputError::at_byte(
+                        name,
+                        start as u64,
+                        format!(
+                            "{:?} is not a literal: expected an integer within ±2147483647, or 'd'",
+                            String::from_utf8_lossy(token)
+                        ),
+                    )
+                },
+            )?;
+        let step =
+            current.get_or_insert_with(|| DratStep { kind: StepKind::Add, literals: Vec::new(), offset: start as u64 });
         if lit == 0 {
             steps.push(current.take().expect("a step is open"));
         } else {
@@ -106,11 +91,7 @@ fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
         }
     }
     if let Some(step) = current {
-        return Err(InputError::at_byte(
-            name,
-            step.offset,
-            "the last step is not ended by 0 (truncated proof?)",
-        ));
+        return Err(InputError::at_byte(name, step.offset, "the last step is not ended by 0 (truncated proof?)"));
     }
     Ok(steps)
 }
@@ -139,19 +120,11 @@ fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
             let mut shift = 0;
             loop {
                 let Some(&byte) = bytes.get(pos) else {
-                    return Err(InputError::at_byte(
-                        name,
-                        start as u64,
-                        "the last step is cut off (truncated proof?)",
-                    ));
+                    return Err(InputError::at_byte(name, start as u64, "the last step is cut off (truncated proof?)"));
                 };
                 pos += 1;
                 if shift > 28 {
-                    return Err(InputError::at_byte(
-                        name,
-                        lit_start as u64,
-                        "literal too large for 32 bits",
-                    ));
+                    return Err(InputError::at_byte(name, lit_start as u64, "literal too large for 32 bits"));
                 }
                 value |= ((byte & 0x7f) as u64) << shift;
                 shift += 7;
@@ -185,12 +158,8 @@ mod tests {
     #[test]
     fn binary_examples_from_the_format() {
         // 129 -> 82 02 and -8193 -> 83 80 01 (binary DRAT description; shared facts).
-        let steps =
-            parse_drat("p", &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00]).unwrap();
-        assert_eq!(
-            steps[0],
-            DratStep { kind: StepKind::Add, literals: vec![129, -8193], offset: 0 }
-        );
+        let steps = parse_drat("p", &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00]).unwrap();
+        assert_eq!(steps[0], DratStep { kind: StepKind::Add, literals: vec![129, -8193], offset: 0 });
         assert_eq!(steps[1], DratStep { kind: StepKind::Delete, literals: vec![2], offset: 7 });
     }
 

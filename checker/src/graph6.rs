@@ -19,20 +19,13 @@ pub fn decode_graph6(name: &str, offset: u64, bytes: &[u8]) -> Result<ColourMatr
     let at = |pos: usize, message: String| InputError::at_byte(name, offset + pos as u64, message);
     for (pos, &b) in bytes.iter().enumerate() {
         if !(63..=126).contains(&b) {
-            return Err(at(
-                pos,
-                format!("byte 0x{b:02x} is not a graph6 character (expected 0x3f to 0x7e)"),
-            ));
+            return Err(at(pos, format!("byte 0x{b:02x} is not a graph6 character (expected 0x3f to 0x7e)")));
         }
     }
     let (order, header_len) = match bytes {
         [] => return Err(at(0, "empty graph6 string".to_string())),
-        [126, 126, rest @ ..] => {
-            (read_bits(rest, 6).ok_or_else(|| at(2, "truncated 36-bit order".to_string()))?, 8)
-        }
-        [126, rest @ ..] => {
-            (read_bits(rest, 3).ok_or_else(|| at(1, "truncated 18-bit order".to_string()))?, 4)
-        }
+        [126, 126, rest @ ..] => (read_bits(rest, 6).ok_or_else(|| at(2, "truncated 36-bit order".to_string()))?, 8),
+        [126, rest @ ..] => (read_bits(rest, 3).ok_or_else(|| at(1, "truncated 18-bit order".to_string()))?, 4),
         [first, ..] => ((*first - 63) as u64, 1),
     };
     if order as usize > MAX_ORDER {
@@ -100,10 +93,8 @@ mod tests {
         // C5 as 0-1-2-3-4-0 is "Dhc" (McKay's graph6 description; see shared facts).
         let m = decode_graph6("t", 0, b"Dhc").unwrap();
         assert_eq!(m.order(), 5);
-        let edges: Vec<(usize, usize)> = (0..5)
-            .flat_map(|j| (0..j).map(move |i| (i, j)))
-            .filter(|&(i, j)| m.colour(i, j) == 1)
-            .collect();
+        let edges: Vec<(usize, usize)> =
+            (0..5).flat_map(|j| (0..j).map(move |i| (i, j))).filter(|&(i, j)| m.colour(i, j) == 1).collect();
         assert_eq!(edges, vec![(0, 1), (1, 2), (2, 3), (0, 4), (3, 4)]);
     }
 

@@ -17,8 +17,7 @@ pub const GZIP_ALLOWANCE: u64 = 64 << 20;
 /// Refuses anything that is not a regular file (symlinks are followed first).
 pub fn require_regular_file(path: &Path) -> Result<std::fs::Metadata, InputError> {
     let name = path.display().to_string();
-    let meta = std::fs::metadata(path)
-        .map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    let meta = std::fs::metadata(path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
     if meta.is_file() {
         return Ok(meta);
     }
@@ -30,8 +29,7 @@ pub fn require_regular_file(path: &Path) -> Result<std::fs::Metadata, InputError
 pub fn read_input(path: &Path) -> Result<Vec<u8>, InputError> {
     let name = path.display().to_string();
     require_regular_file(path)?;
-    let raw =
-        std::fs::read(path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    let raw = std::fs::read(path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
     if !raw.starts_with(&[0x1f, 0x8b]) {
         return Ok(raw);
     }

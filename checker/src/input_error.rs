@@ -14,8 +14,20 @@ pub enum Position {
     Whole,
 }
 
-/// A malformed or unreadable input.
+impl fmt::Display for Position {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Position::Line(line) => write!(f, ":{line}"),
+            Position::Byte(offset) => write!(f, ": byte {offset}"),
+            Position::Whole => Ok(()),
+        }
+    }
+}
+
+/// A malformed or unreadable input: `name:line: message`, `name: byte N: message`
+/// or `name: message`.
 #[derive(Clone, Debug, PartialEq, Eq, thiserror::Error)]
+#[error("{source_name}{position}: {message}")]
 pub struct InputError {
     pub source_name: String,
     pub position: Position,
@@ -24,8 +36,7 @@ pub struct InputError {
 
 impl InputError {
     fn new(source_name: &str, position: Position, message: impl Into<String>) -> Self {
-        let (source_name, message) = (source_name.to_string(), message.into());
-        InputError { source_name, position, message }
+        InputError { source_name: source_name.to_string(), position, message: message.into() }
     }
 
     pub fn at_line(source_name: &str, line: usize, message: impl Into<String>) -> Self {
@@ -38,16 +49,5 @@ impl InputError {
 
     pub fn whole(source_name: &str, message: impl Into<String>) -> Self {
         Self::new(source_name, Position::Whole, message)
-    }
-}
-
-impl fmt::Display for InputError {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        let name = &self.source_name;
-        match self.position {
-            Position::Line(line) => write!(f, "{name}:{line}: {}", self.message),
-            Position::Byte(offset) => write!(f, "{name}: byte {offset}: {}", self.message),
-            Position::Whole => write!(f, "{name}: {}", self.message),
-        }
     }
 }

@@ -37,10 +37,7 @@ pub enum Justification {
 
 /// Numbers checked lemmas (given in proof order) as LRAT lines after the
 /// formula's `original` clauses.
-pub fn number_lemmas(
-    original: usize,
-    lemmas: impl Iterator<Item = (u32, Vec<i32>, Justification)>,
-) -> Vec<LratLemma> {
+pub fn number_lemmas(original: usize, lemmas: impl Iterator<Item = (u32, Vec<i32>, Justification)>) -> Vec<LratLemma> {
     let mut lrat_id: HashMap<u32, u64> = (0..original as u32).map(|i| (i, i as u64 + 1)).collect();
     let mut lines = Vec::new();
     for (next, (clause, literals, justification)) in (original as u64 + 1..).zip(lemmas) {
@@ -51,8 +48,7 @@ pub fn number_lemmas(
                 proofs
                     .iter()
                     .flat_map(|(c, used)| {
-                        std::iter::once(-(lrat_id[c] as i64))
-                            .chain(used.iter().map(|u| lrat_id[u] as i64))
+                        std::iter::once(-(lrat_id[c] as i64)).chain(used.iter().map(|u| lrat_id[u] as i64))
                     })
                     .collect()
             }
@@ -79,9 +75,8 @@ pub struct LratLine {
 
 /// Parses text LRAT.
 pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError> {
-    let text = std::str::from_utf8(bytes).map_err(|e| {
-        InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected LRAT")
-    })?;
+    let text = std::str::from_utf8(bytes)
+        .map_err(|e| InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected LRAT"))?;
     let mut out = Vec::new();
     for (index, raw) in text.lines().enumerate() {
         let line = index + 1;
@@ -91,10 +86,11 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
         }
         let err = |m: String| InputError::at_line(name, line, m);
         let mut tokens = trimmed.split_whitespace();
-        let id: u64 =
-            tokens.next().and_then(|t| t.parse().ok()).filter(|&id| id > 0).ok_or_else(|| {
-                err("expected a positive clause id at the start of the line".into())
-            })?;
+        let id: u64 = tokens
+            .next()
+            .and_then(|t| t.parse().ok())
+            .filter(|&id| id > 0)
+            .ok_or_else(|| err("expected a positive clause id at the start of the line".into()))?;
         let rest: Vec<&str> = tokens.collect();
         let numbers = |tokens: &[&str]| -> Result<Vec<i64>, InputError> {
             tokens
@@ -114,15 +110,12 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
                     step: LratStep::Delete { id, clauses: ids.iter().map(|&i| i as u64).collect() },
                     line,
                 }),
-                _ => {
-                    return Err(err("a deletion line lists positive clause ids ending in 0".into()))
-                }
+                _ => return Err(err("a deletion line lists positive clause ids ending in 0".into())),
             }
             continue;
         }
         let values = numbers(&rest)?;
-        let zeros: Vec<usize> =
-            values.iter().enumerate().filter(|(_, &v)| v == 0).map(|(i, _)| i).collect();
+        let zeros: Vec<usize> = values.iter().enumerate().filter(|(_, &v)| v == 0).map(|(i, _)| i).collect();
         if zeros.len() != 2 || zeros[1] != values.len() - 1 {
             return Err(err("expected `id literals 0 hints 0`".into()));
         }
@@ -202,16 +195,12 @@ fn replay(
     line: usize,
 ) -> Result<HintResult, String> {
     for &hint in hints {
-        let clause = db
-            .get(&(hint as u64))
-            .ok_or_else(|| format!("line {line}: hint {hint} names no live clause"))?;
+        let clause = db.get(&(hint as u64)).ok_or_else(|| format!("line {line}: hint {hint} names no live clause"))?;
         let mut unassigned = None;
         let mut open = 0;
         for &l in clause {
             match assignment.value(l) {
-                1 => {
-                    return Err(format!("line {line}: hint {hint} is already satisfied, not unit"))
-                }
+                1 => return Err(format!("line {line}: hint {hint} is already satisfied, not unit")),
                 0 if unassigned != Some(l) => {
                     open += 1;
                     unassigned = Some(l);
@@ -222,9 +211,7 @@ fn replay(
         match (open, unassigned) {
             (0, _) => return Ok(HintResult::Conflict),
             (1, Some(l)) => assignment.set_true(l),
-            _ => {
-                return Err(format!("line {line}: hint {hint} is not unit ({open} literals open)"))
-            }
+            _ => return Err(format!("line {line}: hint {hint} is not unit ({open} literals open)")),
         }
     }
     Ok(HintResult::Open)
@@ -261,10 +248,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
             }
             LratStep::Add(lemma) => {
                 if lemma.id <= last_id {
-                    return Err(format!(
-                        "line {line}: clause id {} is not above the previous id {last_id}",
-                        lemma.id
-                    ));
+                    return Err(format!("line {line}: clause id {} is not above the previous id {last_id}", lemma.id));
                 }
                 last_id = lemma.id;
                 report.lemmas += 1;
@@ -278,8 +262,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                         _ => {}
                     }
                 }
-                let first_rat =
-                    lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
+                let first_rat = lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
                 let verified = tautology
                     || match replay(&db, &mut assignment, &lemma.hints[..first_rat], line)? {
                         HintResult::Conflict => true,
@@ -291,13 +274,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
                                 ));
                             }
                             report.rat_lemmas += 1;
-                            check_rat_groups(
-                                &db,
-                                &mut assignment,
-                                &literals,
-                                &lemma.hints[first_rat..],
-                                line,
-                            )?;
+                            check_rat_groups(&db, &mut assignment, &literals, &lemma.hints[first_rat..], line)?;
                             true
                         }
                     };
@@ -319,22 +296,17 @@ fn check_rat_groups(
     groups: &[i64],
     line: usize,
 ) -> Result<(), String> {
-    let pivot =
-        *literals.first().ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
+    let pivot = *literals.first().ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
     let base = assignment.trail.len();
     let mut covered: Vec<u64> = Vec::new();
     let mut k = 0;
     while k < groups.len() {
         let candidate = (-groups[k]) as u64;
         let end = groups[k + 1..].iter().position(|&h| h < 0).map_or(groups.len(), |p| k + 1 + p);
-        let clause = db.get(&candidate).ok_or_else(|| {
-            format!("line {line}: RAT candidate {candidate} names no live clause")
-        })?;
+        let clause =
+            db.get(&candidate).ok_or_else(|| format!("line {line}: RAT candidate {candidate} names no live clause"))?;
         if !clause.contains(&-pivot) {
-            return Err(format!(
-                "line {line}: RAT candidate {candidate} does not contain {}",
-                -pivot
-            ));
+            return Err(format!("line {line}: RAT candidate {candidate} does not contain {}", -pivot));
         }
         assignment.undo_to(base);
         let mut done = false;
@@ -349,9 +321,7 @@ fn check_rat_groups(
             match replay(db, assignment, &groups[k + 1..end], line)? {
                 HintResult::Conflict => {}
                 HintResult::Open => {
-                    return Err(format!(
-                    "line {line}: the hints for RAT candidate {candidate} end without a conflict"
-                ))
+                    return Err(format!("line {line}: the hints for RAT candidate {candidate} end without a conflict"))
                 }
             }
         }
@@ -360,10 +330,7 @@ fn check_rat_groups(
     }
     for (&id, clause) in db {
         if clause.contains(&-pivot) && !covered.contains(&id) {
-            return Err(format!(
-                "line {line}: RAT candidate {id} (contains {}) has no hints",
-                -pivot
-            ));
+            return Err(format!("line {line}: RAT candidate {id} (contains {}) has no hints", -pivot));
         }
     }
     Ok(())
@@ -391,7 +358,7 @@ mod tests {
     fn broken_hints_are_rejected() {
         let cnf = parse_cnf("f", CNF).unwrap();
         for bad in [
-            &b"5 -2 0 4 0\n"[..],           // hints end without conflict
+            &b"5 -2 0 4 0\n"[..],                                          // hints end without conflict
             b"5 -2 0 4 3 0\n6 1 0 5 3 0\n", // 3 is not unit... falsified? must fail somewhere
             b"5 -2 0 9 0\n",                // no such clause
             b"5 -2 0 4 3 0\n5 1 0 5 1 0\n", // id not increasing

@@ -94,9 +94,7 @@ enum Command {
 
 fn main() -> ExitCode {
     let (report, json) = match Cli::parse().command {
-        Command::Colouring { file, forbid, json } => {
-            (cli::colouring::run(&file, forbid.as_deref()), json)
-        }
+        Command::Colouring { file, forbid, json } => (cli::colouring::run(&file, forbid.as_deref()), json),
         Command::Drat { cnf, proof, cube, emit_lrat, json } => {
             (cli::proofs::run_drat(&cnf, &proof, cube.as_deref(), emit_lrat.as_deref()), json)
         }

@@ -84,11 +84,9 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
     if require_regular_file(&path)?.len() > MAX_MANIFEST_BYTES {
         return Err(InputError::whole(&name, format!("larger than {MAX_MANIFEST_BYTES} bytes")));
     }
-    let text =
-        std::fs::read(&path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
-    let not_manifest = |e: serde_json::Error| {
-        InputError::at_line(&name, e.line(), format!("not a ramsift bundle manifest: {e}"))
-    };
+    let text = std::fs::read(&path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    let not_manifest =
+        |e: serde_json::Error| InputError::at_line(&name, e.line(), format!("not a ramsift bundle manifest: {e}"));
     #[derive(Deserialize)]
     struct FormatTag {
         bundle_format: Option<String>,
@@ -111,8 +109,7 @@ impl Manifest {
         let bad = |why: String| InputError::whole(name, why);
         let claim = match (&self.claim.forbidden, &self.claim.clique_sizes) {
             (Some(entries), sizes) => {
-                let parsed = Claim::parse(&entries.join(","))
-                    .map_err(|e| bad(format!("claim.forbidden: {e}")))?;
+                let parsed = Claim::parse(&entries.join(",")).map_err(|e| bad(format!("claim.forbidden: {e}")))?;
                 if sizes.is_some() && parsed.clique_sizes() != *sizes {
                     return Err(bad("claim.forbidden and claim.clique_sizes disagree".into()));
                 }
@@ -120,8 +117,7 @@ impl Manifest {
             }
             (None, Some(sizes)) => {
                 let text: Vec<String> = sizes.iter().map(|k| k.to_string()).collect();
-                Claim::parse(&text.join(","))
-                    .map_err(|e| bad(format!("claim.clique_sizes: {e}")))?
+                Claim::parse(&text.join(",")).map_err(|e| bad(format!("claim.clique_sizes: {e}")))?
             }
             (None, None) => return Err(bad("claim has neither forbidden nor clique_sizes".into())),
         };

@@ -22,22 +22,18 @@ pub struct PremiseStatus {
 }
 
 fn candidates(root: &Path, premise_dirs: &[PathBuf]) -> Result<Vec<(PathBuf, String)>, String> {
-    let mut found: Vec<(PathBuf, String)> = premise_dirs
-        .iter()
-        .map(|d| (d.clone(), format!("premise bundle {}", d.display())))
-        .collect();
+    let mut found: Vec<(PathBuf, String)> =
+        premise_dirs.iter().map(|d| (d.clone(), format!("premise bundle {}", d.display()))).collect();
     let folder = root.join("premises");
     if !folder.exists() {
         return Ok(found);
     }
-    let entries =
-        std::fs::read_dir(&folder).map_err(|e| format!("premises/ cannot be read: {e}"))?;
+    let entries = std::fs::read_dir(&folder).map_err(|e| format!("premises/ cannot be read: {e}"))?;
     let mut nested = Vec::new();
     for entry in entries {
         let entry = entry.map_err(|e| format!("premises/ cannot be read: {e}"))?;
         let label = format!("premise bundle premises/{}", entry.file_name().to_string_lossy());
-        let path =
-            entry.path().canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
+        let path = entry.path().canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
         if !path.starts_with(root) {
             return Err(format!("{label} is a link that leads outside the bundle"));
         }
@@ -69,13 +65,11 @@ pub fn certify_premises(
         if chain.len() >= MAX_PREMISE_DEPTH {
             return Err(format!("{label}: premises nest deeper than {MAX_PREMISE_DEPTH} bundles"));
         }
-        let canonical =
-            path.canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
+        let canonical = path.canonicalize().map_err(|e| format!("{label} cannot be opened: {e}"))?;
         if chain.contains(&canonical) {
             return Err(format!("{label} is a bundle that rests on itself (a cycle of premises)"));
         }
-        let verdict =
-            check_nested(&path, &[], chain).map_err(|e| format!("{label} cannot be read: {e}"))?;
+        let verdict = check_nested(&path, &[], chain).map_err(|e| format!("{label} cannot be read: {e}"))?;
         if let Some(why) = &verdict.failure {
             return Err(format!("{label} fails: {why}"));
         }

@@ -45,45 +45,36 @@ pub struct Regenerated {
     pub used_premises: Vec<PremiseBound>,
 }
 
-struct Numbering {
-    colours: usize,
-}
-
-impl Numbering {
-    /// "edge {a,b} has colour c" (two colours) / "may have colour c" (more).
-    fn lit(&self, a: usize, b: usize, colour: usize) -> i32 {
-        let (i, j) = (a.min(b), a.max(b));
-        let e = j * (j - 1) / 2 + i;
-        if self.colours == 2 {
-            if colour == 1 {
-                e as i32 + 1
-            } else {
-                -(e as i32 + 1)
-            }
-        } else {
-            (e * self.colours + colour) as i32
-        }
+/// "edge {a,b} has colour c" with two colours, "may have colour c" with r >= 3.
+fn lit(colours: usize, a: usize, b: usize, colour: usize) -> i32 {
+    let (i, j) = (a.min(b), a.max(b));
+    let e = j * (j - 1) / 2 + i;
+    match (colours, colour) {
+        (2, 1) => e as i32 + 1,
+        (2, _) => -(e as i32 + 1),
+        _ => (e * colours + colour) as i32,
     }
 }
 
-/// Visits every k-subset of 0..n in order while `visit` returns true; returns
-/// false when it stopped early.
-fn subsets(
+/// Visits every sequence of `len` distinct vertices of 0..n (only increasing ones
+/// when `increasing`: the k-subsets) while `visit` returns true; false if stopped.
+fn sequences(
     n: usize,
-    k: usize,
-    start: usize,
+    len: usize,
+    increasing: bool,
     chosen: &mut Vec<usize>,
     visit: &mut dyn FnMut(&[usize]) -> bool,
 ) -> bool {
-    if chosen.len() == k {
+    if chosen.len() == len {
         return visit(chosen);
     }
-    for v in start..n {
-        if n - v < k - chosen.len() {
-            break;
+    let start = if increasing { chosen.last().map_or(0, |&l| l + 1) } else { 0 };
+    for x in start..n {
+        if chosen.contains(&x) {
+            continue;
         }
-        chosen.push(v);
-        let go_on = subsets(n, k, v + 1, chosen, visit);
+        chosen.push(x);
+        let go_on = sequences(n, len, increasing, chosen, visit);
         chosen.pop();
         if !go_on {
             return false;
@@ -92,35 +83,8 @@ fn subsets(
     true
 }
 
-/// Every injective placement of `v` graph vertices into 0..n, while `visit`
-/// returns true.
-fn placements(
-    n: usize,
-    v: usize,
-    chosen: &mut Vec<usize>,
-    visit: &mut dyn FnMut(&[usize]) -> bool,
-) -> bool {
-    if chosen.len() == v {
-        return visit(chosen);
-    }
-    for x in 0..n {
-        if !chosen.contains(&x) {
-            chosen.push(x);
-            let go_on = placements(n, v, chosen, visit);
-            chosen.pop();
-            if !go_on {
-                return false;
-            }
-        }
-    }
-    true
-}
-
 /// Bounds that hold by definition: R(..,1,..) = 1, and entries 2 can be dropped.
-fn elementary_or_premise(
-    smaller: &[usize],
-    premises: &[PremiseBound],
-) -> Option<(usize, Option<PremiseBound>)> {
+fn elementary_or_premise(smaller: &[usize], premises: &[PremiseBound]) -> Option<(usize, Option<PremiseBound>)> {
     if smaller.contains(&1) {
         return Some((1, None));
     }
@@ -147,7 +111,6 @@ fn elementary_or_premise(
 pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerated, String> {
     let n = statement.order;
     let r = statement.forbidden.len();
-    let num = Numbering { colours: r };
     for name in &statement.symmetry {
         if !["colour-swap", "lex-leader", "degree-bounds"].contains(&name.as_str()) {
             return Err(format!("unknown symmetry scheme {name:?}"));
@@ -161,23 +124,19 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
     if r > 2 {
         for j in 0..n {
             for i in 0..j {
-                clauses.push((1..=r).map(|c| num.lit(i, j, c)).collect());
+                clauses.push((1..=r).map(|c| lit(r, i, j, c)).collect());
             }
         }
     }
-    let too_many = || {
-        format!(
-            "the claim's formula has more than the {max_clauses} clauses of the bundled formula"
-        )
-    };
+    let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
     for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
         let complete = match graph {
-            ClaimGraph::Clique(k) => subsets(n, *k, 0, &mut Vec::new(), &mut |s| {
+            ClaimGraph::Clique(k) => sequences(n, *k, true, &mut Vec::new(), &mut |s| {
                 let mut clause = Vec::new();
                 for (p, &a) in s.iter().enumerate() {
                     for &b in &s[p + 1..] {
-                        clause.push(-num.lit(a, b, colour));
+                        clause.push(-lit(r, a, b, colour));
                     }
                 }
                 clauses.push(clause);
@@ -186,9 +145,9 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
             ClaimGraph::Graph { vertices, edges, .. } => {
                 let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
                 let room = max_clauses.saturating_sub(clauses.len());
-                let complete = placements(n, *vertices, &mut Vec::new(), &mut |place| {
+                let complete = sequences(n, *vertices, false, &mut Vec::new(), &mut |place| {
                     let mut clause: Vec<i32> =
-                        edges.iter().map(|&(a, b)| -num.lit(place[a], place[b], colour)).collect();
+                        edges.iter().map(|&(a, b)| -lit(r, place[a], place[b], colour)).collect();
                     clause.sort_unstable();
                     copies.insert(clause);
                     copies.len() <= room
@@ -210,8 +169,7 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 continue;
             }
             seen.push(graph);
-            let mut class: Vec<usize> =
-                (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
+            let mut class: Vec<usize> = (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
             if has("lex-leader") && class[0] == 1 && r > 2 {
                 class.remove(0);
             }
@@ -219,10 +177,10 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 continue;
             }
             if r == 2 {
-                clauses.push(vec![num.lit(0, n - 1, class[0])]);
+                clauses.push(vec![lit(r, 0, n - 1, class[0])]);
             } else {
                 for &d in &class[1..] {
-                    clauses.push(vec![-num.lit(0, n - 1, d)]);
+                    clauses.push(vec![-lit(r, 0, n - 1, d)]);
                 }
             }
         }
@@ -234,13 +192,11 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
         for i in 0..n - 1 {
             let cols: Vec<usize> = (0..n).filter(|&k| k != i && k != i + 1).collect();
             for (p, &k) in cols.iter().enumerate() {
-                let a = num.lit(i, k, 1);
-                let b = num.lit(i + 1, k, 1);
+                let a = lit(r, i, k, 1);
+                let b = lit(r, i + 1, k, 1);
                 let equal_before = (p > 0).then(|| -((first + i * per_pair + p - 1) as i32));
                 let equal_here = (first + i * per_pair + p) as i32;
-                let guarded = |rest: &[i32]| {
-                    equal_before.into_iter().chain(rest.iter().copied()).collect::<Vec<i32>>()
-                };
+                let guarded = |rest: &[i32]| equal_before.into_iter().chain(rest.iter().copied()).collect::<Vec<i32>>();
                 clauses.push(guarded(&[-a, b]));
                 if p + 1 < cols.len() {
                     clauses.push(guarded(&[-a, equal_here]));
@@ -258,16 +214,15 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
             .iter()
             .map(|g| match g {
                 ClaimGraph::Clique(k) => Ok(*k),
-                ClaimGraph::Graph { token, .. } => Err(format!(
-                    "degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"
-                )),
+                ClaimGraph::Graph { token, .. } => {
+                    Err(format!("degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"))
+                }
             })
             .collect::<Result<_, _>>()?;
         for colour in 1..=r {
             let mut smaller: Vec<usize> = cliques.clone();
             smaller[colour - 1] -= 1;
-            let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises)
-            else {
+            let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises) else {
                 continue;
             };
             let Some(k) = bound.checked_sub(1) else {
@@ -282,8 +237,7 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 }
             }
             for v in 0..n {
-                let xs: Vec<i32> =
-                    (0..n).filter(|&u| u != v).map(|u| num.lit(v, u, colour)).collect();
+                let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
                 if k == 0 {
                     clauses.extend(xs.iter().map(|&x| vec![-x]));
                     continue;

@@ -38,21 +38,14 @@ fn tree_leaves(
 }
 
 /// Checks every shard under its cube; returns a summary.
-pub fn check_shards(
-    root: &Path,
-    cnf: &Cnf,
-    sharding: &Sharding,
-    files: &[FileRecord],
-) -> Result<String, String> {
+pub fn check_shards(root: &Path, cnf: &Cnf, sharding: &Sharding, files: &[FileRecord]) -> Result<String, String> {
     let mut leaves = Vec::new();
     tree_leaves(&sharding.tree, cnf.variables, &mut Vec::new(), &mut leaves)?;
     let count = leaves.len();
     let mut seen = vec![false; count];
     for (leaf, _) in &leaves {
         if *leaf >= count || std::mem::replace(&mut seen[*leaf], true) {
-            return Err(format!(
-                "the tree's leaves are not the shard indices 0..{count} each once"
-            ));
+            return Err(format!("the tree's leaves are not the shard indices 0..{count} each once"));
         }
     }
     if sharding.shards != count {
@@ -63,10 +56,7 @@ pub fn check_shards(
         let traces: Vec<&FileRecord> =
             files.iter().filter(|f| f.role == "shard-proof" && f.shard == Some(*leaf)).collect();
         let [file] = traces.as_slice() else {
-            return Err(format!(
-                "shard {leaf} has {} traces listed, expected exactly one",
-                traces.len()
-            ));
+            return Err(format!("shard {leaf} has {} traces listed, expected exactly one", traces.len()));
         };
         let mut cube = file.cube.clone().ok_or(format!("shard {leaf} has no cube"))?;
         let mut expected = path.clone();
@@ -75,11 +65,8 @@ pub fn check_shards(
         if cube != expected {
             return Err(format!("shard {leaf}'s cube {cube:?} is not its tree path {expected:?}"));
         }
-        check_trace(cnf, &bundle_file(root, &file.name)?, &cube)
-            .map_err(|e| format!("shard {leaf}: {e}"))?;
+        check_trace(cnf, &bundle_file(root, &file.name)?, &cube).map_err(|e| format!("shard {leaf}: {e}"))?;
         checked += 1;
     }
-    Ok(format!(
-        "coverage tree complete ({count} cubes); all {checked} shard traces verified under their cubes"
-    ))
+    Ok(format!("coverage tree complete ({count} cubes); all {checked} shard traces verified under their cubes"))
 }

@@ -32,21 +32,14 @@ pub fn find_monochromatic_copy(
     place(matrix, colour, &earlier, clique, &mut placed).then_some(placed)
 }
 
-fn place(
-    matrix: &ColourMatrix,
-    colour: u8,
-    earlier: &[Vec<usize>],
-    increasing: bool,
-    placed: &mut Vec<usize>,
-) -> bool {
+fn place(matrix: &ColourMatrix, colour: u8, earlier: &[Vec<usize>], increasing: bool, placed: &mut Vec<usize>) -> bool {
     let v = placed.len();
     if v == earlier.len() {
         return true;
     }
     let start = if increasing { placed.last().map_or(0, |&l| l + 1) } else { 0 };
     for x in start..matrix.order() {
-        if placed.contains(&x) || !earlier[v].iter().all(|&u| matrix.colour(placed[u], x) == colour)
-        {
+        if placed.contains(&x) || !earlier[v].iter().all(|&u| matrix.colour(placed[u], x) == colour) {
             continue;
         }
         placed.push(x);
@@ -113,11 +106,7 @@ mod tests {
         let n = m.order();
         (0u32..1 << n).any(|mask| {
             let vs: Vec<usize> = (0..n).filter(|&v| mask >> v & 1 == 1).collect();
-            vs.len() == k
-                && vs
-                    .iter()
-                    .enumerate()
-                    .all(|(p, &a)| vs[p + 1..].iter().all(|&b| m.colour(a, b) == colour))
+            vs.len() == k && vs.iter().enumerate().all(|(p, &a)| vs[p + 1..].iter().all(|&b| m.colour(a, b) == colour))
         })
     }
 

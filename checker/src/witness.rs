@@ -57,8 +57,7 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
         if graph.vertices() > matrix.order() {
             continue; // no room for a copy (and no edge list built for a huge clique)
         }
-        let copy =
-            find_monochromatic_copy(matrix, colour as u8, graph.vertices(), &graph.edge_list());
+        let copy = find_monochromatic_copy(matrix, colour as u8, graph.vertices(), &graph.edge_list());
         if let Some(vertices) = copy {
             let edges = graph
                 .edge_list()

@@ -17,10 +17,7 @@ impl Scratch {
 }
 
 fn check(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_ramsift-check"))
-        .args(args)
-        .output()
-        .expect("ramsift-check runs")
+    Command::new(env!("CARGO_BIN_EXE_ramsift-check")).args(args).output().expect("ramsift-check runs")
 }
 
 fn text(bytes: &[u8]) -> String {
@@ -50,11 +47,7 @@ fn monochromatic_triangle_exits_1_and_names_it() {
     let path = s.file("bad.colouring", bad.as_bytes());
     let o = check(&["colouring", path.to_str().unwrap()]);
     assert_eq!(o.status.code(), Some(1), "{}", text(&o.stderr));
-    assert!(
-        text(&o.stdout).contains("colour 1 has a monochromatic K3 on vertices {0, 1, 2}"),
-        "{}",
-        text(&o.stdout)
-    );
+    assert!(text(&o.stdout).contains("colour 1 has a monochromatic K3 on vertices {0, 1, 2}"), "{}", text(&o.stdout));
 }
 
 #[test]
@@ -100,25 +93,10 @@ fn assert_unreadable(name: &str, content: &[u8], extra: &[&str], expected: &str)
 #[test]
 fn malformed_colouring_files_exit_2_with_position() {
     assert_unreadable("empty", b"", &["--forbid", "3,3"], "graph6");
-    assert_unreadable(
-        "header-only",
-        b"ramsift-colouring spec=3,3 order=5\n",
-        &[],
-        "ends after 0 matrix rows",
-    );
-    assert_unreadable(
-        "bad-key",
-        b"ramsift-colouring spec=3,3 order=5 colour=2\n",
-        &[],
-        ":1: unknown header field",
-    );
+    assert_unreadable("header-only", b"ramsift-colouring spec=3,3 order=5\n", &[], "ends after 0 matrix rows");
+    assert_unreadable("bad-key", b"ramsift-colouring spec=3,3 order=5 colour=2\n", &[], ":1: unknown header field");
     assert_unreadable("bad-order", b"ramsift-colouring spec=3,3 order=abc\n", &[], "order=abc");
-    assert_unreadable(
-        "huge-order",
-        b"ramsift-colouring spec=3,3 order=99999999999\n",
-        &[],
-        "from 1 to",
-    );
+    assert_unreadable("huge-order", b"ramsift-colouring spec=3,3 order=99999999999\n", &[], "from 1 to");
     assert_unreadable("bad-spec", b"ramsift-colouring spec=3 order=2\n. 1\n1 .\n", &[], "spec");
     assert_unreadable(
         "short-row",
@@ -126,30 +104,10 @@ fn malformed_colouring_files_exit_2_with_position() {
         &[],
         ":4: row 1 has 1 entries",
     );
-    assert_unreadable(
-        "asymmetric",
-        b"ramsift-colouring spec=3,3 order=2\n. 1\n2 .\n",
-        &[],
-        "symmetric",
-    );
-    assert_unreadable(
-        "colour-0",
-        b"ramsift-colouring spec=3,3 order=2\n. 0\n0 .\n",
-        &[],
-        "colour from 1 to 2",
-    );
-    assert_unreadable(
-        "diagonal",
-        b"ramsift-colouring spec=3,3 order=2\n1 1\n1 .\n",
-        &[],
-        "diagonal",
-    );
-    assert_unreadable(
-        "trailing",
-        b"ramsift-colouring spec=3,3 order=1\n.\n.\n",
-        &[],
-        "after the 1 matrix rows",
-    );
+    assert_unreadable("asymmetric", b"ramsift-colouring spec=3,3 order=2\n. 1\n2 .\n", &[], "symmetric");
+    assert_unreadable("colour-0", b"ramsift-colouring spec=3,3 order=2\n. 0\n0 .\n", &[], "colour from 1 to 2");
+    assert_unreadable("diagonal", b"ramsift-colouring spec=3,3 order=2\n1 1\n1 .\n", &[], "diagonal");
+    assert_unreadable("trailing", b"ramsift-colouring spec=3,3 order=1\n.\n.\n", &[], "after the 1 matrix rows");
     assert_unreadable("binary", b"ramsift-colouring spec=3,3 order=1\n\xff\n", &[], "not UTF-8");
     assert_unreadable("forbid", PENTAGON.as_bytes(), &["--forbid", "3,x"], "--forbid: entry 2");
 }

@@ -4,10 +4,7 @@ use std::path::{Path, PathBuf};
 use std::process::{Command, Output};
 
 fn check(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_ramsift-check"))
-        .args(args)
-        .output()
-        .expect("ramsift-check runs")
+    Command::new(env!("CARGO_BIN_EXE_ramsift-check")).args(args).output().expect("ramsift-check runs")
 }
 
 fn text(bytes: &[u8]) -> String {
@@ -66,11 +63,7 @@ fn wrong_proofs_exit_1_naming_the_step() {
     let bad = write(dir.path(), "bad.drat", b"3 0\n0\n");
     let o = check(&["drat", p(&cnf), p(&bad)]);
     assert_eq!(o.status.code(), Some(1));
-    assert!(
-        text(&o.stdout).contains("outside") || text(&o.stdout).contains("step"),
-        "{}",
-        text(&o.stdout)
-    );
+    assert!(text(&o.stdout).contains("outside") || text(&o.stdout).contains("step"), "{}", text(&o.stdout));
     let lemma_bad = write(dir.path(), "lemma.drat", b"-1 -2 0\n1 0\n0\n");
     let o = check(&["drat", p(&sat), p(&lemma_bad)]);
     assert_eq!(o.status.code(), Some(1));
@@ -96,38 +89,18 @@ fn malformed_inputs_exit_2_with_their_position() {
     let cnf = write(d, "f.cnf", CNF);
     let drat = write(d, "p.drat", DRAT);
     let cases: Vec<(PathBuf, PathBuf, &str, &str)> = vec![
-        (
-            write(d, "a.cnf", b"p cnf 2 1\n1 x 0\n"),
-            drat.clone(),
-            "drat",
-            ":2: \"x\" is not an integer",
-        ),
+        (write(d, "a.cnf", b"p cnf 2 1\n1 x 0\n"), drat.clone(), "drat", ":2: \"x\" is not an integer"),
         (write(d, "b.cnf", b"1 2 0\n"), drat.clone(), "drat", ":1: clause before the problem line"),
         (write(d, "c.cnf", b"p cnf 2 2\n1 2 0\n"), drat.clone(), "drat", "promises 2 clauses"),
-        (
-            write(d, "d.cnf", b"p cnf 1 1\n2 0\n"),
-            drat.clone(),
-            "drat",
-            "outside the 1 declared variables",
-        ),
+        (write(d, "d.cnf", b"p cnf 1 1\n2 0\n"), drat.clone(), "drat", "outside the 1 declared variables"),
         (write(d, "e.cnf", b"\x1f\x8b\x08garbage"), drat.clone(), "drat", "gzip data is damaged"),
         (cnf.clone(), write(d, "a.drat", b"1 2 0\n-1 q 0\n"), "drat", "byte 9"),
         (cnf.clone(), write(d, "b.drat", b"1 2 0\n-1"), "drat", "not ended by 0"),
         (cnf.clone(), write(d, "c.drat", &[b'a', 0x82]), "drat", "cut off"),
         (cnf.clone(), write(d, "d.drat", &[b'a', 2, 0, b'z', 2, 0]), "drat", "byte 3"),
         (cnf.clone(), write(d, "e.drat", b"1 d 0\n"), "drat", "'d' inside a clause"),
-        (
-            cnf.clone(),
-            write(d, "a.lrat", b"5 -2 0 4 3\n"),
-            "lrat",
-            ":1: expected `id literals 0 hints 0`",
-        ),
-        (
-            cnf.clone(),
-            write(d, "b.lrat", b"5 -2 0 4 3 0\nx 1 0 0\n"),
-            "lrat",
-            ":2: expected a positive clause id",
-        ),
+        (cnf.clone(), write(d, "a.lrat", b"5 -2 0 4 3\n"), "lrat", ":1: expected `id literals 0 hints 0`"),
+        (cnf.clone(), write(d, "b.lrat", b"5 -2 0 4 3 0\nx 1 0 0\n"), "lrat", ":2: expected a positive clause id"),
         (cnf.clone(), write(d, "c.lrat", b"5 d 3 -4 0\n"), "lrat", "deletion line"),
         (cnf.clone(), d.join("missing.drat"), "drat", "cannot read"),
         (d.join("missing.cnf"), drat.clone(), "drat", "cannot read"),
@@ -156,11 +129,19 @@ fn malformed_manifests_exit_2() {
     assert_unreadable(&["bundle", p(d)], "neither forbidden nor clique_sizes");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", "Q9"], "order": 6, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
     assert_unreadable(&["bundle", p(d)], "claim.forbidden: entry 2");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", 4], "order": 6, "statement": ""} }"#);
+    write(
+        d,
+        "manifest.json",
+        br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["C4", 4], "order": 6, "statement": ""} }"#,
+    );
     assert_unreadable(&["bundle", p(d)], "expected a string");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"forbidden": ["4", "4"], "clique_sizes": [3, 4], "order": 6, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
     assert_unreadable(&["bundle", p(d)], "disagree");
-    write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, "x"], "order": 6, "statement": ""} }"#);
+    write(
+        d,
+        "manifest.json",
+        br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, "x"], "order": 6, "statement": ""} }"#,
+    );
     assert_unreadable(&["bundle", p(d)], "expected usize");
     write(d, "manifest.json", br#"{ "bundle_format": "ramsift-bundle 1", "claim": {"clique_sizes": [3, 3], "order": 99999999, "statement": ""}, "encoding": {"symmetry": []}, "files": [] }"#);
     assert_unreadable(&["bundle", p(d)], "not a question this checker accepts");

@@ -21,35 +21,23 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         format!("claim: {}", verdict.claim),
         format!(
             "symmetry breaking: {}",
-            if verdict.symmetry.is_empty() {
-                "none".to_string()
-            } else {
-                verdict.symmetry.join(", ")
-            }
+            if verdict.symmetry.is_empty() { "none".to_string() } else { verdict.symmetry.join(", ") }
         ),
     ];
     lines.extend(verdict.passed.iter().map(|step| format!("  ok: {step}")));
-    let assumed: Vec<&str> = verdict
-        .premises
-        .iter()
-        .filter(|p| p.certified_by.is_none())
-        .map(|p| p.statement.as_str())
-        .collect();
+    let assumed: Vec<&str> =
+        verdict.premises.iter().filter(|p| p.certified_by.is_none()).map(|p| p.statement.as_str()).collect();
     for p in &verdict.premises {
         lines.push(match &p.certified_by {
             Some(by) => format!("  premise {}: certified by bundle {}", p.statement, by.display()),
-            None => format!(
-                "  premise {}: ASSUMED, not certified by any bundle ({})",
-                p.statement, p.source
-            ),
+            None => format!("  premise {}: ASSUMED, not certified by any bundle ({})", p.statement, p.source),
         });
     }
     let mut report = match &verdict.failure {
         Some(why) => Report::new(Outcome::Fail, why.clone()),
-        None if assumed.is_empty() => Report::new(
-            Outcome::Pass,
-            format!("{}, with nothing assumed ({seconds:.2}s)", verdict.claim),
-        ),
+        None if assumed.is_empty() => {
+            Report::new(Outcome::Pass, format!("{}, with nothing assumed ({seconds:.2}s)", verdict.claim))
+        }
         None => Report::new(
             Outcome::Conditional,
             format!(

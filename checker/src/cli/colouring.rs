@@ -26,8 +26,7 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
     let mut items = Vec::new();
     let mut failures = Vec::new();
     for (index, matrix) in matrices.iter().enumerate() {
-        let label =
-            if matrices.len() > 1 { format!("{name} graph {}", index + 1) } else { name.clone() };
+        let label = if matrices.len() > 1 { format!("{name} graph {}", index + 1) } else { name.clone() };
         let verdict = check_colouring(matrix, &claim);
         let pass = verdict.is_valid();
         let detail = if pass {
@@ -59,15 +58,11 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
     report.field("claim", claim.to_string()).field("colourings", items)
 }
 
-fn read(
-    name: &str,
-    path: &Path,
-    forbid: Option<Claim>,
-) -> Result<(Claim, Vec<ColourMatrix>), String> {
+fn read(name: &str, path: &Path, forbid: Option<Claim>) -> Result<(Claim, Vec<ColourMatrix>), String> {
     let content = read_input(path).map_err(|e| e.to_string())?;
     if looks_like_colouring_file(&content) {
-        let text = std::str::from_utf8(&content)
-            .map_err(|e| format!("{name}: byte {}: not UTF-8 text", e.valid_up_to()))?;
+        let text =
+            std::str::from_utf8(&content).map_err(|e| format!("{name}: byte {}: not UTF-8 text", e.valid_up_to()))?;
         let file = parse_colouring_file(name, text).map_err(|e| e.to_string())?;
         return Ok((forbid.unwrap_or(file.claim), vec![file.matrix]));
     }
@@ -75,10 +70,7 @@ fn read(
         format!("{name}: not a ramsift colouring file (no {MAGIC} header); a graph6 file needs --forbid S,T")
     })?;
     if claim.colours() != 2 {
-        return Err(
-            "--forbid: a graph6 file describes two colours; give exactly two forbidden graphs"
-                .into(),
-        );
+        return Err("--forbid: a graph6 file describes two colours; give exactly two forbidden graphs".into());
     }
     let matrices = decode_graph6_file(name, &content).map_err(|e| e.to_string())?;
     Ok((claim, matrices))

@@ -26,19 +26,12 @@ fn parse_cube(text: &str, variables: usize) -> Result<Vec<i32>, String> {
             t.parse::<i32>()
                 .ok()
                 .filter(|&l| l != 0 && l != i32::MIN && l.unsigned_abs() as usize <= variables)
-                .ok_or_else(|| {
-                    format!("--cube: {t:?} is not a literal of the formula's {variables} variables")
-                })
+                .ok_or_else(|| format!("--cube: {t:?} is not a literal of the formula's {variables} variables"))
         })
         .collect()
 }
 
-pub fn run_drat(
-    cnf_path: &Path,
-    proof_path: &Path,
-    cube: Option<&str>,
-    emit_lrat: Option<&Path>,
-) -> Report {
+pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lrat: Option<&Path>) -> Report {
     let started = Instant::now();
     let mut cnf = match load_cnf(cnf_path) {
         Ok(c) => c,
@@ -61,17 +54,12 @@ pub fn run_drat(
     drop(bytes);
     let (report, lemmas) = match check_drat(&cnf, &steps, emit_lrat.is_some()) {
         Ok(done) => done,
-        Err(failure) => {
-            return Report::new(Outcome::Fail, format!("{}: {failure}", proof_path.display()))
-        }
+        Err(failure) => return Report::new(Outcome::Fail, format!("{}: {failure}", proof_path.display())),
     };
     let mut lines = Vec::new();
     if let (Some(path), Some(lemmas)) = (emit_lrat, lemmas) {
         if let Err(e) = write_file_atomically(path, write_lrat(&lemmas).as_bytes()) {
-            return Report::unreadable(format!(
-                "{}: cannot write the LRAT proof: {e}",
-                path.display()
-            ));
+            return Report::unreadable(format!("{}: cannot write the LRAT proof: {e}", path.display()));
         }
         lines.push(format!("wrote LRAT proof {}", path.display()));
     }
@@ -117,9 +105,7 @@ pub fn run_lrat(cnf_path: &Path, proof_path: &Path) -> Report {
         Ok(c) => c,
         Err(e) => return Report::unreadable(e),
     };
-    let lines = match read_input(proof_path)
-        .and_then(|b| parse_lrat(&proof_path.display().to_string(), &b))
-    {
+    let lines = match read_input(proof_path).and_then(|b| parse_lrat(&proof_path.display().to_string(), &b)) {
         Ok(l) => l,
         Err(e) => return Report::unreadable(e),
     };
