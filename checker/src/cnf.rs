@@ -10,82 +10,50 @@ use crate::input_error::InputError;
 pub struct Cnf {
     pub variables: usize,
     pub clauses: Vec<Vec<i32>>,
-    /// Comment lines (without the leading `c`), for header inspection.
-    pub comments: Vec<String>,
 }
 
 /// Parses DIMACS CNF text; `name` is used in error messages.
 pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     let text = std::str::from_utf8(bytes)
         .map_err(|e| InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected DIMACS CNF"))?;
-    let mut header: Option<(usize, usize)> = None;
-    let mut clauses: Vec<Vec<i32>> = Vec::new();
-    let mut comments = Vec::new();
-    let mut current: Vec<i32> = Vec::new();
-    let mut last_line = 0;
+    let (mut header, mut clauses, mut current, mut last_line) = (None, Vec::new(), Vec::new(), 0);
     for (index, line) in text.lines().enumerate() {
-        let line_no = index + 1;
+        let (line_no, trimmed) = (index + 1, line.trim());
+        let bad = |why: String| InputError::at_line(name, line_no, why);
         last_line = line_no;
-        let trimmed = line.trim();
-        if trimmed.is_empty() {
+        let comment =
+            trimmed.strip_prefix('c').is_some_and(|rest| rest.is_empty() || rest.starts_with(char::is_whitespace));
+        if trimmed.is_empty() || comment {
             continue;
-        }
-        if let Some(rest) = trimmed.strip_prefix('c') {
-            if rest.is_empty() || rest.starts_with(char::is_whitespace) {
-                comments.push(rest.trim_start().to_string());
-                continue;
-            }
         }
         if trimmed.starts_with('p') {
             if header.is_some() {
-                return Err(InputError::at_line(name, line_no, "a second problem line"));
+                return Err(bad("a second problem line".into()));
             }
             let words: Vec<&str> = trimmed.split_whitespace().collect();
-            let parsed = match words.as_slice() {
+            let (v, c) = match words.as_slice() {
                 ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
                 _ => None,
-            };
-            let (v, c) = parsed.ok_or_else(|| {
-                InputError::at_line(
-                    name,
-                    line_no,
-                    format!("expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}"),
-                )
-            })?;
+            }
+            .ok_or_else(|| bad(format!("expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}")))?;
             if v > i32::MAX as usize {
-                return Err(InputError::at_line(
-                    name,
-                    line_no,
-                    format!("{v} variables: more than 32-bit literals can name"),
-                ));
+                return Err(bad(format!("{v} variables: more than 32-bit literals can name")));
             }
             header = Some((v, c));
             continue;
         }
         let Some((variables, clause_count)) = header else {
-            return Err(InputError::at_line(name, line_no, "clause before the problem line `p cnf V C`"));
+            return Err(bad("clause before the problem line `p cnf V C`".into()));
         };
         for token in trimmed.split_whitespace() {
-            let lit: i64 = token
-                .parse()
-                .map_err(|_| InputError::at_line(name, line_no, format!("{token:?} is not an integer literal")))?;
-            if lit == 0 {
-                if clauses.len() == clause_count {
-                    return Err(InputError::at_line(
-                        name,
-                        line_no,
-                        format!("more clauses than the {clause_count} the problem line promises"),
-                    ));
-                }
+            let lit: i64 = token.parse().map_err(|_| bad(format!("{token:?} is not an integer literal")))?;
+            if lit == 0 && clauses.len() == clause_count {
+                return Err(bad(format!("more clauses than the {clause_count} the problem line promises")));
+            } else if lit == 0 {
                 clauses.push(std::mem::take(&mut current));
+            } else if lit.unsigned_abs() as usize > variables {
+                return Err(bad(format!("literal {lit} is outside the {variables} declared variables")));
             } else {
-                if lit.unsigned_abs() as usize > variables {
-                    return Err(InputError::at_line(
-                        name,
-                        line_no,
-                        format!("literal {lit} is outside the {variables} declared variables"),
-                    ));
-                }
                 current.push(lit as i32);
             }
         }
@@ -97,12 +65,10 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
         return Err(InputError::at_line(name, last_line, "the last clause is not ended by 0"));
     }
     if clauses.len() != clause_count {
-        return Err(InputError::whole(
-            name,
-            format!("the problem line promises {clause_count} clauses, the file has {}", clauses.len()),
-        ));
+        let why = format!("the problem line promises {clause_count} clauses, the file has {}", clauses.len());
+        return Err(InputError::whole(name, why));
     }
-    Ok(Cnf { variables, clauses, comments })
+    Ok(Cnf { variables, clauses })
 }
 
 #[cfg(test)]
@@ -113,7 +79,6 @@ mod tests {
     fn reads_a_small_formula() {
         let cnf = parse_cnf("f", b"c hello\np cnf 2 2\n1 -2 0\n2\n 0\n").unwrap();
         assert_eq!(cnf.clauses, vec![vec![1, -2], vec![2]]);
-        assert_eq!(cnf.comments, vec!["hello"]);
     }
 
     #[test]
