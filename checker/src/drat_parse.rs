@@ -41,91 +41,72 @@ pub fn parse_drat(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError>
 }
 
 fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
-    let mut steps = Vec::new();
-    let mut pos = 0usize;
-    let mut current: Option<DratStep> = None;
+    let (mut steps, mut pos, mut current) = (Vec::new(), 0usize, None::<DratStep>);
     while pos < bytes.len() {
-        let b = bytes[pos];
-        if b.is_ascii_whitespace() {
+        if bytes[pos].is_ascii_whitespace() {
             pos += 1;
-            continue;
-        }
-        if b == b'c' && current.is_none() {
-            // A comment runs to the end of the line.
-            while pos < bytes.len() && bytes[pos] != b'\n' {
-                pos += 1;
-            }
             continue;
         }
         let start = pos;
-        while pos < bytes.len() && !bytes[pos].is_ascii_whitespace() {
-            pos += 1;
-        }
-        let token = &bytes[start..pos];
-        if token == b"d" {
-            if current.is_some() {
-                return Err(InputError::at_byte(name, start as u64, "'d' inside a clause: expected a literal or 0"));
-            }
-            current = Some(DratStep { kind: StepKind::Delete, literals: Vec::new(), offset: start as u64 });
+        let until =
+            |pos: usize, stop: fn(&u8) -> bool| bytes[pos..].iter().position(stop).map_or(bytes.len(), |k| pos + k);
+        if bytes[pos] == b'c' && current.is_none() {
+            pos = until(pos, |&b| b == b'\n'); // a comment runs to the end of the line
             continue;
         }
-        let lit: i32 =
-            std::str::from_utf8(token).ok().and_then(|t| t.parse::<i32>().ok()).filter(|&l| l != i32::MIN).ok_or_else(
-                || {
-                    InputError::at_byte(
-                        name,
-                        start as u64,
-                        format!(
-                            "{:?} is not a literal: expected an integer within ±2147483647, or 'd'",
-                            String::from_utf8_lossy(token)
-                        ),
-                    )
-                },
-            )?;
-        let step =
-            current.get_or_insert_with(|| DratStep { kind: StepKind::Add, literals: Vec::new(), offset: start as u64 });
-        if lit == 0 {
-            steps.push(current.take().expect("a step is open"));
-        } else {
-            step.literals.push(lit);
+        pos = until(pos, u8::is_ascii_whitespace);
+        let (token, at) = (&bytes[start..pos], start as u64);
+        let new_step = |kind| DratStep { kind, literals: Vec::new(), offset: at };
+        if token == b"d" {
+            if current.is_some() {
+                return Err(InputError::at_byte(name, at, "'d' inside a clause: expected a literal or 0"));
+            }
+            current = Some(new_step(StepKind::Delete));
+            continue;
+        }
+        let lit = std::str::from_utf8(token).ok().and_then(|t| t.parse::<i32>().ok()).filter(|&l| l != i32::MIN);
+        let Some(lit) = lit else {
+            let why = format!(
+                "{:?} is not a literal: expected an integer within ±2147483647, or 'd'",
+                String::from_utf8_lossy(token)
+            );
+            return Err(InputError::at_byte(name, at, why));
+        };
+        match current.get_or_insert_with(|| new_step(StepKind::Add)) {
+            _ if lit == 0 => steps.extend(current.take()),
+            step => step.literals.push(lit),
         }
     }
-    if let Some(step) = current {
-        return Err(InputError::at_byte(name, step.offset, "the last step is not ended by 0 (truncated proof?)"));
+    match current {
+        Some(step) => Err(InputError::at_byte(name, step.offset, "the last step is not ended by 0 (truncated proof?)")),
+        None => Ok(steps),
     }
-    Ok(steps)
 }
 
 fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
-    let mut steps = Vec::new();
-    let mut pos = 0usize;
+    let (mut steps, mut pos) = (Vec::new(), 0usize);
     while pos < bytes.len() {
-        let start = pos;
+        let start = pos as u64;
         let kind = match bytes[pos] {
             b'a' => StepKind::Add,
             b'd' => StepKind::Delete,
             other => {
-                return Err(InputError::at_byte(
-                    name,
-                    pos as u64,
-                    format!("byte 0x{other:02x}: expected a binary DRAT step ('a' or 'd')"),
-                ))
+                let why = format!("byte 0x{other:02x}: expected a binary DRAT step ('a' or 'd')");
+                return Err(InputError::at_byte(name, start, why));
             }
         };
         pos += 1;
         let mut literals = Vec::new();
         loop {
-            let lit_start = pos;
-            let mut value: u64 = 0;
-            let mut shift = 0;
+            let (lit_start, mut value, mut shift) = (pos as u64, 0u64, 0);
             loop {
                 let Some(&byte) = bytes.get(pos) else {
-                    return Err(InputError::at_byte(name, start as u64, "the last step is cut off (truncated proof?)"));
+                    return Err(InputError::at_byte(name, start, "the last step is cut off (truncated proof?)"));
                 };
-                pos += 1;
                 if shift > 28 {
-                    return Err(InputError::at_byte(name, lit_start as u64, "literal too large for 32 bits"));
+                    return Err(InputError::at_byte(name, lit_start, "literal too large for 32 bits"));
                 }
+                pos += 1;
                 value |= ((byte & 0x7f) as u64) << shift;
                 shift += 7;
                 if byte & 0x80 == 0 {
@@ -137,16 +118,12 @@ fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
             }
             let magnitude = value >> 1;
             if magnitude == 0 || magnitude > i32::MAX as u64 {
-                return Err(InputError::at_byte(
-                    name,
-                    lit_start as u64,
-                    format!("encoded literal {value} is not a valid literal"),
-                ));
+                let why = format!("encoded literal {value} is not a valid literal");
+                return Err(InputError::at_byte(name, lit_start, why));
             }
-            let lit = magnitude as i32;
-            literals.push(if value & 1 == 1 { -lit } else { lit });
+            literals.push(if value & 1 == 1 { -(magnitude as i32) } else { magnitude as i32 });
         }
-        steps.push(DratStep { kind, literals, offset: start as u64 });
+        steps.push(DratStep { kind, literals, offset: start });
     }
     Ok(steps)
 }
