@@ -155,7 +155,7 @@ pub struct LratReport {
     pub deletions: usize,
 }
 
-/// Assignment with a trail for cheap resets.
+/// An assignment (1 true, -1 false, 0 open per variable) with a trail for cheap resets.
 struct Assignment {
     value: Vec<i8>,
     trail: Vec<usize>,
@@ -163,58 +163,49 @@ struct Assignment {
 
 impl Assignment {
     fn value(&self, lit: i32) -> i8 {
-        let v = self.value[lit.unsigned_abs() as usize];
-        if lit > 0 {
-            v
-        } else {
-            -v
-        }
+        self.value[lit.unsigned_abs() as usize] * lit.signum() as i8
     }
+
     fn set_true(&mut self, lit: i32) {
-        let var = lit.unsigned_abs() as usize;
-        self.value[var] = if lit > 0 { 1 } else { -1 };
-        self.trail.push(var);
+        self.value[lit.unsigned_abs() as usize] = lit.signum() as i8;
+        self.trail.push(lit.unsigned_abs() as usize);
     }
+
     fn undo_to(&mut self, length: usize) {
-        for var in self.trail.drain(length..) {
-            self.value[var] = 0;
-        }
+        self.trail.drain(length..).for_each(|var| self.value[var] = 0);
     }
-}
 
-enum HintResult {
-    Conflict,
-    Open,
-}
-
-/// Applies positive hints in order; a hint must be unit or falsified.
-fn replay(
-    db: &HashMap<u64, Vec<i32>>,
-    assignment: &mut Assignment,
-    hints: &[i64],
-    line: usize,
-) -> Result<HintResult, String> {
-    for &hint in hints {
-        let clause = db.get(&(hint as u64)).ok_or_else(|| format!("line {line}: hint {hint} names no live clause"))?;
-        let mut unassigned = None;
-        let mut open = 0;
-        for &l in clause {
-            match assignment.value(l) {
-                1 => return Err(format!("line {line}: hint {hint} is already satisfied, not unit")),
-                0 if unassigned != Some(l) => {
-                    open += 1;
-                    unassigned = Some(l);
-                }
+    /// Makes every literal false; true if one is already true (a tautology).
+    fn falsify(&mut self, lits: impl Iterator<Item = i32>) -> bool {
+        let mut satisfied = false;
+        for l in lits {
+            match self.value(l) {
+                1 => satisfied = true,
+                0 => self.set_true(-l),
                 _ => {}
             }
         }
-        match (open, unassigned) {
-            (0, _) => return Ok(HintResult::Conflict),
-            (1, Some(l)) => assignment.set_true(l),
-            _ => return Err(format!("line {line}: hint {hint} is not unit ({open} literals open)")),
+        satisfied
+    }
+}
+
+/// Applies positive hints in order, each unit (its literal is then set) or
+/// falsified (a conflict: returns true).
+fn replay(db: &HashMap<u64, Vec<i32>>, a: &mut Assignment, hints: &[i64], line: usize) -> Result<bool, String> {
+    for &hint in hints {
+        let clause = db.get(&(hint as u64)).ok_or_else(|| format!("line {line}: hint {hint} names no live clause"))?;
+        if clause.iter().any(|&l| a.value(l) == 1) {
+            return Err(format!("line {line}: hint {hint} is already satisfied, not unit"));
+        }
+        let mut open: Vec<i32> = clause.iter().copied().filter(|&l| a.value(l) == 0).collect();
+        open.dedup();
+        match open.as_slice() {
+            [] => return Ok(true),
+            [l] => a.set_true(*l),
+            _ => return Err(format!("line {line}: hint {hint} is not unit ({} literals open)", open.len())),
         }
     }
-    Ok(HintResult::Open)
+    Ok(false)
 }
 
 /// Checks an LRAT refutation of `cnf` by forward replay.
@@ -225,81 +216,59 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
             lemma.literals.iter().for_each(|&l| vars.add(l));
         }
     }
-    let mut db: HashMap<u64, Vec<i32>> = HashMap::new();
-    for (i, c) in cnf.clauses.iter().enumerate() {
-        if c.is_empty() {
-            return Ok(LratReport::default());
-        }
-        db.insert(i as u64 + 1, c.clone());
+    if cnf.clauses.iter().any(Vec::is_empty) {
+        return Ok(LratReport::default());
     }
+    let mut db: HashMap<u64, Vec<i32>> = (1..).zip(cnf.clauses.iter().cloned()).collect();
     let mut last_id = cnf.clauses.len() as u64;
-    let mut assignment = Assignment { value: vec![0; vars.max_var() + 1], trail: Vec::new() };
+    let mut a = Assignment { value: vec![0; vars.max_var() + 1], trail: Vec::new() };
     let mut report = LratReport::default();
-    for entry in lines {
-        let line = entry.line;
-        match &entry.step {
+    for LratLine { step, line } in lines {
+        let lemma = match step {
             LratStep::Delete { clauses, .. } => {
                 for id in clauses {
-                    if db.remove(id).is_none() {
-                        return Err(format!("line {line}: deletes clause {id}, which is not live"));
-                    }
+                    db.remove(id).ok_or_else(|| format!("line {line}: deletes clause {id}, which is not live"))?;
                     report.deletions += 1;
                 }
+                continue;
             }
-            LratStep::Add(lemma) => {
-                if lemma.id <= last_id {
-                    return Err(format!("line {line}: clause id {} is not above the previous id {last_id}", lemma.id));
-                }
-                last_id = lemma.id;
-                report.lemmas += 1;
-                let literals: Vec<i32> = lemma.literals.iter().map(|&l| vars.dense(l)).collect();
-                assignment.undo_to(0);
-                let mut tautology = false;
-                for &l in &literals {
-                    match assignment.value(l) {
-                        1 => tautology = true,
-                        0 => assignment.set_true(-l),
-                        _ => {}
-                    }
-                }
-                let first_rat = lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
-                let verified = tautology
-                    || match replay(&db, &mut assignment, &lemma.hints[..first_rat], line)? {
-                        HintResult::Conflict => true,
-                        HintResult::Open => {
-                            if first_rat == lemma.hints.len() {
-                                return Err(format!(
-                                    "line {line}: the hints of clause {} end without a conflict",
-                                    lemma.id
-                                ));
-                            }
-                            report.rat_lemmas += 1;
-                            check_rat_groups(&db, &mut assignment, &literals, &lemma.hints[first_rat..], line)?;
-                            true
-                        }
-                    };
-                debug_assert!(verified);
-                db.insert(lemma.id, literals);
-                if lemma.literals.is_empty() {
-                    return Ok(report);
-                }
+            LratStep::Add(lemma) => lemma,
+        };
+        if lemma.id <= last_id {
+            return Err(format!("line {line}: clause id {} is not above the previous id {last_id}", lemma.id));
+        }
+        (last_id, report.lemmas) = (lemma.id, report.lemmas + 1);
+        let literals: Vec<i32> = lemma.literals.iter().map(|&l| vars.dense(l)).collect();
+        a.undo_to(0);
+        let tautology = a.falsify(literals.iter().copied());
+        let first_rat = lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
+        if !tautology && !replay(&db, &mut a, &lemma.hints[..first_rat], *line)? {
+            if first_rat == lemma.hints.len() {
+                return Err(format!("line {line}: the hints of clause {} end without a conflict", lemma.id));
             }
+            report.rat_lemmas += 1;
+            check_rat_groups(&db, &mut a, &literals, &lemma.hints[first_rat..], *line)?;
+        }
+        db.insert(lemma.id, literals);
+        if lemma.literals.is_empty() {
+            return Ok(report);
         }
     }
     Err("the proof ends without adding the empty clause".to_string())
 }
 
+/// The RAT case on the lemma's first literal p: each group `-d h1 … hm` names a
+/// candidate d containing ¬p whose resolvent the hints refute; every clause
+/// containing ¬p must have its group.
 fn check_rat_groups(
     db: &HashMap<u64, Vec<i32>>,
-    assignment: &mut Assignment,
+    a: &mut Assignment,
     literals: &[i32],
     groups: &[i64],
     line: usize,
 ) -> Result<(), String> {
     let pivot = *literals.first().ok_or_else(|| format!("line {line}: the empty clause cannot be RAT"))?;
-    let base = assignment.trail.len();
-    let mut covered: Vec<u64> = Vec::new();
-    let mut k = 0;
+    let (base, mut covered, mut k) = (a.trail.len(), Vec::new(), 0);
     while k < groups.len() {
         let candidate = (-groups[k]) as u64;
         let end = groups[k + 1..].iter().position(|&h| h < 0).map_or(groups.len(), |p| k + 1 + p);
@@ -308,32 +277,17 @@ fn check_rat_groups(
         if !clause.contains(&-pivot) {
             return Err(format!("line {line}: RAT candidate {candidate} does not contain {}", -pivot));
         }
-        assignment.undo_to(base);
-        let mut done = false;
-        for &l in clause.iter().filter(|&&l| l != -pivot) {
-            match assignment.value(l) {
-                1 => done = true,
-                0 => assignment.set_true(-l),
-                _ => {}
-            }
-        }
-        if !done {
-            match replay(db, assignment, &groups[k + 1..end], line)? {
-                HintResult::Conflict => {}
-                HintResult::Open => {
-                    return Err(format!("line {line}: the hints for RAT candidate {candidate} end without a conflict"))
-                }
-            }
+        a.undo_to(base);
+        if !a.falsify(clause.iter().copied().filter(|&l| l != -pivot)) && !replay(db, a, &groups[k + 1..end], line)? {
+            return Err(format!("line {line}: the hints for RAT candidate {candidate} end without a conflict"));
         }
         covered.push(candidate);
         k = end;
     }
-    for (&id, clause) in db {
-        if clause.contains(&-pivot) && !covered.contains(&id) {
-            return Err(format!("line {line}: RAT candidate {id} (contains {}) has no hints", -pivot));
-        }
+    match db.iter().find(|(id, clause)| clause.contains(&-pivot) && !covered.contains(id)) {
+        Some((id, _)) => Err(format!("line {line}: RAT candidate {id} (contains {}) has no hints", -pivot)),
+        None => Ok(()),
     }
-    Ok(())
 }
 
 #[cfg(test)]
