@@ -133,13 +133,8 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
         let colour = index + 1;
         let complete = match graph {
             ClaimGraph::Clique(k) => sequences(n, *k, true, &mut Vec::new(), &mut |s| {
-                let mut clause = Vec::new();
-                for (p, &a) in s.iter().enumerate() {
-                    for &b in &s[p + 1..] {
-                        clause.push(-lit(r, a, b, colour));
-                    }
-                }
-                clauses.push(clause);
+                let pairs = s.iter().enumerate().flat_map(|(p, &a)| s[p + 1..].iter().map(move |&b| (a, b)));
+                clauses.push(pairs.map(|(a, b)| -lit(r, a, b, colour)).collect());
                 clauses.len() <= max_clauses
             }),
             ClaimGraph::Graph { vertices, edges, .. } => {
@@ -173,15 +168,10 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
             if has("lex-leader") && class[0] == 1 && r > 2 {
                 class.remove(0);
             }
-            if class.len() < 2 {
-                continue;
-            }
-            if r == 2 {
-                clauses.push(vec![lit(r, 0, n - 1, class[0])]);
-            } else {
-                for &d in &class[1..] {
-                    clauses.push(vec![-lit(r, 0, n - 1, d)]);
-                }
+            match class.as_slice() {
+                [_] | [] => {}
+                [first, ..] if r == 2 => clauses.push(vec![lit(r, 0, n - 1, *first)]),
+                [_, rest @ ..] => clauses.extend(rest.iter().map(|&d| vec![-lit(r, 0, n - 1, d)])),
             }
         }
     }
@@ -209,32 +199,24 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
 
     let mut used_premises = Vec::new();
     if has("degree-bounds") {
-        let cliques: Vec<usize> = statement
-            .forbidden
-            .iter()
-            .map(|g| match g {
-                ClaimGraph::Clique(k) => Ok(*k),
-                ClaimGraph::Graph { token, .. } => {
-                    Err(format!("degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"))
-                }
-            })
-            .collect::<Result<_, _>>()?;
+        let cliques = statement.forbidden.iter().map(|g| match g {
+            ClaimGraph::Clique(k) => Ok(*k),
+            ClaimGraph::Graph { token, .. } => {
+                Err(format!("degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"))
+            }
+        });
+        let cliques: Vec<usize> = cliques.collect::<Result<_, _>>()?;
         for colour in 1..=r {
             let mut smaller: Vec<usize> = cliques.clone();
             smaller[colour - 1] -= 1;
             let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises) else {
                 continue;
             };
-            let Some(k) = bound.checked_sub(1) else {
+            let Some(k) = bound.checked_sub(1).filter(|&k| k < n - 1) else {
                 continue;
             };
-            if k >= n - 1 {
-                continue;
-            }
-            if let Some(p) = premise {
-                if !used_premises.contains(&p) {
-                    used_premises.push(p);
-                }
+            if let Some(p) = premise.filter(|p| !used_premises.contains(p)) {
+                used_premises.push(p);
             }
             for v in 0..n {
                 let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
@@ -273,14 +255,8 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
 
 /// Clauses as a sorted multiset of sorted clauses (order and literal order free).
 pub fn normalized(clauses: &[Vec<i32>]) -> Vec<Vec<i32>> {
-    let mut out: Vec<Vec<i32>> = clauses
-        .iter()
-        .map(|c| {
-            let mut c = c.clone();
-            c.sort_unstable();
-            c
-        })
-        .collect();
+    let mut out: Vec<Vec<i32>> = clauses.to_vec();
+    out.iter_mut().for_each(|c| c.sort_unstable());
     out.sort_unstable();
     out
 }
