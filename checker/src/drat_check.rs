@@ -62,17 +62,13 @@ const OTHER: usize = 1;
 
 type Lit = u32;
 
+/// Literal codes: 2v for v, 2v + 1 for ¬v (so negation is `^ 1`).
 fn code(lit: i32) -> Lit {
     (lit.unsigned_abs() << 1) | (lit < 0) as u32
 }
 
 fn dimacs(lit: Lit) -> i32 {
-    let var = (lit >> 1) as i32;
-    if lit & 1 == 1 {
-        -var
-    } else {
-        var
-    }
+    (lit >> 1) as i32 * if lit & 1 == 1 { -1 } else { 1 }
 }
 
 struct Clause {
@@ -90,7 +86,6 @@ struct Clause {
 enum Record {
     Add(u32),
     Delete(u32),
-    Skip,
 }
 
 /// Outcome of propagating the negation of a clause.
@@ -128,10 +123,6 @@ impl Checker {
             trail: Vec::new(),
             pending_core: Vec::new(),
         }
-    }
-
-    fn is_false(&self, lit: Lit) -> bool {
-        self.is_true[(lit ^ 1) as usize]
     }
 
     fn add_clause(&mut self, literals: &[i32], pivot: Option<i32>) -> u32 {
@@ -348,7 +339,7 @@ impl Checker {
             if self.is_true[lit as usize] {
                 continue;
             }
-            if self.is_false(lit) {
+            if self.is_true[(lit ^ 1) as usize] {
                 return Rup::Conflict(self.analyze(id));
             }
             self.assign(lit, id);
@@ -434,14 +425,10 @@ pub fn check_drat(
                     Some(ids.remove(at))
                 });
                 match found {
-                    None => {
-                        report.deletions_of_absent_clauses += 1;
-                        records.push((Record::Skip, index));
-                    }
+                    None => report.deletions_of_absent_clauses += 1,
                     Some(id) if checker.clauses[id as usize].lits.len() == 1 => {
                         report.ignored_unit_deletions += 1;
                         by_content.entry(k).or_default().push(id);
-                        records.push((Record::Skip, index));
                     }
                     Some(id) => {
                         checker.clauses[id as usize].active = false;
@@ -451,22 +438,17 @@ pub fn check_drat(
             }
         }
     }
-    let final_id = match empty_lemma {
-        Some(id) => id,
-        None => {
-            report.implicit_empty_clause = true;
-            let id = checker.add_clause(&[], None);
-            records.push((Record::Add(id), usize::MAX));
-            id
-        }
-    };
+    let final_id = empty_lemma.unwrap_or_else(|| {
+        report.implicit_empty_clause = true;
+        records.push((Record::Add(checker.clauses.len() as u32), usize::MAX));
+        checker.add_clause(&[], None)
+    });
     checker.mark_core(final_id);
 
     // Backward pass.
     let mut justified: Vec<(u32, Justification)> = Vec::new();
     for (record, index) in records.iter().rev() {
         match *record {
-            Record::Skip => {}
             Record::Delete(id) => checker.activate(id),
             Record::Add(id) => {
                 checker.clauses[id as usize].active = false;
