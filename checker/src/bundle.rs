@@ -95,16 +95,12 @@ pub(crate) fn check_nested(
         passed: Vec::new(),
         failure: None,
     };
-    let used = match check_own_proof(&root, &manifest, &statement, &mut verdict) {
-        Ok(used) => used,
-        Err(why) => {
-            verdict.failure = Some(why);
-            return Ok(verdict);
-        }
-    };
-    chain.push(root.clone());
-    let premises = certify_premises(&root, premise_dirs, &manifest, &used, chain);
-    chain.pop();
+    let premises = check_own_proof(&root, &manifest, &statement, &mut verdict).and_then(|used| {
+        chain.push(root.clone());
+        let premises = certify_premises(&root, premise_dirs, &manifest, &used, chain);
+        chain.pop();
+        premises
+    });
     match premises {
         Ok(statuses) => verdict.premises = statuses,
         Err(why) => verdict.failure = Some(why),

@@ -34,24 +34,14 @@ impl DenseVars {
     /// The dense literal of a registered literal.
     pub fn dense(&self, lit: i32) -> i32 {
         let var = lit.unsigned_abs();
-        let mapped = if var <= self.formula_max { var } else { self.extra[&var] } as i32;
-        if lit < 0 {
-            -mapped
-        } else {
-            mapped
-        }
+        (if var <= self.formula_max { var } else { self.extra[&var] }) as i32 * lit.signum()
     }
 
     /// The literal as the proof wrote it.
     pub fn original(&self, dense: i32) -> i32 {
         let var = dense.unsigned_abs();
-        let back =
-            if var <= self.formula_max { var } else { self.original[(var - self.formula_max - 1) as usize] } as i32;
-        if dense < 0 {
-            -back
-        } else {
-            back
-        }
+        let back = if var <= self.formula_max { var } else { self.original[(var - self.formula_max - 1) as usize] };
+        back as i32 * dense.signum()
     }
 
     /// The largest dense variable.

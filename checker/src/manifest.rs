@@ -98,8 +98,7 @@ pub fn read_manifest(dir: &Path) -> Result<Manifest, InputError> {
             format!("bundle_format is {:?}, expected {BUNDLE_FORMAT:?}", tag.bundle_format),
         ));
     }
-    let manifest: Manifest = serde_json::from_slice(&text).map_err(not_manifest)?;
-    Ok(manifest)
+    serde_json::from_slice(&text).map_err(not_manifest)
 }
 
 impl Manifest {

@@ -47,7 +47,8 @@ fn candidates(root: &Path, premise_dirs: &[PathBuf]) -> Result<Vec<(PathBuf, Str
     Ok(found)
 }
 
-fn sorted(mut sizes: Vec<usize>) -> Vec<usize> {
+fn sorted(sizes: &[usize]) -> Vec<usize> {
+    let mut sizes = sizes.to_vec();
     sizes.sort_unstable();
     sizes
 }
@@ -75,29 +76,18 @@ pub fn certify_premises(
         }
         passing.push((path, verdict));
     }
-    let statuses = used
-        .iter()
-        .map(|premise| {
-            let sizes: Vec<String> = premise.cliques.iter().map(|k| k.to_string()).collect();
-            let certified_by = passing
-                .iter()
-                .find(|(_, v)| {
-                    v.unconditional()
-                        && sorted(v.clique_sizes.clone()) == sorted(premise.cliques.clone())
-                        && v.order <= premise.bound
-                })
-                .map(|(path, _)| path.clone());
-            PremiseStatus {
-                statement: format!("R({}) <= {}", sizes.join(","), premise.bound),
-                certified_by,
-                source: manifest
-                    .premises
-                    .iter()
-                    .find(|p| p.clique_sizes == premise.cliques && p.upper_bound == premise.bound)
-                    .map(|p| p.source.clone())
-                    .unwrap_or_default(),
-            }
-        })
-        .collect();
-    Ok(statuses)
+    let status = |premise: &PremiseBound| {
+        let sizes: Vec<String> = premise.cliques.iter().map(|k| k.to_string()).collect();
+        let certifies = |v: &BundleVerdict| {
+            v.unconditional() && sorted(&v.clique_sizes) == sorted(&premise.cliques) && v.order <= premise.bound
+        };
+        let recorded =
+            manifest.premises.iter().find(|p| p.clique_sizes == premise.cliques && p.upper_bound == premise.bound);
+        PremiseStatus {
+            statement: format!("R({}) <= {}", sizes.join(","), premise.bound),
+            certified_by: passing.iter().find(|(_, v)| certifies(v)).map(|(path, _)| path.clone()),
+            source: recorded.map(|p| p.source.clone()).unwrap_or_default(),
+        }
+    };
+    Ok(used.iter().map(status).collect())
 }

@@ -30,12 +30,10 @@ impl fmt::Display for Verdict {
         match self {
             Verdict::Valid => f.write_str("valid"),
             Verdict::Monochromatic { colour, graph, vertices, edges } => {
-                let list: Vec<String> = vertices.iter().map(|v| v.to_string()).collect();
                 let edges: Vec<String> = edges.iter().map(|(a, b)| format!("{a}-{b}")).collect();
                 write!(
                     f,
-                    "colour {colour} has a monochromatic {graph} on vertices {{{}}}, edges {}",
-                    list.join(", "),
+                    "colour {colour} has a monochromatic {graph} on vertices {vertices:?}, edges {}",
                     edges.join(" ")
                 )
             }
@@ -64,10 +62,7 @@ pub fn check_colouring(matrix: &ColourMatrix, claim: &Claim) -> Verdict {
                 .iter()
                 .map(|&(a, b)| (vertices[a].min(vertices[b]), vertices[a].max(vertices[b])))
                 .collect();
-            let graph = match graph {
-                ClaimGraph::Clique(k) => format!("K{k}"),
-                ClaimGraph::Graph { token, .. } => token.clone(),
-            };
+            let graph = if let ClaimGraph::Graph { token, .. } = graph { token.clone() } else { format!("K{graph}") };
             return Verdict::Monochromatic { colour, graph, vertices, edges };
         }
     }

@@ -47,7 +47,7 @@ fn monochromatic_triangle_exits_1_and_names_it() {
     let path = s.file("bad.colouring", bad.as_bytes());
     let o = check(&["colouring", path.to_str().unwrap()]);
     assert_eq!(o.status.code(), Some(1), "{}", text(&o.stderr));
-    assert!(text(&o.stdout).contains("colour 1 has a monochromatic K3 on vertices {0, 1, 2}"), "{}", text(&o.stdout));
+    assert!(text(&o.stdout).contains("colour 1 has a monochromatic K3 on vertices [0, 1, 2]"), "{}", text(&o.stdout));
 }
 
 #[test]
