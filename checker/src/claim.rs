@@ -59,10 +59,6 @@ pub struct Claim {
     pub forbidden: Vec<ClaimGraph>,
 }
 
-fn entry_error(index: usize, token: &str, why: &str) -> String {
-    format!("entry {} is {:?}: {why}", index + 1, token)
-}
-
 fn whole(text: &str) -> Option<usize> {
     (!text.is_empty() && text.bytes().all(|b| b.is_ascii_digit())).then(|| text.parse().ok()).flatten()
 }
@@ -90,7 +86,7 @@ fn graph_entry(token: String, vertices: usize, pairs: &[(usize, usize)]) -> Resu
 
 /// Reads one entry.
 fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
-    let bad = |why: &str| entry_error(index, token, why);
+    let bad = |why: &str| format!("entry {} is {token:?}: {why}", index + 1);
     if let Some(k) = whole(token) {
         if k < 2 {
             return Err(bad("a forbidden graph needs at least 2 vertices"));
@@ -105,11 +101,9 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
         return graph_entry(token.to_string(), n, &edges).map_err(|e| bad(&e));
     }
     if let Some(list) = token.strip_prefix("E:") {
-        let mut pairs = Vec::new();
-        for pair in list.split('/') {
-            let parsed = pair.split_once('-').and_then(|(a, b)| Some((whole(a)?, whole(b)?)));
-            pairs.push(parsed.ok_or_else(|| bad("expected edges a-b separated by /"))?);
-        }
+        let pair = |p: &str| p.split_once('-').and_then(|(a, b)| Some((whole(a)?, whole(b)?)));
+        let pairs: Vec<(usize, usize)> =
+            list.split('/').map(pair).collect::<Option<_>>().ok_or_else(|| bad("expected edges a-b separated by /"))?;
         let n = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
         let canonical: BTreeSet<(usize, usize)> = pairs.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
         let text: Vec<String> = canonical.iter().map(|(a, b)| format!("{a}-{b}")).collect();
@@ -119,12 +113,7 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
     let mut chars = upper.chars();
     let letter = chars.next().ok_or_else(|| bad("empty entry"))?;
     let rest = chars.as_str();
-    let need = |k: Option<usize>, min: usize, what: &str| -> Result<usize, String> {
-        match k {
-            Some(k) if k >= min => Ok(k),
-            _ => Err(bad(what)),
-        }
-    };
+    let need = |k: Option<usize>, min: usize, what: &str| k.filter(|&k| k >= min).ok_or_else(|| bad(what));
     let (token, n, pairs): (String, usize, Vec<(usize, usize)>) = match letter {
         'K' if rest.ends_with("-E") => {
             let k = need(whole(&rest[..rest.len() - 2]), 3, "K_k - e needs k >= 3")?;
@@ -199,13 +188,7 @@ impl Claim {
 
     /// The clique sizes, when every colour forbids a clique.
     pub fn clique_sizes(&self) -> Option<Vec<usize>> {
-        self.forbidden
-            .iter()
-            .map(|g| match g {
-                ClaimGraph::Clique(k) => Some(*k),
-                ClaimGraph::Graph { .. } => None,
-            })
-            .collect()
+        self.forbidden.iter().map(|g| if let ClaimGraph::Clique(k) = g { Some(*k) } else { None }).collect()
     }
 }
 
