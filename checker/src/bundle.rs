@@ -125,9 +125,9 @@ pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
 }
 
 fn sha256_of(path: &Path) -> Result<String, String> {
-    let mut file = std::fs::File::open(path).map_err(|e| format!("{}: {e}", path.display()))?;
     let mut hasher = Sha256::new();
-    std::io::copy(&mut file, &mut hasher).map_err(|e| format!("{}: {e}", path.display()))?;
+    std::io::copy(&mut std::fs::File::open(path).map_err(|e| e.to_string())?, &mut hasher)
+        .map_err(|e| e.to_string())?;
     Ok(hasher.finalize().iter().map(|b| format!("{b:02x}")).collect())
 }
 
@@ -169,20 +169,14 @@ fn check_own_proof(
         .and_then(|b| parse_cnf(&formula_name, &b))
         .map_err(|e| format!("the formula cannot be read: {e}"))?;
     let regenerated = regenerate(statement, cnf.clauses.len())?;
-    if cnf.variables != regenerated.variables || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
-        return Err(format!(
-            "the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{}] ({} variables, {} clauses)",
-            cnf.variables,
-            cnf.clauses.len(),
-            statement.symmetry.join(","),
-            regenerated.variables,
-            regenerated.clauses.len()
-        ));
+    let (ours, theirs) = ((cnf.variables, cnf.clauses.len()), (regenerated.variables, regenerated.clauses.len()));
+    if ours != theirs || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
+        let schemes = statement.symmetry.join(",");
+        return Err(format!("the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{schemes}] ({} variables, {} clauses)", ours.0, ours.1, theirs.0, theirs.1));
     }
     verdict.passed.push(format!(
         "formula regenerated independently: {} variables, {} clauses, identical as a set",
-        cnf.variables,
-        cnf.clauses.len()
+        ours.0, ours.1
     ));
 
     if let Some(sharding) = &manifest.sharding {
@@ -201,17 +195,13 @@ pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String
     let name = path.display().to_string();
     let steps =
         read_input(path).and_then(|b| parse_drat(&name, &b)).map_err(|e| format!("the proof cannot be read: {e}"))?;
-    let mut with_cube;
-    let formula = if cube.is_empty() {
-        cnf
-    } else {
-        with_cube = cnf.clone();
-        with_cube.clauses.extend(cube.iter().map(|&l| vec![l]));
-        &with_cube
-    };
-    let (report, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
+    let units: Vec<Vec<i32>> = cube.iter().map(|&l| vec![l]).collect();
+    let with_cube =
+        (!cube.is_empty()).then(|| Cnf { variables: cnf.variables, clauses: [&cnf.clauses[..], &units].concat() });
+    let formula = with_cube.as_ref().unwrap_or(cnf);
+    let (r, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
     Ok(format!(
         "{} lemmas, {} checked, core of {} original clauses",
-        report.lemmas, report.checked_lemmas, report.core_original_clauses
+        r.lemmas, r.checked_lemmas, r.core_original_clauses
     ))
 }

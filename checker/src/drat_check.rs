@@ -111,18 +111,11 @@ struct Checker {
 
 impl Checker {
     fn new(max_var: usize) -> Self {
-        let lits = 2 * (max_var + 1);
-        Checker {
-            clauses: Vec::new(),
-            watches: [vec![Vec::new(); lits], vec![Vec::new(); lits]],
-            units: Vec::new(),
-            is_true: vec![false; lits],
-            reason: vec![NO_REASON; max_var + 1],
-            trail_position: vec![0; max_var + 1],
-            seen: vec![false; max_var + 1],
-            trail: Vec::new(),
-            pending_core: Vec::new(),
-        }
+        let (lits, vars) = (2 * (max_var + 1), max_var + 1);
+        let (reason, trail_position, seen) = (vec![NO_REASON; vars], vec![0; vars], vec![false; vars]);
+        let (clauses, units, trail, pending_core) = (Vec::new(), Vec::new(), Vec::new(), Vec::new());
+        let (watches, is_true) = ([vec![Vec::new(); lits], vec![Vec::new(); lits]], vec![false; lits]);
+        Checker { clauses, watches, units, is_true, reason, trail_position, seen, trail, pending_core }
     }
 
     fn add_clause(&mut self, literals: &[i32], pivot: Option<i32>) -> u32 {

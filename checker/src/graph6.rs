@@ -31,18 +31,15 @@ pub fn decode_graph6(name: &str, offset: u64, bytes: &[u8]) -> Result<ColourMatr
     if order as usize > MAX_ORDER {
         return Err(at(0, format!("order {order} is above the limit of {MAX_ORDER}")));
     }
-    let order = order as usize;
-    let pairs = order * order.saturating_sub(1) / 2;
-    let body = &bytes[header_len..];
-    let expected = pairs.div_ceil(6);
+    let (order, body) = (order as usize, &bytes[header_len..]);
+    let expected = (order * order.saturating_sub(1) / 2).div_ceil(6);
     if body.len() != expected {
         return Err(at(
             header_len,
             format!("order {order} needs {expected} bytes after the order, found {}", body.len()),
         ));
     }
-    let mut matrix = ColourMatrix::filled(order, 2);
-    let mut bit = 0usize;
+    let (mut matrix, mut bit) = (ColourMatrix::filled(order, 2), 0usize);
     for j in 1..order {
         for i in 0..j {
             if (body[bit / 6] - 63) >> (5 - bit % 6) & 1 == 1 {
@@ -67,12 +64,9 @@ pub fn decode_graph6_file(name: &str, content: &[u8]) -> Result<Vec<ColourMatrix
     let mut graphs = Vec::new();
     let mut offset = 0u64;
     for raw_line in content.split_inclusive(|&b| b == b'\n') {
-        let mut line = raw_line.strip_suffix(b"\n").unwrap_or(raw_line);
-        line = line.strip_suffix(b"\r").unwrap_or(line);
-        let mut start = 0;
-        if graphs.is_empty() && line.starts_with(b">>graph6<<") {
-            start = 10;
-        }
+        let line = raw_line.strip_suffix(b"\n").unwrap_or(raw_line);
+        let line = line.strip_suffix(b"\r").unwrap_or(line);
+        let start = if graphs.is_empty() && line.starts_with(b">>graph6<<") { 10 } else { 0 };
         if line.len() > start {
             graphs.push(decode_graph6(name, offset + start as u64, &line[start..])?);
         }

@@ -79,30 +79,20 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
         .map_err(|e| InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected LRAT"))?;
     let mut out = Vec::new();
     for (index, raw) in text.lines().enumerate() {
-        let line = index + 1;
-        let trimmed = raw.trim();
+        let (line, trimmed) = (index + 1, raw.trim());
         if trimmed.is_empty() || trimmed.starts_with('c') {
             continue;
         }
         let err = |m: String| InputError::at_line(name, line, m);
         let mut tokens = trimmed.split_whitespace();
-        let id: u64 = tokens
-            .next()
-            .and_then(|t| t.parse().ok())
-            .filter(|&id| id > 0)
-            .ok_or_else(|| err("expected a positive clause id at the start of the line".into()))?;
+        let id = tokens.next().and_then(|t| t.parse::<u64>().ok()).filter(|&id| id > 0);
+        let id = id.ok_or_else(|| err("expected a positive clause id at the start of the line".into()))?;
         let rest: Vec<&str> = tokens.collect();
-        let numbers = |tokens: &[&str]| -> Result<Vec<i64>, InputError> {
-            tokens
-                .iter()
-                .map(|t| {
-                    t.parse::<i64>()
-                        .ok()
-                        .filter(|&v| v != i64::MIN)
-                        .ok_or_else(|| err(format!("{t:?} is not an integer within ±(2^63−1)")))
-                })
-                .collect()
+        let number = |t: &&str| {
+            let value = t.parse::<i64>().ok().filter(|&v| v != i64::MIN);
+            value.ok_or_else(|| err(format!("{t:?} is not an integer within ±(2^63−1)")))
         };
+        let numbers = |tokens: &[&str]| tokens.iter().map(number).collect::<Result<Vec<i64>, InputError>>();
         if rest.first() == Some(&"d") {
             let values = numbers(&rest[1..])?;
             match values.split_last() {
