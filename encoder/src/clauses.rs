@@ -123,6 +123,38 @@ impl CliqueEncoding {
         Some(total)
     }
 
+    /// Number of literals over all clauses the instance needs without symmetry
+    /// breaking (what a solver must hold), or `None` beyond 2^128.
+    pub fn count_literals(instance: &Instance) -> Option<u128> {
+        let n = instance.order() as u128;
+        let r = instance.colours() as u128;
+        let mut total: u128 = if r > 2 {
+            edge_count(instance.order()) as u128 * r
+        } else {
+            0
+        };
+        for graph in instance.spec().forbidden() {
+            let (copies_per_subset, edges) = match graph {
+                Forbidden::Clique(k) => (1, (k * (k - 1) / 2) as u128),
+                Forbidden::Graph(g) => (
+                    g.graph.labellings().len() as u128,
+                    g.graph.edges().len() as u128,
+                ),
+            };
+            let subsets = binomial(n, graph.vertex_count() as u128)?;
+            total =
+                total.checked_add(subsets.checked_mul(copies_per_subset)?.checked_mul(edges)?)?;
+        }
+        Some(total)
+    }
+
+    /// Literals over all clauses of this encoding, symmetry breaking included.
+    pub fn literal_count(&self) -> u128 {
+        let base = Self::count_literals(&self.instance).unwrap_or(u128::MAX);
+        let symmetry: usize = self.symmetry_clauses.clauses.iter().map(Vec::len).sum();
+        base.saturating_add(symmetry as u128)
+    }
+
     pub fn instance(&self) -> &Instance {
         &self.instance
     }
@@ -242,6 +274,36 @@ mod tests {
     fn encoding(sizes: &[usize], n: usize) -> CliqueEncoding {
         let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
         CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap()
+    }
+
+    #[test]
+    fn literal_count_equals_the_emitted_literals() {
+        // R(3,3) at 6: C(6,3) = 20 triangles per colour, 3 literals each: 120 (by hand).
+        assert_eq!(
+            CliqueEncoding::count_literals(&encoding(&[3, 3], 6).instance),
+            Some(120)
+        );
+        for (spec, n, symmetry) in [
+            ("3,3", 6, "none"),
+            ("4,5", 12, "colour-swap,lex-leader,degree-bounds"),
+            ("3,3,3", 8, "colour-swap,lex-leader"),
+            ("C4,K4", 7, "lex-leader"),
+            ("C5,P4", 8, "none"),
+        ] {
+            let instance = Instance::new(spec.parse().unwrap(), n).unwrap();
+            let set: SymmetrySet = symmetry.parse().unwrap();
+            let encoding =
+                CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+            let mut emitted = 0u128;
+            encoding
+                .for_each_clause::<()>(|c| Ok(emitted += c.len() as u128))
+                .unwrap();
+            assert_eq!(
+                encoding.literal_count(),
+                emitted,
+                "{spec} at {n} [{symmetry}]"
+            );
+        }
     }
 
     fn satisfies(clauses: &[Vec<i32>], values: &[bool]) -> bool {

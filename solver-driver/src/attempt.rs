@@ -10,7 +10,7 @@
 //! budgets are enforced, see [`crate::interrupt`]) usable.
 
 use std::io::{self, Write};
-use std::sync::atomic::{AtomicBool, AtomicU64};
+use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 use std::time::{Duration, Instant};
 
 use rand::seq::SliceRandom;
@@ -122,6 +122,9 @@ pub fn run_attempt<W: Write>(
     run_attempt_counted(formula, plan, stop, deadline, proof, text_proof, None)
 }
 
+/// How many clauses are loaded between two checks of the stop flag and deadline.
+const LOAD_CHECK_EVERY: usize = 1 << 16;
+
 /// [`run_attempt`], adding the proof bytes to `bytes_seen` as they are written.
 pub fn run_attempt_counted<W: Write>(
     formula: &Formula,
@@ -140,6 +143,22 @@ pub fn run_attempt_counted<W: Write>(
         budget_bytes: plan.budget_bytes,
         bytes_seen,
     };
+    // Loading a large formula takes seconds and varisat only notices the limits
+    // once it writes proof steps, so they are checked before and during loading.
+    let interrupted = || {
+        if stop.load(Ordering::Relaxed) {
+            Some(StopReason::Stopped)
+        } else {
+            deadline
+                .is_some_and(|d| Instant::now() >= d)
+                .then_some(StopReason::Deadline)
+        }
+    };
+    let stopped = |reason| AttemptReport {
+        outcome: AttemptOutcome::Stopped(reason),
+        proof_bytes: 0,
+        elapsed: started.elapsed(),
+    };
     let outcome = {
         let mut solver = Solver::new();
         let format = if text_proof {
@@ -157,11 +176,21 @@ pub fn run_attempt_counted<W: Write>(
             }
             solver.add_clause(&buffer);
         };
-        match &plan.clause_order {
-            Some(order) => order
-                .iter()
-                .for_each(|&i| add(&mut solver, formula.clause(i as usize))),
-            None => formula.clauses().for_each(|c| add(&mut solver, c)),
+        let count = plan
+            .clause_order
+            .as_ref()
+            .map_or(formula.clause_count(), Vec::len);
+        for k in 0..count {
+            if k % LOAD_CHECK_EVERY == 0 {
+                if let Some(reason) = interrupted() {
+                    return Ok(stopped(reason));
+                }
+            }
+            let index = plan
+                .clause_order
+                .as_ref()
+                .map_or(k, |order| order[k] as usize);
+            add(&mut solver, formula.clause(index));
         }
         for &unit in &plan.units {
             add(&mut solver, &[unit]);

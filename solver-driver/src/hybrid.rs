@@ -58,7 +58,7 @@ pub fn hybrid_search(
     tick: impl FnMut(Duration),
 ) -> Result<SearchReport, SearchError> {
     let order = formula.variables().order();
-    auto_search(spec, order, options, progress, tick, || Ok(formula))
+    auto_search(spec, order, options, progress, tick, || Ok(Some(formula)))
 }
 
 /// The hybrid search with the formula built only after the structured stage: at
@@ -70,7 +70,7 @@ pub fn auto_search<F: Borrow<Formula>>(
     options: &SearchOptions,
     progress: &SearchProgress,
     mut tick: impl FnMut(Duration),
-    build: impl FnOnce() -> Result<F, SearchError>,
+    build: impl FnOnce() -> Result<Option<F>, SearchError>,
 ) -> Result<SearchReport, SearchError> {
     let started = Instant::now();
     let report = |result| SearchReport {
@@ -90,10 +90,15 @@ pub fn auto_search<F: Borrow<Formula>>(
     if remaining == Some(Duration::ZERO) {
         return Ok(report(SearchResult::Unknown));
     }
-    let formula = build()?;
     let rest = SearchOptions {
         timeout: remaining,
         ..options.clone()
+    };
+    let Some(formula) = build()? else {
+        // The formula would not fit in memory: local search alone, to the deadline.
+        let mut later = local_search_only(spec, order, &rest, progress)?;
+        later.elapsed = started.elapsed();
+        return Ok(later);
     };
     let offset = started.elapsed();
     let mut later = later_stages(formula.borrow(), spec, &rest, progress, |e| {
@@ -101,6 +106,48 @@ pub fn auto_search<F: Borrow<Formula>>(
     })?;
     later.elapsed = started.elapsed();
     Ok(later)
+}
+
+/// What `find` does when the formula is too large to hold: local search (for
+/// cliques, up to its largest order) until the deadline; otherwise unknown.
+fn local_search_only(
+    spec: &RamseySpec,
+    order: usize,
+    options: &SearchOptions,
+    progress: &SearchProgress,
+) -> Result<SearchReport, SearchError> {
+    let started = Instant::now();
+    let threads = options.threads.max(1);
+    let report = |result| SearchReport {
+        result,
+        attempts: progress.attempts.load(Ordering::SeqCst),
+        elapsed: started.elapsed(),
+        threads,
+    };
+    if !spec.is_cliques() || order > MAX_LOCAL_ORDER {
+        return Ok(report(SearchResult::Unknown));
+    }
+    let local_options = LocalOptions {
+        threads,
+        seed: options.seed,
+        timeout: options.timeout,
+        ..LocalOptions::default()
+    };
+    let local_progress = crate::local::search::LocalProgress::default();
+    let found = local_search(
+        spec,
+        order,
+        &local_options,
+        &AtomicBool::new(false),
+        &local_progress,
+    )?;
+    progress
+        .attempts
+        .fetch_add(found.restarts, Ordering::Relaxed);
+    match found.found {
+        Some((colouring, by)) => Ok(report(verified(spec, colouring, by)?)),
+        None => Ok(report(SearchResult::Unknown)),
+    }
 }
 
 /// Stages 2 and 3 beside the complete worker.
@@ -149,6 +196,20 @@ fn later_stages(
     answer.into_report(progress, started, threads)
 }
 
+/// How long the structured families may take in all, with or without --timeout
+/// (a timeout only cuts it short).
+const STRUCTURED_CAP: Duration = Duration::from_secs(30);
+/// How long one structured family may take.
+const FAMILY_CAP: Duration = Duration::from_secs(5);
+
+/// The earlier of two optional instants (None: no bound).
+fn earliest(a: Option<Instant>, b: Option<Instant>) -> Option<Instant> {
+    match (a, b) {
+        (Some(a), Some(b)) => Some(a.min(b)),
+        (a, b) => a.or(b),
+    }
+}
+
 /// Deletes the last vertex of a colouring.
 fn drop_last_vertex(colouring: &Colouring) -> Colouring {
     Colouring::from_fn(colouring.order() - 1, colouring.colours(), |i, j| {
@@ -166,8 +227,11 @@ pub fn structured_stage(
     progress: &SearchProgress,
 ) -> Result<Option<SearchResult>, SearchError> {
     let started = Instant::now();
-    let structured_cap = options.timeout.map_or(Duration::from_secs(30), |t| t / 4);
-    let structured_deadline = Some(started + structured_cap);
+    // The same caps with and without --timeout; a timeout only cuts them short.
+    let structured_deadline = earliest(
+        Some(started + STRUCTURED_CAP),
+        options.timeout.map(|t| started + t),
+    );
     let mut tries: Vec<EdgeOrbits> = Vec::new();
     tries.extend(EdgeOrbits::circulant(order).ok());
     tries.extend(EdgeOrbits::circulant(order + 1).ok());
@@ -179,11 +243,9 @@ pub fn structured_stage(
             .families(order)
             .unwrap_or_default(),
     );
-    // No single family may take more than a twentieth of the time limit (2 s at
-    // least; 5 s without a limit): large block-circulant formulas can be slow.
-    let family_cap = options.timeout.map_or(Duration::from_secs(5), |t| {
-        (t / 20).max(Duration::from_secs(2))
-    });
+    // No single family may take more than FAMILY_CAP: large block-circulant
+    // formulas can be slow.
+    let family_cap = FAMILY_CAP;
     for orbits in tries {
         if stop.load(Ordering::Relaxed) || structured_deadline.is_some_and(|d| Instant::now() >= d)
         {
@@ -230,8 +292,7 @@ fn helper_stages(
     progress: &SearchProgress,
 ) -> Result<Option<SearchResult>, SearchError> {
     let order = formula.variables().order();
-    let structured_deadline =
-        Some(Instant::now() + options.timeout.map_or(Duration::from_secs(30), |t| t / 4));
+    let structured_deadline = earliest(Some(Instant::now() + STRUCTURED_CAP), deadline);
 
     // Stage 2: extend a circulant colouring of K_{n−1}.
     let vars = *formula.variables();

@@ -34,6 +34,7 @@ pub mod graph6;
 pub mod hybrid;
 pub mod interrupt;
 pub mod local;
+pub mod memory;
 pub mod portfolio;
 pub mod refute;
 pub mod seeding;

@@ -628,3 +628,99 @@ fn enumerate_writes_one_graph6_line_per_class() {
     assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
     assert!(!late.exists());
 }
+
+/// Runs ramsift under an address-space limit (KiB), returning the output and the
+/// wall time.
+fn ramsift_bounded(args: &[&str], memory_kib: u64) -> (Output, std::time::Duration) {
+    let started = std::time::Instant::now();
+    let o = Command::new("bash")
+        .arg("-c")
+        .arg(format!("ulimit -v {memory_kib}; exec \"$0\" \"$@\""))
+        .arg(env!("CARGO_BIN_EXE_ramsift"))
+        .args(args)
+        .output()
+        .expect("bash runs");
+    (o, started.elapsed())
+}
+
+#[test]
+fn formulas_too_large_for_memory_are_never_built() {
+    // (3,9;36) has C(36,9) = 94,143,280 clauses of 36 literals (binomial by hand):
+    // about 42 GiB for one solver. find with a timeout falls back to the structured
+    // and local searches and ends unknown at the timeout, within 4 GiB.
+    let (o, _) = ramsift_bounded(
+        &[
+            "find",
+            "3,9",
+            "36",
+            "--timeout",
+            "3",
+            "--max-memory",
+            "2G",
+            "--json",
+        ],
+        4 << 20,
+    );
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["result"], "unknown");
+    // The methods that need the formula refuse, saying the estimate.
+    for args in [
+        &[
+            "find",
+            "4,6",
+            "34",
+            "--method",
+            "sat",
+            "--max-memory",
+            "100M",
+        ][..],
+        &[
+            "refute",
+            "3,9",
+            "36",
+            "--max-memory",
+            "1G",
+            "--out",
+            "/nonexistent/never-written",
+        ],
+        &[
+            "enumerate",
+            "3,9",
+            "36",
+            "--max-memory",
+            "1G",
+            "--out",
+            "/nonexistent/never-written",
+        ],
+    ] {
+        let o = ramsift(args);
+        assert_eq!(o.status.code(), Some(2), "{args:?}: {}", stderr(&o));
+        assert!(
+            stderr(&o).contains("needs about") && stderr(&o).contains("--max-memory"),
+            "{}",
+            stderr(&o)
+        );
+    }
+    let o = ramsift(&["find", "3,3", "5", "--max-memory", "12Q"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(
+        stderr(&o).contains("expected a size such as 512M"),
+        "{}",
+        stderr(&o)
+    );
+}
+
+#[test]
+fn find_stops_near_its_timeout_whatever_stage_it_is_in() {
+    // (4,6;34): no structured colouring exists (the scan of the lower-bound tests),
+    // so every stage runs: structured, the formula, seeded SAT and local search.
+    // Loading the 1.39 M clauses into a solver takes seconds and used to run past
+    // the deadline (18 s for a 10 s timeout); the bound here is generous for load.
+    let (o, elapsed) = ramsift_bounded(&["find", "4,6", "34", "--timeout", "8", "-q"], 8 << 20);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    assert!(
+        elapsed < std::time::Duration::from_secs(13),
+        "took {elapsed:?} for --timeout 8"
+    );
+}

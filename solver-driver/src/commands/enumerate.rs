@@ -57,6 +57,9 @@ struct Summary {
 
 pub fn run(args: &EnumerateArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
+    // The search holds the whole formula (with lex-leader, a small addition).
+    args.instance
+        .fits(&args.instance.encoding("none")?, &instance.to_string(), 1)?;
     let timeout = timeout_of(args.timeout)?;
     let line = ProgressLine::new(args.quiet);
     let stop = AtomicBool::new(false);

@@ -144,9 +144,13 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                 )
             })
         };
+        let solvers = options.threads.max(1);
         if args.solver == "cadical" {
+            args.instance.fits(&encoding, &format!("{instance}"), 1)?;
             search_with_cadical(&Formula::from_encoding(&encoding), &instance, &options)?
         } else if method == "sat" {
+            args.instance
+                .fits(&encoding, &format!("{instance}"), solvers)?;
             let formula = Formula::from_encoding(&encoding);
             search(&formula, instance.spec(), &options, &progress, tick)?
         } else {
@@ -156,7 +160,13 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                 &options,
                 &progress,
                 tick,
-                || Ok(Formula::from_encoding(&encoding)),
+                || {
+                    // Too large for memory: the structured and local searches still run.
+                    let fits = args
+                        .instance
+                        .fits(&encoding, &format!("{instance}"), solvers);
+                    Ok(fits.is_ok().then(|| Formula::from_encoding(&encoding)))
+                },
             )?
         }
     };

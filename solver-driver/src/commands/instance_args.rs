@@ -3,6 +3,7 @@
 use anyhow::{Context, Result};
 use clap::Args;
 
+use ramsift_driver::memory;
 use ramsift_encoder::clauses::DEFAULT_MAX_CLAUSES;
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 
@@ -18,6 +19,10 @@ pub struct InstanceArgs {
     /// Refuse instances needing more clauses than this.
     #[arg(long, value_name = "COUNT", default_value_t = DEFAULT_MAX_CLAUSES)]
     pub max_clauses: u64,
+    /// Refuse work whose formula would need more memory than this (e.g. 512M, 16G);
+    /// the refusal says the estimate. Default: three quarters of this machine's memory.
+    #[arg(long, value_name = "SIZE", value_parser = memory::parse_size)]
+    pub max_memory: Option<u64>,
 }
 
 impl InstanceArgs {
@@ -45,6 +50,30 @@ impl InstanceArgs {
         Ok(CliqueEncoding::with_symmetry(
             &instance, &symmetry, &limits,
         )?)
+    }
+}
+
+impl InstanceArgs {
+    /// The `--max-memory` limit in bytes.
+    pub fn memory_limit(&self) -> u64 {
+        self.max_memory.unwrap_or_else(memory::default_limit)
+    }
+
+    /// Whether `solvers` solvers can hold the encoding's formula within the limit.
+    pub fn fits(
+        &self,
+        encoding: &CliqueEncoding,
+        what: &str,
+        solvers: usize,
+    ) -> Result<(), memory::OverMemory> {
+        let limit = self.memory_limit();
+        memory::check(
+            what,
+            encoding.literal_count(),
+            encoding.clause_count(),
+            solvers,
+            limit,
+        )
     }
 }
 

@@ -57,6 +57,8 @@ pub struct RefuteArgs {
 
 pub fn run(args: &RefuteArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
+    args.instance
+        .fits(&encoding, &encoding.instance().to_string(), 1)?;
     let instance = encoding.instance().clone();
     let timeout = timeout_of(args.timeout)?;
     let options = RefuteOptions {

@@ -153,6 +153,8 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
 fn plan(args: &PlanArgs) -> Result<u8> {
     anyhow::ensure!(args.shards >= 1, "--shards 0: at least one shard is needed");
     let encoding = args.instance.encoding(&args.symmetry)?;
+    args.instance
+        .fits(&encoding, &encoding.instance().to_string(), 1)?;
     ensure_dir(&args.out).with_context(|| format!("creating {}", args.out.display()))?;
     let formula_path = args.out.join("formula.cnf.gz");
     write_encoding_to(&encoding, &formula_path)?;
