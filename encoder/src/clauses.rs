@@ -296,7 +296,10 @@ mod tests {
                 CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
             let mut emitted = 0u128;
             encoding
-                .for_each_clause::<()>(|c| Ok(emitted += c.len() as u128))
+                .for_each_clause::<()>(|c| {
+                    emitted += c.len() as u128;
+                    Ok(())
+                })
                 .unwrap();
             assert_eq!(
                 encoding.literal_count(),

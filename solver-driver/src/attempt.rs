@@ -146,7 +146,7 @@ pub fn run_attempt_counted<W: Write>(
     // Loading a large formula takes seconds and varisat only notices the limits
     // once it writes proof steps, so they are checked before and during loading.
     let interrupted = || {
-        if stop.load(Ordering::Relaxed) {
+        if stop.load(Ordering::Relaxed) || crate::interrupt::interrupted() {
             Some(StopReason::Stopped)
         } else {
             deadline

@@ -247,7 +247,9 @@ pub fn structured_stage(
     // formulas can be slow.
     let family_cap = FAMILY_CAP;
     for orbits in tries {
-        if stop.load(Ordering::Relaxed) || structured_deadline.is_some_and(|d| Instant::now() >= d)
+        if stop.load(Ordering::Relaxed)
+            || crate::interrupt::interrupted()
+            || structured_deadline.is_some_and(|d| Instant::now() >= d)
         {
             return Ok(None);
         }
@@ -362,7 +364,10 @@ fn helper_stages(
     }
     let mut slice = Duration::from_secs(1);
     let mut round = 0u64;
-    while !stop.load(Ordering::Relaxed) && deadline.is_none_or(|d| Instant::now() < d) {
+    while !stop.load(Ordering::Relaxed)
+        && !crate::interrupt::interrupted()
+        && deadline.is_none_or(|d| Instant::now() < d)
+    {
         round += 1;
         let local_options = LocalOptions {
             threads: helpers,

@@ -13,6 +13,36 @@ use std::io::{self, Write};
 use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 use std::time::Instant;
 
+/// Set once the process receives SIGINT, SIGTERM or SIGHUP (Ctrl-C, or a batch
+/// system's wall-time limit): every solve and search then stops as at a timeout,
+/// so commands write their summary, remove their temporary files and exit 1.
+pub static INTERRUPTED: AtomicBool = AtomicBool::new(false);
+
+/// Whether an interrupting signal has arrived.
+pub fn interrupted() -> bool {
+    INTERRUPTED.load(Ordering::Relaxed)
+}
+
+/// Why a run ended without an answer, in words: interrupted or out of time.
+pub fn stopped_because() -> &'static str {
+    if interrupted() {
+        "before the run was interrupted by a signal"
+    } else {
+        "within the time limit"
+    }
+}
+
+/// Installs the handler that sets [`INTERRUPTED`]; a second signal ends the
+/// process at once with exit code 130.
+pub fn install_signal_handler() -> Result<(), String> {
+    ctrlc::set_handler(|| {
+        if INTERRUPTED.swap(true, Ordering::SeqCst) {
+            std::process::exit(130);
+        }
+    })
+    .map_err(|e| e.to_string())
+}
+
 /// Why a solve was stopped.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum StopReason {
@@ -59,7 +89,7 @@ impl<'a, W: Write> InterruptSink<'a, W> {
     }
 
     fn check(&self) -> Option<StopReason> {
-        if self.limits.stop.load(Ordering::Relaxed) {
+        if self.limits.stop.load(Ordering::Relaxed) || interrupted() {
             return Some(StopReason::Stopped);
         }
         if self.limits.deadline.is_some_and(|d| Instant::now() >= d) {

@@ -35,6 +35,7 @@ pub mod hybrid;
 pub mod interrupt;
 pub mod local;
 pub mod memory;
+pub mod output_dir;
 pub mod portfolio;
 pub mod refute;
 pub mod seeding;

@@ -68,6 +68,9 @@ fn quiet_on_closed_pipe() {
 fn main() -> ExitCode {
     quiet_on_closed_pipe();
     let cli = Cli::parse();
+    if let Err(e) = ramsift_driver::interrupt::install_signal_handler() {
+        eprintln!("ramsift: warning: Ctrl-C will not stop cleanly: {e}");
+    }
     let result = match cli.command {
         Command::Find(args) => commands::find::run(&args),
         Command::Encode(args) => commands::encode::run(&args),

@@ -272,7 +272,10 @@ fn seeded_worker(
     rng.set_stream(worker as u64);
     let vars = formula.variables();
     for attempt in 1u64.. {
-        if stop.load(Ordering::Relaxed) || deadline.is_some_and(|d| Instant::now() >= d) {
+        if stop.load(Ordering::Relaxed)
+            || crate::interrupt::interrupted()
+            || deadline.is_some_and(|d| Instant::now() >= d)
+        {
             return Ok(None);
         }
         let seed = draw_seed(vars.order(), vars.colours(), &mut rng);

@@ -164,7 +164,7 @@ fn unwritable_outputs_fail_cleanly_and_leave_nothing() {
     std::fs::write(&blocker, "x").unwrap();
     assert_bad_input(
         &["find", "3,3", "5", "--out", blocker.to_str().unwrap(), "-q"],
-        "writing the witness",
+        "exists and is not a directory",
     );
     // A refused instance never creates its output file.
     let refused = dir.path().join("big.cnf");
@@ -723,4 +723,113 @@ fn find_stops_near_its_timeout_whatever_stage_it_is_in() {
         elapsed < std::time::Duration::from_secs(13),
         "took {elapsed:?} for --timeout 8"
     );
+}
+
+#[test]
+fn used_output_directories_are_refused_or_cleared_with_force() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("w");
+    std::fs::create_dir(&out).unwrap();
+    std::fs::write(
+        out.join("witness.colouring"),
+        "stale witness of another run",
+    )
+    .unwrap();
+    let o_path = out.to_str().unwrap();
+    // R(3,4) = 9 (Greenwood & Gleason 1955): nothing at 9, so an old witness must not survive.
+    for args in [
+        &["find", "3,4", "9", "--out", o_path, "-q"][..],
+        &["refute", "3,4", "9", "--out", o_path, "-q"],
+        &[
+            "scan",
+            "3,4",
+            "--from",
+            "8",
+            "--to",
+            "9",
+            "--circulant",
+            "--out",
+            o_path,
+        ],
+        &[
+            "shard", "plan", "3,4", "9", "--shards", "2", "--out", o_path,
+        ],
+    ] {
+        let o = ramsift(args);
+        assert_eq!(o.status.code(), Some(2), "{args:?}: {}", stderr(&o));
+        assert!(
+            stderr(&o).contains("already holds files") && stderr(&o).contains("--force"),
+            "{}",
+            stderr(&o)
+        );
+        assert!(
+            out.join("witness.colouring").exists(),
+            "a refused run must not touch the directory"
+        );
+    }
+    let o = ramsift(&["find", "3,4", "9", "--out", o_path, "--force", "-q"]);
+    assert_eq!(o.status.code(), Some(20), "{}", stderr(&o));
+    assert!(
+        !out.join("witness.colouring").exists(),
+        "--force clears the old witness"
+    );
+    // --force never clears the working directory or one holding it.
+    let o = Command::new(env!("CARGO_BIN_EXE_ramsift"))
+        .args(["find", "3,3", "5", "--out", ".", "--force", "-q"])
+        .current_dir(&out)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    assert!(
+        stderr(&o).contains("holds the working directory"),
+        "{}",
+        stderr(&o)
+    );
+}
+
+#[test]
+fn signals_stop_runs_cleanly_with_their_summary() {
+    // (3,7;23) is far from refuted in a few seconds (BENCHMARKS.md), so the run is
+    // still solving, its trace growing in a hidden temporary file, when the signal comes.
+    let dir = tempfile::tempdir().unwrap();
+    for (signal, args) in [
+        (libc::SIGINT, vec!["refute", "3,7", "23", "-q", "--out"]),
+        (libc::SIGTERM, vec!["find", "4,6", "35", "-q", "--out"]),
+    ] {
+        let out = dir.path().join(format!("run{signal}"));
+        let child = Command::new(env!("CARGO_BIN_EXE_ramsift"))
+            .args(&args)
+            .arg(&out)
+            .stdout(std::process::Stdio::piped())
+            .spawn()
+            .unwrap();
+        std::thread::sleep(std::time::Duration::from_secs(2));
+        // SAFETY: kill(2) on the pid of our own child process.
+        assert_eq!(unsafe { libc::kill(child.id() as libc::pid_t, signal) }, 0);
+        let started = std::time::Instant::now();
+        let o = child.wait_with_output().unwrap();
+        assert!(
+            started.elapsed() < std::time::Duration::from_secs(10),
+            "{args:?} ignored the signal"
+        );
+        assert_eq!(o.status.code(), Some(1), "{args:?}");
+        assert!(
+            stdout(&o).contains("interrupted by a signal"),
+            "{}",
+            stdout(&o)
+        );
+        let left: Vec<String> = std::fs::read_dir(&out)
+            .unwrap()
+            .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+            .collect();
+        assert!(
+            left.iter().all(|name| !name.ends_with(".tmp")),
+            "{args:?} left {left:?}"
+        );
+        if args[0] == "find" {
+            let summary: serde_json::Value =
+                serde_json::from_slice(&std::fs::read(out.join("summary.json")).unwrap()).unwrap();
+            assert_eq!(summary["result"], "unknown");
+        }
+    }
 }

@@ -336,3 +336,43 @@ fn slurm_job_array_refutes_and_survives_a_killed_shard() {
     let bundle = base.path().join("bundle");
     merge_and_check(&plan, &bundle, "R(4,4) <= 18");
 }
+
+#[test]
+fn results_of_another_plan_never_count() {
+    let base = tempfile::tempdir().unwrap();
+    let (first, second) = (base.path().join("first"), base.path().join("second"));
+    // R(3,4) = 9 and R(3,5) = 14 (Greenwood & Gleason 1955; Radziszowski DS1), 2 shards each.
+    for (dir, spec, n) in [(&first, "3,4", "9"), (&second, "3,5", "14")] {
+        ok(
+            &ramsift(&[
+                "shard",
+                "plan",
+                spec,
+                n,
+                "--shards",
+                "2",
+                "--symmetry",
+                "lex-leader",
+                "--out",
+                s(dir),
+            ]),
+            0,
+        );
+    }
+    ok(&ramsift(&["shard", "local", s(&first)]), 0);
+    // The directory is reused for another plan by hand: its old results must not count.
+    std::fs::copy(second.join("plan.json"), first.join("plan.json")).unwrap();
+    let status = ok(&ramsift(&["shard", "status", s(&first)]), 1);
+    assert!(status.contains("0 done"), "{status}");
+    let refused = ramsift(&[
+        "shard",
+        "merge",
+        s(&first),
+        "--out",
+        s(&base.path().join("bundle")),
+    ]);
+    assert_eq!(refused.status.code(), Some(2));
+    // Running again redoes the shards for the plan now in place, and the merge passes.
+    ok(&ramsift(&["shard", "local", s(&first)]), 0);
+    merge_and_check(&first, &base.path().join("merged"), "R(3,5) <= 14");
+}

@@ -54,6 +54,9 @@ pub struct FindArgs {
     /// Write the witness (colouring file, graph6) and summary.json into this directory.
     #[arg(long, value_name = "DIR")]
     pub out: Option<PathBuf>,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
     /// Symmetry breaking for the SAT workers: none, or a comma list of colour-swap,
     /// lex-leader, degree-bounds. None is the default for searches (it slows
     /// satisfiable searches down).
@@ -109,6 +112,9 @@ impl FindArgs {
 
 pub fn run(args: &FindArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
+    if let Some(dir) = &args.out {
+        ramsift_driver::output_dir::prepare(dir, args.force)?;
+    }
     let timeout = timeout_of(args.timeout)?;
     let mut options = SearchOptions {
         seed: args.seed,
@@ -237,7 +243,8 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                     report.elapsed.as_secs_f64()
                 ),
                 None => println!(
-                    "UNKNOWN {instance}: no answer within the time limit ({:.2}s, {} attempts)",
+                    "UNKNOWN {instance}: no answer {} ({:.2}s, {} attempts)",
+                    ramsift_driver::interrupt::stopped_because(),
                     report.elapsed.as_secs_f64(),
                     report.attempts
                 ),

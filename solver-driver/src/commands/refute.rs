@@ -28,6 +28,9 @@ pub struct RefuteArgs {
     /// The bundle directory (created if needed).
     #[arg(long, value_name = "DIR")]
     pub out: PathBuf,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
     /// Symmetry breaking: default (all three for cliques; colour-swap and lex-leader
     /// for other graphs), none, or a comma list of colour-swap, lex-leader,
     /// degree-bounds.
@@ -59,6 +62,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
+    ramsift_driver::output_dir::prepare(&args.out, args.force)?;
     let instance = encoding.instance().clone();
     let timeout = timeout_of(args.timeout)?;
     let options = RefuteOptions {
@@ -173,7 +177,11 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                     )?
                 );
             } else {
-                println!("UNKNOWN {instance}: no answer within the time limit ({:.2}s); no bundle written", report.solve_seconds);
+                println!(
+                    "UNKNOWN {instance}: no answer {} ({:.2}s); no bundle written",
+                    ramsift_driver::interrupt::stopped_because(),
+                    report.solve_seconds
+                );
             }
             Ok(exit_codes::UNKNOWN)
         }

@@ -43,6 +43,9 @@ pub struct ScanArgs {
     /// Write each colouring found into DIR/order-N/ and the report into DIR/scan.json.
     #[arg(long, value_name = "DIR")]
     pub out: Option<PathBuf>,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
     /// Print the report as JSON on stdout instead of a table.
     #[arg(long)]
     pub json: bool,
@@ -120,6 +123,9 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         .spec
         .parse()
         .with_context(|| format!("specification {:?}", args.spec))?;
+    if let Some(dir) = &args.out {
+        ramsift_driver::output_dir::prepare(dir, args.force)?;
+    }
     anyhow::ensure!(
         args.from >= 2 && args.from <= args.to,
         "--from {} --to {}: expected 2 <= FROM <= TO",

@@ -47,6 +47,9 @@ pub struct PlanArgs {
     /// The plan directory.
     #[arg(long, value_name = "DIR")]
     pub out: PathBuf,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
     /// Symmetry breaking (as for refute).
     #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
     pub symmetry: String,
@@ -112,6 +115,9 @@ pub struct MergeArgs {
     /// The bundle directory to write.
     #[arg(long, value_name = "DIR")]
     pub out: PathBuf,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
     /// Also compose one DRAT trace of the whole formula from the shard traces.
     #[arg(long)]
     pub single_trace: bool,
@@ -128,6 +134,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
         ShardCommand::Slurm(args) => slurm(args),
         ShardCommand::Status(args) => status(args),
         ShardCommand::Merge(args) => {
+            ramsift_driver::output_dir::prepare(&args.out, args.force)?;
             let report = merge(
                 &args.plan,
                 &args.out,
@@ -155,7 +162,7 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
-    ensure_dir(&args.out).with_context(|| format!("creating {}", args.out.display()))?;
+    ramsift_driver::output_dir::prepare(&args.out, args.force)?;
     let formula_path = args.out.join("formula.cnf.gz");
     write_encoding_to(&encoding, &formula_path)?;
     let (sha, _) = ramsift_driver::bundle::hash_file(&formula_path)?;

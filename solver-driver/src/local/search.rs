@@ -131,7 +131,9 @@ pub fn local_search(
                 let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
                 rng.set_stream(worker as u64 + 1000);
                 let stopped = || {
-                    stop.load(Ordering::Relaxed) || deadline.is_some_and(|d| Instant::now() >= d)
+                    stop.load(Ordering::Relaxed)
+                        || crate::interrupt::interrupted()
+                        || deadline.is_some_and(|d| Instant::now() >= d)
                 };
                 while !stopped() {
                     let index = start_index.fetch_add(1, Ordering::Relaxed) as usize;

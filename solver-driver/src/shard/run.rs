@@ -39,6 +39,10 @@ pub struct ShardResult {
     pub proof_bytes: Option<u64>,
     /// The colouring, in ramsift's text format, when one was found.
     pub colouring: Option<String>,
+    /// SHA-256 of the plan.json this result belongs to: a result of another plan
+    /// (a directory reused for a new plan) never counts as done.
+    #[serde(default)]
+    pub plan_sha256: String,
 }
 
 /// What `run_shard` did.
@@ -80,12 +84,21 @@ pub fn plan_encoding(plan: &Plan) -> Result<CliqueEncoding> {
     Ok(encoding)
 }
 
+/// SHA-256 of the plan directory's plan.json.
+pub fn plan_sha256(plan_dir: &Path) -> Option<String> {
+    hash_file(&plan_dir.join(PLAN_FILE))
+        .ok()
+        .map(|(sha, _)| sha)
+}
+
 /// Reads a shard's result record if it is complete (trace present with the recorded hash).
 pub fn complete_result(plan_dir: &Path, index: usize) -> Option<ShardResult> {
     let dir = shard_dir(plan_dir, index);
     let result: ShardResult =
         serde_json::from_str(&std::fs::read_to_string(dir.join(RESULT_FILE)).ok()?).ok()?;
-    if result.index != index {
+    if result.index != index
+        || Some(result.plan_sha256.as_str()) != plan_sha256(plan_dir).as_deref()
+    {
         return None;
     }
     match result.status.as_str() {
@@ -123,6 +136,7 @@ pub fn run_shard(
     }
     std::fs::create_dir_all(&dir).with_context(|| format!("creating {}", dir.display()))?;
     let encoding = plan_encoding(&plan)?;
+    let plan_sha256 = plan_sha256(plan_dir).context("hashing the plan")?;
     let formula = Formula::from_encoding(&encoding);
     let trace = tempfile::Builder::new()
         .prefix(".proof.")
@@ -159,6 +173,7 @@ pub fn run_shard(
                 proof_sha256: Some(sha),
                 proof_bytes: Some(bytes),
                 colouring: None,
+                plan_sha256: plan_sha256.clone(),
             }
         }
         AttemptOutcome::Satisfiable(colouring) => {
@@ -175,6 +190,7 @@ pub fn run_shard(
                 proof_sha256: None,
                 proof_bytes: None,
                 colouring: Some(colouring_text(encoding.instance(), &colouring, &[])),
+                plan_sha256,
             }
         }
     };
