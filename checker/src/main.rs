@@ -35,8 +35,9 @@ struct Cli {
 enum Command {
     /// Check that a colouring has no monochromatic forbidden graph.
     ///
-    /// FILE is a ramsift colouring file, or a graph6 file (one graph per line; edges
-    /// are colour 1, non-edges colour 2), which needs --forbid.
+    /// FILE is a ramsift colouring file (or a stream of them, as `ramsift enumerate`
+    /// writes), or a graph6 file (one graph per line; edges are colour 1, non-edges
+    /// colour 2), which needs --forbid; - reads standard input.
     #[command(after_help = EXIT_CODES)]
     Colouring {
         /// The colouring file (ramsift format or graph6).

@@ -23,6 +23,8 @@ use crate::graph6::encode_graph6;
 pub const COLOURING_FILE: &str = "witness.colouring";
 pub const GRAPH6_FILE: &str = "witness-colour1.g6";
 pub const SUMMARY_FILE: &str = "summary.json";
+/// The keyword that starts a colouring file's header.
+pub const COLOURING_MAGIC: &str = "ramsift-colouring";
 
 /// The colouring in ramsift's text format.
 pub fn colouring_text(instance: &Instance, colouring: &Colouring, comments: &[String]) -> String {
@@ -34,7 +36,7 @@ pub fn colouring_text(instance: &Instance, colouring: &Colouring, comments: &[St
         text.push('\n');
     }
     text.push_str(&format!(
-        "ramsift-colouring spec={} order={}\n",
+        "{COLOURING_MAGIC} spec={} order={}\n",
         instance.spec(),
         n
     ));
@@ -80,7 +82,45 @@ pub struct FindSummary {
     pub found_by: Option<String>,
     pub verified_by_checker: bool,
     pub graph6_colour1: Option<String>,
+    /// The colouring found, as matrix rows: entry j of row i is the colour of
+    /// edge {i,j} (1..r), 0 on the diagonal.
+    pub colouring: Option<Vec<Vec<u8>>>,
     pub files: Vec<PathBuf>,
+}
+
+/// A colouring as matrix rows (0 on the diagonal), for JSON output.
+pub fn colouring_rows(colouring: &Colouring) -> Vec<Vec<u8>> {
+    let n = colouring.order();
+    (0..n)
+        .map(|i| {
+            (0..n)
+                .map(|j| if i == j { 0 } else { colouring.colour(i, j) })
+                .collect()
+        })
+        .collect()
+}
+
+/// Splits a stream of colouring files (as `enumerate` writes for three or more
+/// colours) into one text per colouring; each starts at its header line, and
+/// comment lines go with the colouring they precede.
+pub fn split_colouring_stream(text: &str) -> Vec<String> {
+    let mut parts: Vec<String> = Vec::new();
+    let mut current = String::new();
+    let mut has_header = false;
+    for line in text.lines() {
+        if line.trim_start().starts_with(COLOURING_MAGIC) {
+            if has_header {
+                parts.push(std::mem::take(&mut current));
+            }
+            has_header = true;
+        }
+        current.push_str(line);
+        current.push('\n');
+    }
+    if has_header {
+        parts.push(current);
+    }
+    parts
 }
 
 /// Writes the witness files (and, when given, the summary) into `dir`.
@@ -167,6 +207,10 @@ impl FindSummary {
             found_by,
             verified_by_checker: matches!(report.result, SearchResult::Found { .. }),
             graph6_colour1: graph6,
+            colouring: match &report.result {
+                SearchResult::Found { colouring, .. } => Some(colouring_rows(colouring)),
+                _ => None,
+            },
             files: Vec::new(),
         }
     }

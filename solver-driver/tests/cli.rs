@@ -833,3 +833,98 @@ fn signals_stop_runs_cleanly_with_their_summary() {
         }
     }
 }
+
+/// Runs `program args` with `input` on standard input.
+fn run_with_input(program: &str, args: &[&str], input: &[u8]) -> Output {
+    use std::io::Write;
+    let mut child = Command::new(program)
+        .args(args)
+        .stdin(std::process::Stdio::piped())
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .unwrap();
+    child.stdin.take().unwrap().write_all(input).unwrap();
+    child.wait_with_output().unwrap()
+}
+
+#[test]
+fn witnesses_pass_along_by_pipe_json_and_streams() {
+    let checker = ramsift_tests_checker();
+    // The Paley colouring of order 17 is the unique (4,4;17) colouring (DS1).
+    let o = ramsift(&["find", "4,4", "17", "-q"]);
+    assert_eq!(o.status.code(), Some(10));
+    let checked = run_with_input(&checker, &["colouring", "-"], &o.stdout);
+    assert_eq!(checked.status.code(), Some(0), "{}", stdout(&checked));
+    assert!(
+        stdout(&checked).starts_with("PASS: R(4,4) > 17"),
+        "{}",
+        stdout(&checked)
+    );
+    // --json carries the colouring itself: rows, and graph6 for two colours.
+    let o = ramsift(&["find", "3,3,3", "16", "--json"]);
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    let rows = summary["colouring"].as_array().unwrap();
+    assert_eq!(rows.len(), 16);
+    assert!(rows
+        .iter()
+        .enumerate()
+        .all(|(i, r)| r[i] == 0 && r.as_array().unwrap().len() == 16));
+    let o = ramsift(&["find", "3,3", "5", "--json"]);
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert!(summary["graph6_colour1"].is_string() && summary["colouring"][0][1].is_number());
+    // Three-colour enumeration writes a stream of colouring files that the checker
+    // and draw read: (3,3,3;16) has 2 colourings up to isomorphism and colour
+    // permutation (Kalbfleisch & Stanton 1968).
+    let dir = tempfile::tempdir().unwrap();
+    let stream = dir.path().join("classes.txt");
+    let o = ramsift(&[
+        "enumerate",
+        "3,3,3",
+        "16",
+        "--swap-colours",
+        "--out",
+        stream.to_str().unwrap(),
+    ]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    let checked = Command::new(&checker)
+        .args(["colouring", stream.to_str().unwrap()])
+        .output()
+        .unwrap();
+    assert_eq!(checked.status.code(), Some(0), "{}", stdout(&checked));
+    assert!(
+        stdout(&checked).contains("2 colouring(s) checked"),
+        "{}",
+        stdout(&checked)
+    );
+    let figure = dir.path().join("first.svg");
+    let o = run_with_input(
+        env!("CARGO_BIN_EXE_ramsift"),
+        &["draw", "-", "--out", figure.to_str().unwrap()],
+        &std::fs::read(&stream).unwrap(),
+    );
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    assert!(std::fs::read_to_string(&figure)
+        .unwrap()
+        .contains("the first of 2"));
+}
+
+/// The checker binary beside this package's binary (built by `cargo test --workspace`).
+fn ramsift_tests_checker() -> String {
+    let path = std::path::Path::new(env!("CARGO_BIN_EXE_ramsift")).with_file_name("ramsift-check");
+    if !path.is_file() {
+        let status = Command::new(env!("CARGO"))
+            .args([
+                "build",
+                "--release",
+                "-p",
+                "ramsift-checker",
+                "--bin",
+                "ramsift-check",
+            ])
+            .status()
+            .unwrap();
+        assert!(status.success());
+    }
+    path.to_str().unwrap().to_string()
+}

@@ -1,6 +1,7 @@
 //! `ramsift-check colouring`: a witness colouring (ramsift colouring file, or
 //! graph6 with --forbid) must contain no monochromatic forbidden graph.
 
+use std::io::Read;
 use std::path::Path;
 
 use serde_json::json;
@@ -59,12 +60,33 @@ pub fn run(path: &Path, forbid: Option<&str>) -> Report {
 }
 
 fn read(name: &str, path: &Path, forbid: Option<Claim>) -> Result<(Claim, Vec<ColourMatrix>), String> {
-    let content = read_input(path).map_err(|e| e.to_string())?;
+    let content = if name == "-" {
+        let mut bytes = Vec::new();
+        std::io::stdin().read_to_end(&mut bytes).map_err(|e| format!("standard input: {e}"))?;
+        bytes
+    } else {
+        read_input(path).map_err(|e| e.to_string())?
+    };
     if looks_like_colouring_file(&content) {
         let text =
             std::str::from_utf8(&content).map_err(|e| format!("{name}: byte {}: not UTF-8 text", e.valid_up_to()))?;
-        let file = parse_colouring_file(name, text).map_err(|e| e.to_string())?;
-        return Ok((forbid.unwrap_or(file.claim), vec![file.matrix]));
+        // One colouring file, or a stream of them (each from its header line on).
+        let mut claim = forbid.clone();
+        let mut matrices = Vec::new();
+        for part in split_stream(text) {
+            let file = parse_colouring_file(name, &part).map_err(|e| e.to_string())?;
+            match (&claim, &forbid) {
+                (Some(c), None) if *c != file.claim => {
+                    return Err(format!(
+                        "{name}: the colourings name different specifications ({c} and {})",
+                        file.claim
+                    ))
+                }
+                _ => claim = Some(claim.unwrap_or(file.claim)),
+            }
+            matrices.push(file.matrix);
+        }
+        return Ok((claim.expect("a colouring file has a header"), matrices));
     }
     let claim = forbid.ok_or_else(|| {
         format!("{name}: not a ramsift colouring file (no {MAGIC} header); a graph6 file needs --forbid S,T")
@@ -74,6 +96,24 @@ fn read(name: &str, path: &Path, forbid: Option<Claim>) -> Result<(Claim, Vec<Co
     }
     let matrices = decode_graph6_file(name, &content).map_err(|e| e.to_string())?;
     Ok((claim, matrices))
+}
+
+/// Splits a stream of colouring files at their header lines; the line numbers of
+/// each part stay those of the whole text (earlier lines become blank).
+fn split_stream(text: &str) -> Vec<String> {
+    let lines: Vec<&str> = text.lines().collect();
+    let starts: Vec<usize> = (0..lines.len()).filter(|&i| lines[i].trim_start().starts_with(MAGIC)).collect();
+    let mut parts = Vec::new();
+    for (k, &start) in starts.iter().enumerate() {
+        let end = starts.get(k + 1).copied().unwrap_or(lines.len());
+        let mut part = "\n".repeat(start);
+        for line in &lines[start..end] {
+            part.push_str(line);
+            part.push('\n');
+        }
+        parts.push(part);
+    }
+    parts
 }
 
 fn describe(claim: &Claim) -> String {

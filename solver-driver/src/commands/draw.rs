@@ -10,12 +10,14 @@ use ramsift_checker::graph6::decode_graph6_file;
 use ramsift_checker::ColourMatrix;
 use ramsift_driver::draw::{svg, tikz, Figure, Layout};
 use ramsift_driver::exit_codes;
+use ramsift_driver::witness::split_colouring_stream;
 use ramsift_encoder::atomic_file::write_atomically;
 
 #[derive(Args, Debug)]
 pub struct DrawArgs {
-    /// A colouring file (ramsift's format) or a graph6 file (first line; edges are
-    /// colour 1, non-edges colour 2).
+    /// A colouring file (ramsift's format; of a stream of them, the first) or a
+    /// graph6 file (first line; edges are colour 1, non-edges colour 2); - reads
+    /// standard input.
     #[arg(value_name = "FILE")]
     pub file: PathBuf,
     /// The figure: .svg for SVG, .tex for a TikZ picture.
@@ -35,7 +37,14 @@ pub struct DrawArgs {
 
 pub fn run(args: &DrawArgs) -> Result<u8> {
     let name = args.file.display().to_string();
-    let content = std::fs::read(&args.file).with_context(|| format!("reading {name}"))?;
+    let content = if name == "-" {
+        let mut bytes = Vec::new();
+        std::io::Read::read_to_end(&mut std::io::stdin(), &mut bytes)
+            .context("reading standard input")?;
+        bytes
+    } else {
+        std::fs::read(&args.file).with_context(|| format!("reading {name}"))?
+    };
     let is_colouring_file = content
         .split(|&b| b == b'\n')
         .map(|l| l.trim_ascii())
@@ -48,8 +57,14 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
                 e.utf8_error().valid_up_to()
             )
         })?;
-        let file = parse_colouring_file(&name, &text)?;
-        let title = format!("a ({};{}) colouring", file.claim, file.matrix.order());
+        // A stream (enumerate's output with three or more colours): the first one.
+        let parts = split_colouring_stream(&text);
+        let file =
+            parse_colouring_file(&name, parts.first().map_or(text.as_str(), String::as_str))?;
+        let mut title = format!("a ({};{}) colouring", file.claim, file.matrix.order());
+        if parts.len() > 1 {
+            title.push_str(&format!(", the first of {} in the file", parts.len()));
+        }
         (file.matrix, file.claim.colours(), title)
     } else {
         let mut graphs = decode_graph6_file(&name, &content)?;

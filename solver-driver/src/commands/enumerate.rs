@@ -15,7 +15,7 @@ use serde::Serialize;
 
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::exit_codes;
-use ramsift_driver::witness::colour_one_graph6;
+use ramsift_driver::witness::{colour_one_graph6, colouring_text};
 use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
@@ -97,30 +97,21 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         file: None,
     };
     if result.complete {
-        // Plain graph6 has no comment lines; the colour-digit format has a header.
+        // Two colours: graph6, one graph a line (it has no comment lines). More
+        // colours: a stream of colouring files, which ramsift-check and draw read.
         let mut text = String::new();
-        if instance.colours() > 2 {
-            text.push_str(&format!(
-                "# ramsift {}: all {} colourings of {instance} up to {up_to}\n",
-                env!("CARGO_PKG_VERSION"),
-                result.classes.len()
-            ));
-            text.push_str(
-                "# one per line: colours of edges {0,1},{0,2},...,{1,2},... in row order\n",
-            );
-        }
-        for colouring in &result.classes {
+        let total = result.classes.len();
+        for (k, colouring) in result.classes.iter().enumerate() {
             if instance.colours() == 2 {
                 text.push_str(&colour_one_graph6(colouring));
+                text.push('\n');
             } else {
-                let n = colouring.order();
-                for i in 0..n {
-                    for j in i + 1..n {
-                        text.push(char::from(b'0' + colouring.colour(i, j)));
-                    }
-                }
+                let note = format!(
+                    "class {} of {total} colourings of {instance} up to {up_to}",
+                    k + 1
+                );
+                text.push_str(&colouring_text(&instance, colouring, &[note]));
             }
-            text.push('\n');
         }
         write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
             .with_context(|| format!("writing {}", args.out.display()))?;

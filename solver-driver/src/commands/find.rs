@@ -220,15 +220,19 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     } else {
         match &report.result {
             SearchResult::Found { colouring, found_by } => {
-                println!(
+                let found = format!(
                     "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({}) > {} ({:.2}s, {} attempts, {found_by})",
                     instance.spec(),
                     instance.order(),
                     report.elapsed.as_secs_f64(),
                     report.attempts
                 );
-                if args.out.is_none() {
-                    print!("{}", colouring_text(&instance, colouring, &[]));
+                if args.out.is_some() {
+                    println!("{found}");
+                } else {
+                    // The account as a comment line: the output is a colouring file
+                    // that `ramsift-check colouring -` reads as it is.
+                    print!("{}", colouring_text(&instance, colouring, &[found]));
                 }
             }
             SearchResult::NoneExists => println!(
