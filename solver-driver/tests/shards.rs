@@ -376,3 +376,55 @@ fn results_of_another_plan_never_count() {
     ok(&ramsift(&["shard", "local", s(&first)]), 0);
     merge_and_check(&first, &base.path().join("merged"), "R(3,5) <= 14");
 }
+
+#[test]
+fn a_shard_that_finds_a_colouring_says_the_claim_is_false_and_keeps_the_witness() {
+    let base = tempfile::tempdir().unwrap();
+    let plan = base.path().join("plan");
+    // R(3,3) = 6 (Greenwood & Gleason 1955): K_5 has a good colouring, so the claim
+    // R(3,3) <= 5 that the plan sets out to prove is false.
+    ok(
+        &ramsift(&[
+            "shard",
+            "plan",
+            "3,3",
+            "5",
+            "--shards",
+            "2",
+            "--symmetry",
+            "none",
+            "--out",
+            s(&plan),
+        ]),
+        0,
+    );
+    let out = ok(&ramsift(&["shard", "local", s(&plan)]), 10);
+    assert!(
+        out.contains("the claim R(3,3) <= 5 is FALSE; witness: "),
+        "{out}"
+    );
+    let witness = out
+        .split("witness: ")
+        .nth(1)
+        .unwrap()
+        .lines()
+        .next()
+        .unwrap()
+        .trim()
+        .to_string();
+    let file = ramsift_checker::colouring_file::parse_colouring_file(
+        "w",
+        &std::fs::read_to_string(&witness).unwrap(),
+    )
+    .unwrap();
+    assert!(ramsift_checker::check_colouring(&file.matrix, &file.claim).is_valid());
+    let refused = ramsift(&[
+        "shard",
+        "merge",
+        s(&plan),
+        "--out",
+        s(&base.path().join("bundle")),
+    ]);
+    assert_eq!(refused.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&refused.stderr).contains("is FALSE; witness: "));
+}

@@ -212,13 +212,37 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         timeout_of(args.timeout)?,
         &AtomicBool::new(false),
     )?;
-    println!("shard {index}: {outcome:?}");
+    let plan = read_plan(&args.plan)?;
+    match outcome {
+        ShardOutcome::AlreadyDone => {
+            println!("shard {index}: already done (its result is complete)")
+        }
+        ShardOutcome::Refuted => println!("shard {index}: refuted under its cube; trace written"),
+        ShardOutcome::Unknown => println!("shard {index}: no answer within the time limit"),
+        ShardOutcome::Found => println!("{}", claim_false(&args.plan, &plan, index)),
+    }
     Ok(match outcome {
         // 0, not 20: a Slurm array task that exits non-zero counts as failed.
         ShardOutcome::AlreadyDone | ShardOutcome::Refuted => exit_codes::SUCCESS,
         ShardOutcome::Found => exit_codes::FOUND,
         ShardOutcome::Unknown => exit_codes::UNKNOWN,
     })
+}
+
+/// The words for a shard that found a colouring: the claim is false, and where
+/// the witness is.
+fn claim_false(
+    plan_dir: &std::path::Path,
+    plan: &ramsift_driver::shard::Plan,
+    index: usize,
+) -> String {
+    format!(
+        "FOUND: shard {index} found a colouring of K_{} with no monochromatic forbidden graph, so the claim R({}) <= {} is FALSE; witness: {}",
+        plan.order,
+        plan.spec,
+        plan.order,
+        ramsift_driver::shard::run::witness_path(plan_dir, index).display()
+    )
 }
 
 fn local(args: &LocalArgs) -> Result<u8> {
@@ -240,7 +264,10 @@ fn local(args: &LocalArgs) -> Result<u8> {
     let mut found = false;
     for (i, outcome) in pending.iter().zip(outcomes) {
         match outcome.with_context(|| format!("shard {i}"))? {
-            ShardOutcome::Found => found = true,
+            ShardOutcome::Found => {
+                found = true;
+                println!("{}", claim_false(&args.plan, &plan, *i));
+            }
             ShardOutcome::Unknown => bail!("shard {i} ended without an answer"),
             _ => {}
         }

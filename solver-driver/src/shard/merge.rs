@@ -112,8 +112,11 @@ pub fn merge(
     let status = plan_status(plan_dir, plan.cubes.len());
     if let Some(&i) = status.found.first() {
         bail!(
-            "shard {i} found a colouring under its cube: the claim is false; see {}",
-            shard_dir(plan_dir, i).display()
+            "shard {i} found a colouring of K_{} with no monochromatic forbidden graph, so the claim R({}) <= {} is FALSE; witness: {}",
+            plan.order,
+            plan.spec,
+            plan.order,
+            super::run::witness_path(plan_dir, i).display()
         );
     }
     let pending = status.to_resubmit();

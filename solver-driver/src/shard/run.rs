@@ -84,6 +84,14 @@ pub fn plan_encoding(plan: &Plan) -> Result<CliqueEncoding> {
     Ok(encoding)
 }
 
+/// The witness a shard writes when it finds a colouring (the claim is then false).
+pub const WITNESS_FILE: &str = "witness.colouring";
+
+/// Where shard `index`'s witness is, if it found a colouring.
+pub fn witness_path(plan_dir: &Path, index: usize) -> PathBuf {
+    shard_dir(plan_dir, index).join(WITNESS_FILE)
+}
+
 /// SHA-256 of the plan directory's plan.json.
 pub fn plan_sha256(plan_dir: &Path) -> Option<String> {
     hash_file(&plan_dir.join(PLAN_FILE))
@@ -181,6 +189,13 @@ pub fn run_shard(
             if !verdict.is_valid() {
                 bail!("internal error: shard {index}'s colouring failed the independent check ({verdict})");
             }
+            // The counterexample to the claim, as a witness file of its own.
+            let text = colouring_text(
+                encoding.instance(),
+                &colouring,
+                &[format!("found by shard {index} under its cube")],
+            );
+            write_atomically(&dir.join(WITNESS_FILE), |w| w.write_all(text.as_bytes()))?;
             ShardResult {
                 index,
                 status: "found".into(),
@@ -189,7 +204,7 @@ pub fn run_shard(
                 proof_file: None,
                 proof_sha256: None,
                 proof_bytes: None,
-                colouring: Some(colouring_text(encoding.instance(), &colouring, &[])),
+                colouring: Some(text),
                 plan_sha256,
             }
         }
