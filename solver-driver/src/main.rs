@@ -86,6 +86,11 @@ fn main() -> ExitCode {
         Ok(code) => ExitCode::from(code),
         Err(error) => {
             eprintln!("ramsift: error: {error:#}");
+            // Under --json the error is JSON on stdout too, so scripts always get a record.
+            if std::env::args().any(|a| a == "--json") {
+                let record = serde_json::json!({"result": "error", "error": format!("{error:#}"), "exit_code": exit_codes::BAD_INPUT});
+                println!("{record}");
+            }
             ExitCode::from(exit_codes::BAD_INPUT)
         }
     }

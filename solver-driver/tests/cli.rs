@@ -923,3 +923,32 @@ fn ramsift_tests_checker() -> String {
     }
     path.to_str().unwrap().to_string()
 }
+
+#[test]
+fn input_errors_under_json_are_json_records() {
+    for args in [
+        &["find", "3,x", "5", "--json"][..],
+        &[
+            "refute",
+            "3,3",
+            "6",
+            "--out",
+            "/nonexistent/r",
+            "--max-memory",
+            "1M",
+            "--json",
+        ],
+        &["scan", "3,3", "--from", "9", "--to", "5", "--json"],
+    ] {
+        let o = ramsift(args);
+        assert_eq!(o.status.code(), Some(2), "{args:?}");
+        let record: serde_json::Value =
+            serde_json::from_str(stdout(&o).trim()).expect("one JSON record");
+        assert_eq!(record["result"], "error", "{args:?}");
+        assert_eq!(record["exit_code"], 2);
+        assert!(!record["error"].as_str().unwrap().is_empty());
+    }
+    // Counts read as words: one attempt, not "1 attempts".
+    let o = ramsift(&["find", "3,3", "5"]);
+    assert!(stdout(&o).contains("1 attempt,"), "{}", stdout(&o));
+}

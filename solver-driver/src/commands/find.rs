@@ -110,6 +110,11 @@ impl FindArgs {
     }
 }
 
+/// "1 attempt", "2 attempts".
+fn count(n: u64, noun: &str) -> String {
+    format!("{n} {noun}{}", if n == 1 { "" } else { "s" })
+}
+
 pub fn run(args: &FindArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
     if let Some(dir) = &args.out {
@@ -143,8 +148,8 @@ pub fn run(args: &FindArgs) -> Result<u8> {
         let tick = |elapsed| {
             line.update(|| {
                 format!(
-                    "{instance}: {method}, {} attempts, {} elapsed, {} MiB of proof steps",
-                    progress.attempts.load(Ordering::Relaxed),
+                    "{instance}: {method}, {}, {} elapsed, {} MiB of proof steps",
+                    count(progress.attempts.load(Ordering::Relaxed), "attempt"),
                     seconds(elapsed),
                     progress.proof_bytes.load(Ordering::Relaxed) >> 20
                 )
@@ -221,11 +226,11 @@ pub fn run(args: &FindArgs) -> Result<u8> {
         match &report.result {
             SearchResult::Found { colouring, found_by } => {
                 let found = format!(
-                    "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({}) > {} ({:.2}s, {} attempts, {found_by})",
+                    "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({}) > {} ({:.2}s, {}, {found_by})",
                     instance.spec(),
                     instance.order(),
                     report.elapsed.as_secs_f64(),
-                    report.attempts
+                    count(report.attempts, "attempt")
                 );
                 if args.out.is_some() {
                     println!("{found}");
@@ -247,10 +252,10 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                     report.elapsed.as_secs_f64()
                 ),
                 None => println!(
-                    "UNKNOWN {instance}: no answer {} ({:.2}s, {} attempts)",
+                    "UNKNOWN {instance}: no answer {} ({:.2}s, {})",
                     ramsift_driver::interrupt::stopped_because(),
                     report.elapsed.as_secs_f64(),
-                    report.attempts
+                    count(report.attempts, "attempt")
                 ),
             },
         }
