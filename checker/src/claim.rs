@@ -1,7 +1,7 @@
 //! The forbidden-graph list of a claim, read with the checker's own parser:
 //! `4,4` means colour 1 and colour 2 both forbid K4; `C4,K4` means colour 1 forbids
-//! the 4-cycle. Entries: `k` or `Kk` (clique), `Kk-e`, `Ck`, `Pk`, `Sk` (star with k
-//! leaves), `Ka:b`, `Wk` (hub joined to C_k), `Bk` (k triangles on one edge),
+//! the 4-cycle. Entries: `k` or `Kk` (clique), `Kk-e`, `Ck`, `Pk`, `Ka:b` (`K1:k` a
+//! star), `W_n` (hub joined to C_{n-1}: n vertices, as in DS1), `Bk` (k triangles on one edge),
 //! `G6:…` (graph6) and `E:a-b/c-d/…` (edge list). This parser is written apart
 //! from the encoder's on purpose; entries naming a complete graph are cliques.
 
@@ -140,15 +140,12 @@ fn parse_entry(index: usize, token: &str) -> Result<ClaimGraph, String> {
             let k = need(whole(rest), 2, "a path needs at least 2 vertices")?;
             (format!("P{k}"), k, (1..k).map(|i| (i - 1, i)).collect())
         }
-        'S' => {
-            let k = need(whole(rest), 1, "a star needs a leaf")?;
-            (format!("K1:{k}"), k + 1, (1..=k).map(|i| (0, i)).collect())
+        'W' if rest.starts_with('_') => {
+            let n = need(whole(&rest[1..]), 4, "a wheel W_n needs n >= 4 vertices")?;
+            let pairs = (0..n - 1).flat_map(|i| [(i, (i + 1) % (n - 1)), (i, n - 1)]).collect();
+            (format!("W_{n}"), n, pairs)
         }
-        'W' => {
-            let k = need(whole(rest), 3, "a wheel needs a rim of at least 3")?;
-            let pairs = (0..k).flat_map(|i| [(i, (i + 1) % k), (i, k)]).collect();
-            (format!("W{k}"), k + 1, pairs)
-        }
+        'W' | 'S' => return Err(bad("ambiguous in the literature: write W_n (n vertices) or K1:k (a star)")),
         'B' => {
             let k = need(whole(rest), 1, "a book needs a page")?;
             let pairs = std::iter::once((0, 1)).chain((2..k + 2).flat_map(|p| [(0, p), (1, p)])).collect();
@@ -223,6 +220,17 @@ mod tests {
     fn rejects_bad_lists() {
         for bad in ["", "4", "4,", "4,x", "4,1", "KK4,4", "-4,4", "4.5,4", "C2,4", "E:0-0,4", "G6:D,4", "Q4,4"] {
             assert!(Claim::parse(bad).is_err(), "{bad:?} accepted");
+        }
+    }
+
+    #[test]
+    fn wheels_follow_the_survey_and_old_spellings_are_refused() {
+        // W_n = K_1 + C_{n-1} has n vertices and 2(n-1) edges (Radziszowski DS1, from memory).
+        let wheel = &Claim::parse("W_6,3").unwrap().forbidden[0];
+        assert_eq!((wheel.vertices(), wheel.edge_list().len()), (6, 10));
+        assert_eq!(Claim::parse("W_4,3").unwrap().clique_sizes(), Some(vec![4, 3]), "W_4 is K_4");
+        for old in ["W5,3", "S3,3", "W_3,3"] {
+            assert!(Claim::parse(old).is_err(), "{old:?} accepted");
         }
     }
 }

@@ -10,10 +10,14 @@
 //! | `K4-e` | K_4 minus an edge |
 //! | `C5` | the cycle on 5 vertices |
 //! | `P4` | the path on 4 vertices |
-//! | `S3` | the star K_{1,3} (3 leaves) |
+//! | `K1:3` | the star K_{1,3} (3 leaves) |
 //! | `K2:3` | the complete bipartite graph K_{2,3} |
-//! | `W5` | the wheel: a hub joined to every vertex of C_5 (6 vertices) |
-//! | `B3` | the book: 3 triangles sharing one edge (5 vertices) |
+//! | `W_6` | the wheel W_6 of the survey: a hub joined to every vertex of C_5 (6 vertices) |
+//! | `B3` | the book B_3 = K_2 + 3K_1: 3 triangles sharing one edge (5 vertices) |
+//!
+//! Names follow Radziszowski's survey (DS1): W_n has n vertices. The spellings
+//! `Wk` (once a hub joined to C_k) and `Sk` (once K_{1,k}) are refused with a
+//! message, since the literature reads them otherwise.
 //! | `G6:Dhc` | any graph in graph6 |
 //! | `E:0-1/1-2/2-0` | any graph as an edge list (vertices 0..max) |
 //!
@@ -41,7 +45,7 @@ pub const MAX_ORDER: usize = 65_536;
 pub enum SpecError {
     #[error("empty specification: expected a comma list of clique sizes such as 4,4")]
     Empty,
-    #[error("entry {position} of the specification is {token:?}: expected a clique size such as 4 or K4, or a graph such as C5, P4, S3, K2:3, W5, B3, K4-e, G6:Dhc or E:0-1/1-2")]
+    #[error("entry {position} of the specification is {token:?}: expected a clique size such as 4 or K4, or a graph such as C5, P4, K1:3, K2:3, W_6, B3, K4-e, G6:Dhc or E:0-1/1-2")]
     BadEntry { position: usize, token: String },
     #[error("entry {position} of the specification ({token}) is not usable: {reason}")]
     BadGraph {
@@ -178,21 +182,33 @@ impl Forbidden {
                     (SmallGraph::path(k), format!("P{k}"))
                 }
                 "S" => {
+                    // The literature writes S_n both for K_{1,n} and for K_{1,n-1}.
                     let k = number(rest)?;
-                    if k < 1 {
-                        return Err(unusable("a star needs at least 1 leaf".into()));
-                    }
-                    (SmallGraph::complete_bipartite(1, k), format!("K1:{k}"))
+                    return Err(unusable(format!(
+                        "stars are written K1:{k} (centre and {k} leaves): S{k} is ambiguous, and ramsift no longer reads it (it used to mean K1:{k})"
+                    )));
                 }
-                "W" => {
-                    let k = number(rest)?;
-                    if k < 3 {
-                        return Err(unusable(
-                            "a wheel needs a rim of at least 3 vertices".into(),
-                        ));
+                "W" => match rest.strip_prefix('_') {
+                    // W_n has n vertices: a hub joined to C_{n-1} (Radziszowski DS1).
+                    Some(n) => {
+                        let n = number(n)?;
+                        if n < 4 {
+                            return Err(unusable(
+                                "a wheel W_n needs n ≥ 4 vertices (a hub and a cycle)".into(),
+                            ));
+                        }
+                        (SmallGraph::wheel(n - 1), format!("W_{n}"))
                     }
-                    (SmallGraph::wheel(k), format!("W{k}"))
-                }
+                    None => {
+                        let k = number(rest)?;
+                        return Err(unusable(format!(
+                            "W{k} is no longer read: it used to mean a hub joined to C_{k} ({} vertices), but the survey's W_n has n vertices; write W_{} for that graph, or W_{k} for a hub joined to C_{}",
+                            k + 1,
+                            k + 1,
+                            k.saturating_sub(1)
+                        )));
+                    }
+                },
                 "B" => {
                     let k = number(rest)?;
                     if k < 1 {
@@ -379,6 +395,19 @@ impl fmt::Display for Instance {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn wheels_follow_the_survey_and_old_spellings_are_refused() {
+        // W_n = K_1 + C_{n-1} has n vertices and 2(n-1) edges (Radziszowski DS1, from memory).
+        let spec: RamseySpec = "W_6,3".parse().unwrap();
+        let wheel = spec.forbidden()[0].graph();
+        assert_eq!((wheel.vertex_count(), wheel.edges().len()), (6, 10));
+        assert_eq!(spec.to_string(), "W_6,3");
+        for (old, says) in [("W5,3", "write W_6"), ("S3,3", "K1:3"), ("W_3,3", "n ≥ 4")] {
+            let error = old.parse::<RamseySpec>().unwrap_err().to_string();
+            assert!(error.contains(says), "{old}: {error}");
+        }
+    }
 
     #[test]
     fn parses_comma_lists() {

@@ -277,7 +277,7 @@ fn forbidden_graphs_other_than_cliques_keep_every_class() {
         for (text, n) in [
             ("C4,C4", 5),
             ("C5,C5", 6),
-            ("C4,S3", 5),
+            ("C4,K1:3", 5),
             ("P4,K4-e", 6),
             ("C4,C4,P3", 4),
         ] {

@@ -23,9 +23,9 @@ fn main() {
 
     println!("| forbidden graph (colour 1; colour 2 forbids K2) | n | clauses | median seconds | clauses/s |");
     println!("|---|---|---|---|---|");
-    // C7 (6.7e9 clauses) and W6 (7.8e9) at n = 40 are far beyond any solver; stop at
+    // C7 (6.7e9 clauses) and W_7 (7.8e9) at n = 40 are far beyond any solver; stop at
     // the sizes a run can hold.
-    for graph in ["C4", "C5", "C6", "W4", "W5"] {
+    for graph in ["C4", "C5", "C6", "W_5", "W_6"] {
         let n = 40;
         let spec: RamseySpec = format!("{graph},2").parse().unwrap();
         let instance = Instance::new(spec, n).unwrap();

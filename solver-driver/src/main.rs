@@ -20,7 +20,7 @@ use ramsift_driver::exit_codes;
         A specification lists the forbidden graph of each colour: `4,4` asks for \
         2-colourings of the edges of K_n with no monochromatic K4, `3,3,3` for \
         3-colourings with no monochromatic triangle, `C4,K4` for no colour-1 4-cycle \
-        and no colour-2 K4 (entries: Kk, Kk-e, Ck, Pk, Sk, Ka:b, Wk, Bk, G6:..., \
+        and no colour-2 K4 (entries: Kk, Kk-e, Ck, Pk, Ka:b (K1:k a star), W_n (n vertices), Bk, G6:..., \
         E:0-1/1-2/...).\n\n\
         Exit codes: 10 a colouring was found, 20 none exists, 0 success of other \
         commands, 1 timeout or unknown, 2 bad input or an error."

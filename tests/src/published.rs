@@ -92,7 +92,7 @@ pub const GRAPH_VALUES: &[GraphRamseyValue] = &[
         source: "Chvátal & Harary 1972; DS1 (from memory)",
     },
     GraphRamseyValue {
-        spec: "S3,S3",
+        spec: "K1:3,K1:3",
         value: 6,
         source: "R(K1,n, K1,m) = n + m - e, e = 1 iff n and m are both even (Harary 1972; DS1; from memory)",
     },

@@ -41,7 +41,7 @@ proptest! {
     #[test]
     fn satisfies_cnf_iff_checker_accepts_for_graphs(
         entries in proptest::collection::vec(
-            proptest::sample::select(vec!["C4", "C5", "P4", "S3", "K4-e", "K2:3", "W4", "B2", "3", "G6:Dhc", "E:0-1/1-2/2-3/3-0/0-2"]),
+            proptest::sample::select(vec!["C4", "C5", "P4", "K1:3", "K4-e", "K2:3", "W_5", "B2", "3", "G6:Dhc", "E:0-1/1-2/2-3/3-0/0-2"]),
             2..=3,
         ),
         order in 5usize..=7,

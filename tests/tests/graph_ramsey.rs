@@ -89,12 +89,12 @@ fn witnesses_below_and_certified_refutations_at_each_value() {
 #[test]
 fn one_clause_per_copy() {
     // Copies of G in K_n: n!/((n−v)!·|Aut G|) (common practice). |Aut| values:
-    // C_k dihedral (2k), K_{1,3} (3! = 6), W_5 (10), B_2 = K_4 − e (4), P_4 (2).
+    // C_k dihedral (2k), K_{1,3} (3! = 6), W_6 = hub + C_5 (10), B_2 = K_4 − e (4), P_4 (2).
     for (spec, n, v, aut) in [
         ("C4,2", 8, 4, 8u128),
         ("C5,2", 9, 5, 10),
-        ("S3,2", 7, 4, 6),
-        ("W5,2", 8, 6, 10),
+        ("K1:3,2", 7, 4, 6),
+        ("W_6,2", 8, 6, 10),
         ("K4-e,2", 9, 4, 4),
         ("P4,2", 10, 4, 2),
         ("C7,2", 9, 7, 14),

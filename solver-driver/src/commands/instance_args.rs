@@ -10,7 +10,7 @@ use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, Symm
 #[derive(Args, Clone, Debug)]
 pub struct InstanceArgs {
     /// Forbidden graph of each colour, comma separated: clique sizes (4,4 or 3,3,3) or
-    /// graphs (C4,K4; entries Kk, Kk-e, Ck, Pk, Sk, Ka:b, Wk, Bk, G6:…, E:0-1/1-2…).
+    /// graphs (C4,K4; entries Kk, Kk-e, Ck, Pk, Ka:b (K1:k a star), W_n (n vertices), Bk, G6:…, E:0-1/1-2…).
     #[arg(value_name = "SPEC")]
     pub spec: String,
     /// Order n of the complete graph K_n whose edges are coloured.
