@@ -59,7 +59,7 @@ fn forbid_overrides_the_header_claim() {
     assert_eq!(o.status.code(), Some(1));
     let o = check(&["colouring", path.to_str().unwrap(), "--forbid", "4,4", "--json"]);
     assert_eq!(o.status.code(), Some(0));
-    assert!(text(&o.stdout).contains("\"verdict\":\"PASS\""));
+    assert!(text(&o.stdout).contains("\"verdict\": \"PASS\""));
 }
 
 #[test]

@@ -41,7 +41,7 @@ fn worked_examples_verify_and_lrat_is_emitted() {
     let emitted = dir.path().join("emitted.lrat");
     let o = check(&["drat", p(&cnf), p(&drat), "--emit-lrat", p(&emitted), "--json"]);
     assert_eq!(o.status.code(), Some(0), "{}", text(&o.stderr));
-    assert!(text(&o.stdout).contains("\"verdict\":\"PASS\""));
+    assert!(text(&o.stdout).contains("\"verdict\": \"PASS\""));
     let o = check(&["lrat", p(&cnf), p(&emitted)]);
     assert_eq!(o.status.code(), Some(0), "emitted LRAT: {}", text(&o.stdout));
 

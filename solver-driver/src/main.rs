@@ -89,7 +89,10 @@ fn main() -> ExitCode {
             // Under --json the error is JSON on stdout too, so scripts always get a record.
             if std::env::args().any(|a| a == "--json") {
                 let record = serde_json::json!({"result": "error", "error": format!("{error:#}"), "exit_code": exit_codes::BAD_INPUT});
-                println!("{record}");
+                println!(
+                    "{}",
+                    serde_json::to_string_pretty(&record).unwrap_or_default()
+                );
             }
             ExitCode::from(exit_codes::BAD_INPUT)
         }

@@ -209,7 +209,7 @@ fn refute_writes_a_bundle_that_passes_unconditionally() {
     ]);
     assert_eq!(o.status.code(), Some(20), "{}", stderr(&o));
     let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
-    assert_eq!(summary["claim"], "R(4,4) <= 18");
+    assert_eq!(summary["proves"], "R(4,4) <= 18");
     assert_eq!(summary["premises"][0], "R(3,4) <= 9");
     let verdict = check_bundle(&out, &[]).unwrap();
     assert!(verdict.passed(), "{:?}", verdict.failure);
@@ -951,4 +951,138 @@ fn input_errors_under_json_are_json_records() {
     // Counts read as words: one attempt, not "1 attempts".
     let o = ramsift(&["find", "3,3", "5"]);
     assert!(stdout(&o).contains("1 attempt,"), "{}", stdout(&o));
+}
+
+#[test]
+fn every_command_speaks_the_same_json() {
+    let dir = tempfile::tempdir().unwrap();
+    let p = |name: &str| dir.path().join(name).to_str().unwrap().to_string();
+    let (plan, witness) = (p("plan"), p("w"));
+    ramsift(&["find", "3,3", "5", "--out", &witness, "-q"]);
+    // Each command with the fields its record documents (README "One JSON record").
+    let runs: Vec<(Vec<String>, &[&str])> = vec![
+        (
+            vec!["find".into(), "3,3".into(), "5".into()],
+            &["instance", "proves", "colouring", "seconds"],
+        ),
+        (
+            vec![
+                "refute".into(),
+                "3,3".into(),
+                "6".into(),
+                "--out".into(),
+                p("r"),
+            ],
+            &["proves", "bundle", "seconds", "files"],
+        ),
+        (
+            vec![
+                "scan".into(),
+                "3,4".into(),
+                "--from".into(),
+                "7".into(),
+                "--to".into(),
+                "8".into(),
+                "--circulant".into(),
+            ],
+            &["orders", "largest_found", "seconds"],
+        ),
+        (
+            vec![
+                "encode".into(),
+                "3,3".into(),
+                "5".into(),
+                "--out".into(),
+                p("f.cnf"),
+            ],
+            &["variables", "clauses", "seconds"],
+        ),
+        (
+            vec![
+                "enumerate".into(),
+                "3,3".into(),
+                "5".into(),
+                "--out".into(),
+                p("e.g6"),
+            ],
+            &["classes", "seconds"],
+        ),
+        (vec!["bounds".into(), "3,4".into()], &["rows", "spec"]),
+        (
+            vec![
+                "draw".into(),
+                format!("{witness}/witness.colouring"),
+                "--out".into(),
+                p("f.svg"),
+            ],
+            &["figure", "order"],
+        ),
+        (
+            vec![
+                "shard".into(),
+                "plan".into(),
+                "3,4".into(),
+                "9".into(),
+                "--shards".into(),
+                "2".into(),
+                "--symmetry".into(),
+                "lex-leader".into(),
+                "--out".into(),
+                plan.clone(),
+            ],
+            &["cubes", "shards"],
+        ),
+        (
+            vec!["shard".into(), "status".into(), plan.clone()],
+            &["done", "missing"],
+        ),
+        (
+            vec![
+                "shard".into(),
+                "run".into(),
+                plan.clone(),
+                "--index".into(),
+                "0".into(),
+            ],
+            &["shard"],
+        ),
+        (
+            vec!["shard".into(), "local".into(), plan.clone()],
+            &["ran", "found"],
+        ),
+        (
+            vec![
+                "shard".into(),
+                "merge".into(),
+                plan.clone(),
+                "--out".into(),
+                p("m"),
+            ],
+            &["proves", "bundle", "seconds"],
+        ),
+        (vec!["find".into(), "3,x".into(), "5".into()], &["error"]),
+    ];
+    for (mut args, fields) in runs {
+        args.push("--json".into());
+        let refs: Vec<&str> = args.iter().map(String::as_str).collect();
+        let o = ramsift(&refs);
+        let record: serde_json::Value = serde_json::from_str(&stdout(&o))
+            .unwrap_or_else(|e| panic!("{args:?}: not one JSON record ({e}): {}", stdout(&o)));
+        assert!(record["result"].is_string(), "{args:?}: {record}");
+        assert_eq!(
+            record["exit_code"].as_i64(),
+            o.status.code().map(i64::from),
+            "{args:?}"
+        );
+        for field in fields {
+            assert!(
+                record.get(*field).is_some(),
+                "{args:?} lacks {field}: {record}"
+            );
+        }
+        assert!(
+            record.get("solve_seconds").is_none() && record.get("claim").is_none(),
+            "{args:?}"
+        );
+    }
 }

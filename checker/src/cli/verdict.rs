@@ -73,7 +73,7 @@ impl Report {
             object.insert("exit_code".into(), json!(code));
             object.insert("reason".into(), json!(self.reason));
             object.extend(self.fields);
-            println!("{}", Value::Object(object));
+            println!("{}", serde_json::to_string_pretty(&Value::Object(object)).unwrap_or_default());
         } else {
             for line in &self.lines {
                 println!("{line}");

@@ -7,6 +7,7 @@ use anyhow::{Context, Result};
 use clap::Args;
 use serde::Serialize;
 
+use super::record::print_record;
 use ramsift_checker::Claim;
 use ramsift_driver::bounds::certified::{certificates, Certificate};
 use ramsift_driver::bounds::probabilistic::{deletion_lower, erdos_lower, spencer_lower};
@@ -130,7 +131,7 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         certified,
     };
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&report)?);
+        print_record(&report, "done", exit_codes::SUCCESS)?;
         return Ok(exit_codes::SUCCESS);
     }
     println!("Bounds for R({spec}):");

@@ -10,6 +10,7 @@ use anyhow::{Context, Result};
 use clap::Args;
 use serde::Serialize;
 
+use super::record::print_record;
 use ramsift_checker::check_colouring;
 use ramsift_checker::colouring_file::parse_colouring_file;
 use ramsift_driver::exit_codes;
@@ -151,7 +152,16 @@ pub fn run(args: &DemoArgs) -> Result<u8> {
     }
     let all_expected = rows.iter().all(|r| r.as_expected);
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&rows)?);
+        let code = if all_expected {
+            exit_codes::SUCCESS
+        } else {
+            exit_codes::UNKNOWN
+        };
+        print_record(
+            serde_json::json!({ "rows": rows }),
+            if all_expected { "done" } else { "unexpected" },
+            code,
+        )?;
     } else {
         println!(
             "{:<16} {:<24} {:>8}  {:<14} proves",

@@ -33,6 +33,9 @@ pub struct DrawArgs {
     /// Width of the drawing: pixels for SVG, centimetres for TikZ.
     #[arg(long)]
     pub size: Option<f64>,
+    /// Print the result as one JSON record on stdout.
+    #[arg(long)]
+    pub json: bool,
 }
 
 pub fn run(args: &DrawArgs) -> Result<u8> {
@@ -104,7 +107,7 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
         colours,
         cells,
         shown,
-        title: Some(title),
+        title: Some(title.clone()),
     };
     let layout = if args.layout == "matrix" {
         Layout::Matrix
@@ -141,6 +144,12 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
     };
     write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
         .with_context(|| format!("writing {}", args.out.display()))?;
-    println!("wrote {}", args.out.display());
+    if args.json {
+        let record =
+            serde_json::json!({"figure": args.out, "order": n, "colours": colours, "title": title});
+        super::record::print_record(record, "written", exit_codes::SUCCESS)?;
+    } else {
+        println!("wrote {}", args.out.display());
+    }
     Ok(exit_codes::SUCCESS)
 }

@@ -11,6 +11,7 @@ use ramsift_driver::exit_codes;
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::instance_args::InstanceArgs;
+use super::record::print_record;
 
 #[derive(Args, Debug)]
 pub struct EncodeArgs {
@@ -51,7 +52,7 @@ pub fn run(args: &EncodeArgs) -> Result<u8> {
         seconds: started.elapsed().as_secs_f64(),
     };
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&summary)?);
+        print_record(&summary, "written", exit_codes::SUCCESS)?;
     } else {
         println!(
             "wrote {}: {} as DIMACS CNF, {} variables, {} clauses, {} bytes, {:.2}s",

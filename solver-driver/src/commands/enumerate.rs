@@ -20,6 +20,7 @@ use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
+use super::record::print_record;
 
 #[derive(Args, Debug)]
 pub struct EnumerateArgs {
@@ -118,7 +119,20 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         summary.file = Some(args.out.clone());
     }
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&summary)?);
+        let code = if result.complete {
+            exit_codes::SUCCESS
+        } else {
+            exit_codes::UNKNOWN
+        };
+        print_record(
+            &summary,
+            if result.complete {
+                "complete"
+            } else {
+                "unknown"
+            },
+            code,
+        )?;
     } else if result.complete {
         println!(
             "{} colouring(s) of {instance} up to {up_to} ({} labelled colourings enumerated under {}, {:.2}s)",

@@ -19,6 +19,7 @@ use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
+use super::record::print_record;
 
 #[derive(Args, Debug)]
 pub struct FindArgs {
@@ -221,7 +222,7 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     }
 
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&summary)?);
+        print_record(&summary, &summary.result, summary.exit_code)?;
     } else {
         match &report.result {
             SearchResult::Found { colouring, found_by } => {

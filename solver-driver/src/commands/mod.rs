@@ -8,6 +8,7 @@ pub mod enumerate;
 pub mod find;
 pub mod instance_args;
 pub mod progress;
+pub mod record;
 pub mod refute;
 pub mod scan;
 pub mod shard;

@@ -14,6 +14,7 @@ use ramsift_driver::witness::{colouring_text, write_witness_files};
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
+use super::record::print_record;
 
 /// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements):
 /// `default` means colour-swap, lex-leader and degree-bounds when every colour forbids
@@ -116,20 +117,17 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                 ramsift_driver::bundle::write_guide(&args.out, manifest)?;
             }
             if args.json {
-                println!(
-                    "{}",
-                    serde_json::to_string_pretty(&json!({
-                        "result": "refuted",
-                        "claim": manifest.claim.statement,
-                        "bundle": args.out,
-                        "symmetry": manifest.encoding.symmetry,
-                        "premises": manifest.premises.iter().map(|p| &p.statement).collect::<Vec<_>>(),
-                        "solve_seconds": report.solve_seconds,
-                        "proof_bytes": proof_bytes,
-                        "files": files,
-                        "exit_code": exit_codes::NONE_EXISTS,
-                    }))?
-                );
+                let record = json!({
+                    "instance": instance.to_string(),
+                    "proves": manifest.claim.statement,
+                    "bundle": args.out,
+                    "symmetry": manifest.encoding.symmetry,
+                    "premises": manifest.premises.iter().map(|p| &p.statement).collect::<Vec<_>>(),
+                    "seconds": report.solve_seconds,
+                    "proof_bytes": proof_bytes,
+                    "files": files,
+                });
+                print_record(record, "refuted", exit_codes::NONE_EXISTS)?;
             } else {
                 println!(
                     "REFUTED {instance}: no colouring exists, so R({spec}) <= {n}; DRAT trace of {proof_bytes} bytes in {:.2}s",
@@ -150,13 +148,12 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             let files = write_witness_files(&args.out, &instance, colouring, &comments)
                 .with_context(|| format!("writing the witness into {}", args.out.display()))?;
             if args.json {
-                println!(
-                    "{}",
-                    serde_json::to_string_pretty(&json!({
-                        "result": "found", "proves": format!("R({spec}) > {n}"),
-                        "files": files, "solve_seconds": report.solve_seconds, "exit_code": exit_codes::FOUND,
-                    }))?
-                );
+                let record = json!({
+                    "instance": instance.to_string(), "proves": format!("R({spec}) > {n}"),
+                    "colouring": ramsift_driver::witness::colouring_rows(colouring),
+                    "files": files, "seconds": report.solve_seconds,
+                });
+                print_record(record, "found", exit_codes::FOUND)?;
             } else {
                 println!(
                     "FOUND {instance}: a colouring exists, so R({spec}) > {n}; nothing to refute"
@@ -170,12 +167,9 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
         }
         RefuteResult::Unknown => {
             if args.json {
-                println!(
-                    "{}",
-                    serde_json::to_string_pretty(
-                        &json!({"result": "unknown", "solve_seconds": report.solve_seconds, "exit_code": exit_codes::UNKNOWN})
-                    )?
-                );
+                let record =
+                    json!({"instance": instance.to_string(), "seconds": report.solve_seconds});
+                print_record(record, "unknown", exit_codes::UNKNOWN)?;
             } else {
                 println!(
                     "UNKNOWN {instance}: no answer {} ({:.2}s); no bundle written",

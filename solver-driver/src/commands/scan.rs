@@ -16,6 +16,7 @@ use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::{Instance, RamseySpec};
 
 use super::progress::ProgressLine;
+use super::record::print_record;
 
 #[derive(Args, Debug)]
 pub struct ScanArgs {
@@ -226,7 +227,7 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
     }
 
     if args.json {
-        println!("{}", serde_json::to_string_pretty(&summary)?);
+        print_record(&summary, "done", exit_codes::SUCCESS)?;
     } else {
         println!(
             "{choice} colourings for R({spec}), orders {} to {}:",

@@ -19,6 +19,7 @@ use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::instance_args::{timeout_of, InstanceArgs};
+use super::record::print_record;
 use super::refute::DEFAULT_REFUTE_SYMMETRY;
 
 #[derive(Subcommand, Debug)]
@@ -53,6 +54,9 @@ pub struct PlanArgs {
     /// Symmetry breaking (as for refute).
     #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
     pub symmetry: String,
+    /// Print the result as one JSON record on stdout.
+    #[arg(long)]
+    pub json: bool,
 }
 
 #[derive(Args, Debug)]
@@ -65,6 +69,9 @@ pub struct RunArgs {
     /// Give up on the shard after this many seconds (exit 1; nothing is kept).
     #[arg(long, value_name = "SECONDS")]
     pub timeout: Option<f64>,
+    /// Print the result as one JSON record on stdout.
+    #[arg(long)]
+    pub json: bool,
 }
 
 #[derive(Args, Debug)]
@@ -74,6 +81,9 @@ pub struct LocalArgs {
     /// Shards run at once (default: all cores).
     #[arg(long)]
     pub threads: Option<usize>,
+    /// Print the result as one JSON record on stdout.
+    #[arg(long)]
+    pub json: bool,
 }
 
 #[derive(Args, Debug)]
@@ -124,6 +134,9 @@ pub struct MergeArgs {
     /// Do not certify the premises of degree bounds (see `refute --assume-premises`).
     #[arg(long)]
     pub assume_premises: bool,
+    /// Print the result as one JSON record on stdout.
+    #[arg(long)]
+    pub json: bool,
 }
 
 pub fn run(command: &ShardCommand) -> Result<u8> {
@@ -141,6 +154,16 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                 args.single_trace,
                 !args.assume_premises,
             )?;
+            if args.json {
+                let plan = read_plan(&args.plan)?;
+                let record = serde_json::json!({
+                    "proves": format!("R({}) <= {}", plan.spec, plan.order), "bundle": args.out,
+                    "seconds": report.shard_seconds, "trace_bytes": report.trace_bytes,
+                    "composed_trace": report.composed_trace, "files": report.files,
+                });
+                print_record(record, "refuted", exit_codes::NONE_EXISTS)?;
+                return Ok(exit_codes::NONE_EXISTS);
+            }
             println!(
                 "merged {} into {}: shard time {:.2}s in all, {} bytes of shard traces",
                 args.plan.display(),
@@ -169,6 +192,14 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let plan = plan_cubes(&encoding, args.shards, sha);
     let json = serde_json::to_string_pretty(&plan)?;
     write_atomically(&args.out.join(PLAN_FILE), |w| w.write_all(json.as_bytes()))?;
+    if args.json {
+        let record = serde_json::json!({
+            "instance": encoding.instance().to_string(), "plan": args.out, "shards": plan.cubes.len(),
+            "symmetry": encoding.symmetry().to_string(), "cubes": plan.cubes,
+        });
+        print_record(record, "planned", exit_codes::SUCCESS)?;
+        return Ok(exit_codes::SUCCESS);
+    }
     println!(
         "planned {} as {} shards in {} [{}]",
         encoding.instance(),
@@ -213,6 +244,29 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         &AtomicBool::new(false),
     )?;
     let plan = read_plan(&args.plan)?;
+    let code = match outcome {
+        // 0, not 20: a Slurm array task that exits non-zero counts as failed.
+        ShardOutcome::AlreadyDone | ShardOutcome::Refuted => exit_codes::SUCCESS,
+        ShardOutcome::Found => exit_codes::FOUND,
+        ShardOutcome::Unknown => exit_codes::UNKNOWN,
+    };
+    if args.json {
+        let (word, witness) = match outcome {
+            ShardOutcome::AlreadyDone => ("already-done", None),
+            ShardOutcome::Refuted => ("refuted", None),
+            ShardOutcome::Found => (
+                "found",
+                Some(ramsift_driver::shard::run::witness_path(&args.plan, index)),
+            ),
+            ShardOutcome::Unknown => ("unknown", None),
+        };
+        print_record(
+            serde_json::json!({"shard": index, "witness": witness}),
+            word,
+            code,
+        )?;
+        return Ok(code);
+    }
     match outcome {
         ShardOutcome::AlreadyDone => {
             println!("shard {index}: already done (its result is complete)")
@@ -221,12 +275,7 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         ShardOutcome::Unknown => println!("shard {index}: no answer within the time limit"),
         ShardOutcome::Found => println!("{}", claim_false(&args.plan, &plan, index)),
     }
-    Ok(match outcome {
-        // 0, not 20: a Slurm array task that exits non-zero counts as failed.
-        ShardOutcome::AlreadyDone | ShardOutcome::Refuted => exit_codes::SUCCESS,
-        ShardOutcome::Found => exit_codes::FOUND,
-        ShardOutcome::Unknown => exit_codes::UNKNOWN,
-    })
+    Ok(code)
 }
 
 /// The words for a shard that found a colouring: the claim is false, and where
@@ -261,27 +310,46 @@ fn local(args: &LocalArgs) -> Result<u8> {
             .map(|&i| run_shard(&args.plan, i, None, &stop))
             .collect()
     });
-    let mut found = false;
+    let mut found = Vec::new();
     for (i, outcome) in pending.iter().zip(outcomes) {
         match outcome.with_context(|| format!("shard {i}"))? {
             ShardOutcome::Found => {
-                found = true;
-                println!("{}", claim_false(&args.plan, &plan, *i));
+                found.push(*i);
+                if !args.json {
+                    println!("{}", claim_false(&args.plan, &plan, *i));
+                }
             }
             ShardOutcome::Unknown => bail!("shard {i} ended without an answer"),
             _ => {}
         }
+    }
+    let code = if found.is_empty() {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::FOUND
+    };
+    if args.json {
+        let witnesses: Vec<_> = found
+            .iter()
+            .map(|&i| ramsift_driver::shard::run::witness_path(&args.plan, i))
+            .collect();
+        let record = serde_json::json!({
+            "ran": pending.len(), "already_done": plan.cubes.len() - pending.len(), "threads": threads,
+            "found": found, "witnesses": witnesses,
+        });
+        print_record(
+            record,
+            if found.is_empty() { "refuted" } else { "found" },
+            code,
+        )?;
+        return Ok(code);
     }
     println!(
         "ran {} shards on {threads} threads ({} were already done)",
         pending.len(),
         plan.cubes.len() - pending.len()
     );
-    Ok(if found {
-        exit_codes::FOUND
-    } else {
-        exit_codes::SUCCESS
-    })
+    Ok(code)
 }
 
 fn slurm(args: &SlurmArgs) -> Result<u8> {
@@ -314,14 +382,24 @@ fn status(args: &StatusArgs) -> Result<u8> {
     let plan = read_plan(&args.plan)?;
     let s = plan_status(&args.plan, plan.cubes.len());
     let resubmit = s.to_resubmit();
+    let code = if resubmit.is_empty() && s.found.is_empty() {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::UNKNOWN
+    };
     if args.json {
-        println!(
-            "{}",
-            serde_json::json!({
-                "shards": plan.cubes.len(), "done": s.done.len(), "found": s.found,
-                "damaged": s.damaged, "missing": s.missing, "partial": s.partial, "resubmit_array": array_list(&resubmit),
-            })
-        );
+        let record = serde_json::json!({
+            "shards": plan.cubes.len(), "done": s.done.len(), "found": s.found,
+            "damaged": s.damaged, "missing": s.missing, "partial": s.partial, "resubmit_array": array_list(&resubmit),
+        });
+        let word = if !s.found.is_empty() {
+            "found"
+        } else if resubmit.is_empty() {
+            "done"
+        } else {
+            "pending"
+        };
+        print_record(record, word, code)?;
     } else {
         println!(
             "{}: {} shards: {} done, {} failed ({} found a colouring, {} damaged), {} missing ({} with partial files: running or interrupted)",
@@ -342,9 +420,5 @@ fn status(args: &StatusArgs) -> Result<u8> {
             );
         }
     }
-    Ok(if resubmit.is_empty() && s.found.is_empty() {
-        exit_codes::SUCCESS
-    } else {
-        exit_codes::UNKNOWN
-    })
+    Ok(code)
 }
