@@ -118,6 +118,9 @@ impl<W: Write> Write for InterruptSink<'_, W> {
         self.report
             .bytes
             .set(self.report.bytes.get() + buf.len() as u64);
+        if let Some(seen) = self.limits.bytes_seen {
+            seen.fetch_add(buf.len() as u64, Ordering::Relaxed);
+        }
         Ok(buf.len())
     }
 

@@ -135,3 +135,28 @@ fn a_satisfiable_instance_writes_no_bundle() {
         "no bundle files and no temporary trace"
     );
 }
+
+#[test]
+fn the_trace_size_is_counted_while_it_is_written() {
+    // What `refute`'s progress line shows: the bytes of DRAT trace so far. R(4,4) = 18
+    // (Greenwood & Gleason 1955; Radziszowski DS1).
+    let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 18).unwrap();
+    let set: SymmetrySet = "lex-leader".parse().unwrap();
+    let encoding =
+        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+    let dir = tempfile::tempdir().unwrap();
+    let seen = AtomicU64::new(0);
+    let report = refute(
+        &encoding,
+        dir.path(),
+        &RefuteOptions::default(),
+        &AtomicBool::new(false),
+        &seen,
+    )
+    .unwrap();
+    let RefuteResult::Refuted { proof_bytes, .. } = report.result else {
+        panic!("not refuted")
+    };
+    assert!(proof_bytes > 0);
+    assert_eq!(seen.load(std::sync::atomic::Ordering::Relaxed), proof_bytes);
+}
