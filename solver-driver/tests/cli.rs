@@ -1086,3 +1086,44 @@ fn every_command_speaks_the_same_json() {
         );
     }
 }
+
+#[test]
+fn a_dash_means_standard_input_or_output() {
+    // 10 edge variables and 2·C(5,3) = 20 clauses for (3,3;5) (by hand).
+    let o = ramsift(&["encode", "3,3", "5", "--out", "-"]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    assert!(stdout(&o).contains("\np cnf 10 20\n"), "{}", stdout(&o));
+    // (3,4;8): 3 colourings up to isomorphism (McKay's Ramsey-graph data).
+    let o = ramsift(&["enumerate", "3,4", "8", "--out", "-"]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    assert_eq!(stdout(&o).lines().count(), 3);
+    let checked = run_with_input(
+        &ramsift_tests_checker(),
+        &["colouring", "-", "--forbid", "3,4"],
+        &o.stdout,
+    );
+    assert_eq!(checked.status.code(), Some(0), "{}", stdout(&checked));
+    // A formula on standard input, its proof from a file.
+    let dir = tempfile::tempdir().unwrap();
+    let bundle = dir.path().join("b");
+    ramsift(&[
+        "refute",
+        "3,3",
+        "6",
+        "--symmetry",
+        "none",
+        "--out",
+        bundle.to_str().unwrap(),
+        "-q",
+    ]);
+    let formula = ramsift(&["encode", "3,3", "6", "--out", "-"]).stdout;
+    let proof = bundle.join("proof.drat");
+    let checked = run_with_input(
+        &ramsift_tests_checker(),
+        &["drat", "-", proof.to_str().unwrap()],
+        &formula,
+    );
+    assert_eq!(checked.status.code(), Some(0), "{}", stdout(&checked));
+    let refused = ramsift(&["enumerate", "3,4", "8", "--out", "-", "--json"]);
+    assert_eq!(refused.status.code(), Some(2));
+}

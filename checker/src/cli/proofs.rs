@@ -1,7 +1,7 @@
 //! `ramsift-check drat` and `ramsift-check lrat`: a refutation proof of a DIMACS
 //! formula (optionally under a cube), and LRAT output from a checked DRAT proof.
 
-use std::io::Write;
+use std::io::{Read, Write};
 use std::path::Path;
 use std::time::Instant;
 
@@ -13,8 +13,30 @@ use ramsift_checker::lrat::{check_lrat, parse_lrat, write_lrat};
 
 use super::verdict::{Outcome, Report};
 
+/// Reads a file argument; `-` is standard input (gzip allowed there too).
+fn read_arg(path: &Path) -> Result<Vec<u8>, String> {
+    if path.as_os_str() != "-" {
+        return read_input(path).map_err(|e| e.to_string());
+    }
+    let mut raw = Vec::new();
+    std::io::stdin().read_to_end(&mut raw).map_err(|e| format!("standard input: {e}"))?;
+    if !raw.starts_with(&[0x1f, 0x8b]) {
+        return Ok(raw);
+    }
+    let mut out = Vec::new();
+    let limit = raw.len() as u64 * ramsift_checker::input::MAX_GZIP_RATIO + ramsift_checker::input::GZIP_ALLOWANCE;
+    flate2::read::MultiGzDecoder::new(&raw[..])
+        .take(limit + 1)
+        .read_to_end(&mut out)
+        .map_err(|e| format!("standard input: gzip data is damaged: {e}"))?;
+    if out.len() as u64 > limit {
+        return Err(format!("standard input: gzip data expands beyond {limit} bytes: refused"));
+    }
+    Ok(out)
+}
+
 fn load_cnf(path: &Path) -> Result<Cnf, String> {
-    let bytes = read_input(path).map_err(|e| e.to_string())?;
+    let bytes = read_arg(path)?;
     parse_cnf(&path.display().to_string(), &bytes).map_err(|e| e.to_string())
 }
 
@@ -42,7 +64,10 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
         Err(e) => return Report::unreadable(e),
     };
     cnf.clauses.extend(cube.iter().map(|&l| vec![l]));
-    let bytes = match read_input(proof_path) {
+    if cnf_path.as_os_str() == "-" && proof_path.as_os_str() == "-" {
+        return Report::unreadable("only one of the formula and the proof can be read from standard input (-)");
+    }
+    let bytes = match read_arg(proof_path) {
         Ok(b) => b,
         Err(e) => return Report::unreadable(e),
     };
@@ -105,7 +130,9 @@ pub fn run_lrat(cnf_path: &Path, proof_path: &Path) -> Report {
         Ok(c) => c,
         Err(e) => return Report::unreadable(e),
     };
-    let lines = match read_input(proof_path).and_then(|b| parse_lrat(&proof_path.display().to_string(), &b)) {
+    let lines = match read_arg(proof_path)
+        .and_then(|b| parse_lrat(&proof_path.display().to_string(), &b).map_err(|e| e.to_string()))
+    {
         Ok(l) => l,
         Err(e) => return Report::unreadable(e),
     };

@@ -17,7 +17,7 @@ use super::record::print_record;
 pub struct EncodeArgs {
     #[command(flatten)]
     pub instance: InstanceArgs,
-    /// Output file (DIMACS CNF; gzip-compressed if the name ends in .gz).
+    /// Output file (DIMACS CNF; gzip-compressed if the name ends in .gz; - for standard output).
     #[arg(long, value_name = "FILE")]
     pub out: PathBuf,
     /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
@@ -41,8 +41,18 @@ struct EncodeSummary {
 pub fn run(args: &EncodeArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     let started = Instant::now();
-    let bytes = write_encoding_to(&encoding, &args.out)
-        .with_context(|| format!("writing {}", args.out.display()))?;
+    let to_stdout = args.out.as_os_str() == "-";
+    let bytes = if to_stdout {
+        // The formula on standard output, uncompressed; the account goes to stderr.
+        let stdout = std::io::stdout();
+        let mut out = std::io::BufWriter::new(stdout.lock());
+        let bytes = ramsift_encoder::dimacs::write_encoding(&encoding, &mut out)?;
+        std::io::Write::flush(&mut out)?;
+        bytes
+    } else {
+        write_encoding_to(&encoding, &args.out)
+            .with_context(|| format!("writing {}", args.out.display()))?
+    };
     let summary = EncodeSummary {
         instance: encoding.instance().to_string(),
         file: args.out.clone(),
@@ -51,7 +61,12 @@ pub fn run(args: &EncodeArgs) -> Result<u8> {
         bytes_uncompressed: bytes,
         seconds: started.elapsed().as_secs_f64(),
     };
-    if args.json {
+    if to_stdout {
+        eprintln!(
+            "{} as DIMACS CNF on standard output: {} variables, {} clauses",
+            summary.instance, summary.variables, summary.clauses
+        );
+    } else if args.json {
         print_record(&summary, "written", exit_codes::SUCCESS)?;
     } else {
         println!(

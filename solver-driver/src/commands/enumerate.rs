@@ -26,7 +26,8 @@ use super::record::print_record;
 pub struct EnumerateArgs {
     #[command(flatten)]
     pub instance: InstanceArgs,
-    /// Where to write the colourings (graph6 lines for two colours).
+    /// Where to write the colourings (graph6 lines for two colours, a stream of
+    /// colouring files for more); - for standard output.
     #[arg(long, value_name = "FILE")]
     pub out: PathBuf,
     /// Count colourings that differ by permuting colours with equal forbidden
@@ -58,6 +59,11 @@ struct Summary {
 
 pub fn run(args: &EnumerateArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
+    let to_stdout = args.out.as_os_str() == "-";
+    anyhow::ensure!(
+        !(to_stdout && args.json),
+        "--out - and --json both want standard output; give --out a file"
+    );
     // The search holds the whole formula (with lex-leader, a small addition).
     args.instance
         .fits(&args.instance.encoding("none")?, &instance.to_string(), 1)?;
@@ -114,9 +120,13 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
                 text.push_str(&colouring_text(&instance, colouring, &[note]));
             }
         }
-        write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
-            .with_context(|| format!("writing {}", args.out.display()))?;
-        summary.file = Some(args.out.clone());
+        if to_stdout {
+            print!("{text}");
+        } else {
+            write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
+                .with_context(|| format!("writing {}", args.out.display()))?;
+            summary.file = Some(args.out.clone());
+        }
     }
     if args.json {
         let code = if result.complete {
@@ -133,6 +143,11 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
             },
             code,
         )?;
+    } else if result.complete && to_stdout {
+        eprintln!(
+            "{} colouring(s) of {instance} up to {up_to} written to standard output ({:.2}s)",
+            summary.classes, summary.seconds
+        );
     } else if result.complete {
         println!(
             "{} colouring(s) of {instance} up to {up_to} ({} labelled colourings enumerated under {}, {:.2}s)",
