@@ -1127,3 +1127,35 @@ fn a_dash_means_standard_input_or_output() {
     let refused = ramsift(&["enumerate", "3,4", "8", "--out", "-", "--json"]);
     assert_eq!(refused.status.code(), Some(2));
 }
+
+#[test]
+fn local_search_keeps_its_best_near_solution() {
+    // (4,6;35) is beyond the published lower bound's construction by search alone in
+    // a second (R(4,6) >= 36, Exoo 2012; DS1): the run ends unknown, keeping its best.
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("local");
+    let o = ramsift(&[
+        "find",
+        "4,6",
+        "35",
+        "--method",
+        "local",
+        "--timeout",
+        "1",
+        "--out",
+        out.to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    let text = std::fs::read_to_string(out.join("near-solution.colouring")).unwrap();
+    assert!(
+        text.starts_with("# best near-solution of local search: "),
+        "{text}"
+    );
+    let file = parse_colouring_file("near", &text).unwrap();
+    assert_eq!(file.matrix.order(), 35);
+    assert!(
+        !check_colouring(&file.matrix, &file.claim).is_valid(),
+        "a near-solution, not a solution"
+    );
+}

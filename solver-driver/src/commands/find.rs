@@ -16,6 +16,7 @@ use ramsift_driver::portfolio::{
 };
 use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice};
 use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files, FindSummary};
+use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
@@ -110,6 +111,9 @@ impl FindArgs {
         })
     }
 }
+
+/// Where `find --method local --out DIR` keeps its best near-solution.
+const NEAR_SOLUTION_FILE: &str = "near-solution.colouring";
 
 /// "1 attempt", "2 attempts".
 fn count(n: u64, noun: &str) -> String {
@@ -368,6 +372,22 @@ fn find_by_local_search(
             "{instance}: best colouring seen has {} monochromatic forbidden cliques",
             report.best_cost
         );
+    }
+    // The best near-solution is kept: a start for later runs (and for repair).
+    if let (None, Some(dir), Some((cost, near))) = (&report.found, &args.out, report.near.first()) {
+        let note = format!(
+            "best near-solution of local search: {cost} monochromatic forbidden cliques remain"
+        );
+        let text = colouring_text(instance, near, &[note]);
+        let path = dir.join(NEAR_SOLUTION_FILE);
+        write_atomically(&path, |w| w.write_all(text.as_bytes()))
+            .with_context(|| format!("writing {}", path.display()))?;
+        if !args.json {
+            eprintln!(
+                "{instance}: wrote the best near-solution to {}",
+                path.display()
+            );
+        }
     }
     Ok(SearchReport {
         result: match report.found {

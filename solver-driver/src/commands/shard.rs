@@ -2,7 +2,7 @@
 //! a Slurm job array), report their status, and merge them into one bundle.
 
 use std::path::PathBuf;
-use std::sync::atomic::AtomicBool;
+use std::sync::atomic::{AtomicBool, Ordering};
 
 use anyhow::{bail, Context, Result};
 use clap::{Args, Subcommand};
@@ -19,6 +19,7 @@ use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::instance_args::{timeout_of, InstanceArgs};
+use super::progress::{seconds, ProgressLine};
 use super::record::print_record;
 use super::refute::DEFAULT_REFUTE_SYMMETRY;
 
@@ -304,12 +305,30 @@ fn local(args: &LocalArgs) -> Result<u8> {
         .num_threads(threads.max(1))
         .build()?;
     let stop = AtomicBool::new(false);
-    let outcomes: Vec<Result<ShardOutcome>> = pool.install(|| {
-        pending
-            .par_iter()
-            .map(|&i| run_shard(&args.plan, i, None, &stop))
-            .collect()
+    let finished = std::sync::atomic::AtomicUsize::new(0);
+    let line = ProgressLine::new(args.json);
+    let started = std::time::Instant::now();
+    let outcomes: Vec<Result<ShardOutcome>> = std::thread::scope(|scope| {
+        let work = scope.spawn(|| {
+            pool.install(|| {
+                let run = |&i: &usize| {
+                    let outcome = run_shard(&args.plan, i, None, &stop);
+                    finished.fetch_add(1, Ordering::Relaxed);
+                    outcome
+                };
+                pending.par_iter().map(run).collect()
+            })
+        });
+        while !work.is_finished() {
+            std::thread::sleep(std::time::Duration::from_millis(100));
+            line.update(|| {
+                let done = finished.load(Ordering::Relaxed);
+                format!("{done} of {} shards run on {threads} threads, {} elapsed", pending.len(), seconds(started.elapsed()))
+            });
+        }
+        work.join().expect("the shard pool does not panic")
     });
+    line.finish();
     let mut found = Vec::new();
     for (i, outcome) in pending.iter().zip(outcomes) {
         match outcome.with_context(|| format!("shard {i}"))? {
