@@ -38,8 +38,14 @@ struct Row {
     bound: &'static str,
     /// "R > n" or "R <= n".
     kind: &'static str,
-    value: Option<String>,
+    /// A number (a decimal string only beyond 2^64); a published range is [lower, upper].
+    value: Option<serde_json::Value>,
     source: String,
+}
+
+/// A big integer as a JSON number, or as a decimal string beyond 2^64.
+fn number(value: &num_bigint::BigUint) -> serde_json::Value {
+    u64::try_from(value).map_or_else(|_| value.to_string().into(), Into::into)
 }
 
 #[derive(Serialize)]
@@ -62,19 +68,19 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         Row {
             bound: "first moment",
             kind: "R >",
-            value: Some(erdos_lower(&sizes, SEARCH_LIMIT).to_string()),
+            value: Some(erdos_lower(&sizes, SEARCH_LIMIT).into()),
             source: format!("Erdős 1947: largest n with Σ C(n,k_c)·{r}^(−C(k_c,2)) < 1"),
         },
         Row {
             bound: "deletion",
             kind: "R >",
-            value: Some(deletion_lower(&sizes, SEARCH_LIMIT).to_string()),
+            value: Some(deletion_lower(&sizes, SEARCH_LIMIT).into()),
             source: "alteration: max over n of n − ⌊E(n)⌋ (Alon & Spencer ch. 3)".into(),
         },
         Row {
             bound: "local lemma",
             kind: "R >",
-            value: spencer_lower(&sizes, SEARCH_LIMIT).map(|n| n.to_string()),
+            value: spencer_lower(&sizes, SEARCH_LIMIT).map(Into::into),
             source:
                 "Spencer 1975: e·(C(k,2)·C(n−2,k−2)+1)·2^(1−C(k,2)) < 1 (two equal colours only)"
                     .into(),
@@ -82,19 +88,19 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         Row {
             bound: "recursion",
             kind: "R <=",
-            value: Some(recursive_upper(&sizes, &|_| None).to_string()),
+            value: Some(number(&recursive_upper(&sizes, &|_| None))),
             source: "R(s,t) ≤ R(s−1,t)+R(s,t−1), one less if both even; from R(s,2) = s".into(),
         },
         Row {
             bound: "recursion on published values",
             kind: "R <=",
-            value: Some(recursive_upper(&sizes, &exact).to_string()),
+            value: Some(number(&recursive_upper(&sizes, &exact))),
             source: "the same recursion, starting from the exact values of the table".into(),
         },
         Row {
             bound: "Erdős–Szekeres",
             kind: "R <=",
-            value: erdos_szekeres(&sizes).map(|v| v.to_string()),
+            value: erdos_szekeres(&sizes).map(|v| number(&v)),
             source: "C(s+t−2, s−1) (two colours only)".into(),
         },
     ];
@@ -102,13 +108,13 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         Some(p) if p.lower == p.upper => rows.push(Row {
             bound: "published value",
             kind: "R =",
-            value: Some(p.lower.to_string()),
+            value: Some(p.lower.into()),
             source: format!("{}; Radziszowski DS1", p.source),
         }),
         Some(p) => rows.push(Row {
             bound: "published range",
             kind: "R in",
-            value: Some(format!("[{}, {}]", p.lower, p.upper)),
+            value: Some(serde_json::json!([p.lower, p.upper])),
             source: format!("{}; Radziszowski DS1", p.source),
         }),
         None => rows.push(Row {

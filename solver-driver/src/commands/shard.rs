@@ -323,7 +323,11 @@ fn local(args: &LocalArgs) -> Result<u8> {
             std::thread::sleep(std::time::Duration::from_millis(100));
             line.update(|| {
                 let done = finished.load(Ordering::Relaxed);
-                format!("{done} of {} shards run on {threads} threads, {} elapsed", pending.len(), seconds(started.elapsed()))
+                format!(
+                    "{done} of {} shards run on {threads} threads, {} elapsed",
+                    pending.len(),
+                    seconds(started.elapsed())
+                )
             });
         }
         work.join().expect("the shard pool does not panic")
