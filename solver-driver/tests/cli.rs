@@ -1085,6 +1085,50 @@ fn every_command_speaks_the_same_json() {
             "{args:?}"
         );
     }
+    // Colourings travel in the records: scan (per family found), enumerate (every
+    // class) and shards that find one (R(3,3) = 6: K_5 has one; Greenwood & Gleason 1955).
+    let o = ramsift(&[
+        "scan",
+        "3,3",
+        "--from",
+        "5",
+        "--to",
+        "5",
+        "--circulant",
+        "--json",
+    ]);
+    let scan: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(
+        scan["orders"][0]["families"][0]["colouring"]
+            .as_array()
+            .unwrap()
+            .len(),
+        5
+    );
+    let o = ramsift(&["enumerate", "3,4", "8", "--out", &p("e8.g6"), "--json"]);
+    let enumerated: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(
+        enumerated["colourings"].as_array().unwrap().len(),
+        3,
+        "(3,4;8): 3 graphs (McKay's data)"
+    );
+    let false_plan = p("false");
+    ramsift(&[
+        "shard",
+        "plan",
+        "3,3",
+        "5",
+        "--shards",
+        "2",
+        "--symmetry",
+        "none",
+        "--out",
+        &false_plan,
+    ]);
+    let o = ramsift(&["shard", "local", &false_plan, "--json"]);
+    let local: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(local["result"], "found");
+    assert_eq!(local["colourings"][0].as_array().unwrap().len(), 5);
 }
 
 #[test]

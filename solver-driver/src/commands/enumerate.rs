@@ -55,6 +55,8 @@ struct Summary {
     seconds: f64,
     complete: bool,
     file: Option<PathBuf>,
+    /// Every class's colouring, as matrix rows (0 on the diagonal).
+    colourings: Vec<Vec<Vec<u8>>>,
 }
 
 pub fn run(args: &EnumerateArgs) -> Result<u8> {
@@ -102,6 +104,11 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         seconds: result.elapsed.as_secs_f64(),
         complete: result.complete,
         file: None,
+        colourings: result
+            .classes
+            .iter()
+            .map(ramsift_driver::witness::colouring_rows)
+            .collect(),
     };
     if result.complete {
         // Two colours: graph6, one graph a line (it has no comment lines). More

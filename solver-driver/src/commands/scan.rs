@@ -62,7 +62,10 @@ struct FamilyRow {
     orbits: usize,
     clauses: usize,
     seconds: f64,
-    colouring: Option<String>,
+    /// How the family describes its colouring (distances, differences).
+    description: Option<String>,
+    /// The colouring found, as matrix rows (0 on the diagonal).
+    colouring: Option<Vec<Vec<u8>>>,
 }
 
 #[derive(Serialize)]
@@ -99,12 +102,18 @@ fn row(report: &OrderReport) -> OrderRow {
             .families
             .iter()
             .map(|f| {
-                let (result, colouring) = match &f.outcome {
-                    FamilyOutcome::Found { description, .. } => {
-                        ("found", Some(description.clone()))
-                    }
-                    FamilyOutcome::NoneInFamily => ("none", None),
-                    FamilyOutcome::Unknown => ("unknown", None),
+                let (result, description, colouring) = match &f.outcome {
+                    FamilyOutcome::Found {
+                        description,
+                        colouring,
+                        ..
+                    } => (
+                        "found",
+                        Some(description.clone()),
+                        Some(ramsift_driver::witness::colouring_rows(colouring)),
+                    ),
+                    FamilyOutcome::NoneInFamily => ("none", None, None),
+                    FamilyOutcome::Unknown => ("unknown", None, None),
                 };
                 FamilyRow {
                     family: f.family.clone(),
@@ -112,6 +121,7 @@ fn row(report: &OrderReport) -> OrderRow {
                     orbits: f.orbits,
                     clauses: f.clauses,
                     seconds: f.elapsed.as_secs_f64(),
+                    description,
                     colouring,
                 }
             })
@@ -242,7 +252,7 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
                 .families
                 .iter()
                 .find(|f| f.result == "found")
-                .map(|f| format!("{}: {}", f.family, f.colouring.as_deref().unwrap_or("")))
+                .map(|f| format!("{}: {}", f.family, f.description.as_deref().unwrap_or("")))
                 .unwrap_or_else(|| {
                     order
                         .families

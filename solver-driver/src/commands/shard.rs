@@ -262,7 +262,8 @@ fn run_one(args: &RunArgs) -> Result<u8> {
             ShardOutcome::Unknown => ("unknown", None),
         };
         print_record(
-            serde_json::json!({"shard": index, "witness": witness}),
+            serde_json::json!({"shard": index, "witness": witness,
+                "colouring": witness.as_ref().and_then(|_| witness_rows(&args.plan, index))}),
             word,
             code,
         )?;
@@ -277,6 +278,22 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         ShardOutcome::Found => println!("{}", claim_false(&args.plan, &plan, index)),
     }
     Ok(code)
+}
+
+/// A shard's witness as matrix rows (0 on the diagonal), read back with the
+/// checker's own parser.
+fn witness_rows(plan_dir: &std::path::Path, index: usize) -> Option<Vec<Vec<u8>>> {
+    let path = ramsift_driver::shard::run::witness_path(plan_dir, index);
+    let text = std::fs::read_to_string(&path).ok()?;
+    let file =
+        ramsift_checker::colouring_file::parse_colouring_file(&path.display().to_string(), &text)
+            .ok()?;
+    let n = file.matrix.order();
+    Some(
+        (0..n)
+            .map(|i| (0..n).map(|j| file.matrix.colour(i, j)).collect())
+            .collect(),
+    )
 }
 
 /// The words for a shard that found a colouring: the claim is false, and where
@@ -359,6 +376,7 @@ fn local(args: &LocalArgs) -> Result<u8> {
         let record = serde_json::json!({
             "ran": pending.len(), "already_done": plan.cubes.len() - pending.len(), "threads": threads,
             "found": found, "witnesses": witnesses,
+            "colourings": found.iter().filter_map(|&i| witness_rows(&args.plan, i)).collect::<Vec<_>>(),
         });
         print_record(
             record,
