@@ -56,6 +56,9 @@ pub enum DratFailure {
     NoRefutation,
 }
 
+/// Lemmas checked so far by every check in this process: read by the CLI's progress line only.
+pub static CHECKED_LEMMAS: std::sync::atomic::AtomicUsize = std::sync::atomic::AtomicUsize::new(0);
+
 const NO_REASON: u32 = u32::MAX;
 const CORE: usize = 0;
 const OTHER: usize = 1;
@@ -449,6 +452,7 @@ pub fn check_drat(
                     continue;
                 }
                 report.checked_lemmas += 1;
+                CHECKED_LEMMAS.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
                 let lits = checker.clauses[id as usize].lits.clone();
                 let justification = match checker.rup(&lits) {
                     Rup::Trivial => continue,

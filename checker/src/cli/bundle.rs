@@ -11,7 +11,7 @@ use super::verdict::{Outcome, Report};
 
 pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
     let started = Instant::now();
-    let verdict = match check_bundle(dir, premise_dirs) {
+    let verdict = match super::progress::while_checking(None, || check_bundle(dir, premise_dirs)) {
         Ok(v) => v,
         Err(e) => return Report::unreadable(e),
     };

@@ -3,5 +3,6 @@
 
 pub mod bundle;
 pub mod colouring;
+pub mod progress;
 pub mod proofs;
 pub mod verdict;

@@ -67,6 +67,7 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
     if cnf_path.as_os_str() == "-" && proof_path.as_os_str() == "-" {
         return Report::unreadable("only one of the formula and the proof can be read from standard input (-)");
     }
+    super::progress::reading(proof_path);
     let bytes = match read_arg(proof_path) {
         Ok(b) => b,
         Err(e) => return Report::unreadable(e),
@@ -77,7 +78,9 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
         Err(e) => return Report::unreadable(e),
     };
     drop(bytes);
-    let (report, lemmas) = match check_drat(&cnf, &steps, emit_lrat.is_some()) {
+    let total = steps.len();
+    let checked = super::progress::while_checking(Some(total), || check_drat(&cnf, &steps, emit_lrat.is_some()));
+    let (report, lemmas) = match checked {
         Ok(done) => done,
         Err(failure) => return Report::new(Outcome::Fail, format!("{}: {failure}", proof_path.display())),
     };

@@ -9,8 +9,8 @@ use clap::{Args, Subcommand};
 use rayon::prelude::*;
 
 use ramsift_driver::exit_codes;
-use ramsift_driver::shard::merge::merge;
-use ramsift_driver::shard::plan::plan_cubes;
+use ramsift_driver::shard::merge::merge_counted;
+use ramsift_driver::shard::plan::plan_cubes_counted;
 use ramsift_driver::shard::run::{read_plan, run_shard, ShardOutcome};
 use ramsift_driver::shard::slurm::{batch_scripts, SlurmOptions};
 use ramsift_driver::shard::status::{array_list, plan_status};
@@ -149,12 +149,34 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
         ShardCommand::Status(args) => status(args),
         ShardCommand::Merge(args) => {
             ramsift_driver::output_dir::prepare(&args.out, args.force)?;
-            let report = merge(
-                &args.plan,
-                &args.out,
-                args.single_trace,
-                !args.assume_premises,
-            )?;
+            let copied = std::sync::atomic::AtomicUsize::new(0);
+            let line = ProgressLine::new(args.json);
+            let started = std::time::Instant::now();
+            let shards = read_plan(&args.plan)?.cubes.len();
+            let report = std::thread::scope(|scope| {
+                let work = scope.spawn(|| {
+                    merge_counted(
+                        &args.plan,
+                        &args.out,
+                        args.single_trace,
+                        !args.assume_premises,
+                        &copied,
+                    )
+                });
+                while !work.is_finished() {
+                    std::thread::sleep(std::time::Duration::from_millis(100));
+                    line.update(|| {
+                        let done = copied.load(Ordering::Relaxed);
+                        format!(
+                            "merging: {done} of {shards} shard traces taken in, {} elapsed",
+                            seconds(started.elapsed())
+                        )
+                    });
+                }
+                work.join().expect("merging does not panic")
+            });
+            line.finish();
+            let report = report?;
             if args.json {
                 let plan = read_plan(&args.plan)?;
                 let record = serde_json::json!({
@@ -190,7 +212,26 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let formula_path = args.out.join("formula.cnf.gz");
     write_encoding_to(&encoding, &formula_path)?;
     let (sha, _) = ramsift_driver::bundle::hash_file(&formula_path)?;
-    let plan = plan_cubes(&encoding, args.shards, sha);
+    let leaves = std::sync::atomic::AtomicUsize::new(0);
+    let line = ProgressLine::new(args.json);
+    let started = std::time::Instant::now();
+    let plan = std::thread::scope(|scope| {
+        let work = scope.spawn(|| plan_cubes_counted(&encoding, args.shards, sha, &leaves));
+        while !work.is_finished() {
+            std::thread::sleep(std::time::Duration::from_millis(100));
+            line.update(|| {
+                let so_far = leaves.load(Ordering::Relaxed);
+                format!(
+                    "planning {}: {so_far} of {} cubes, {} elapsed",
+                    encoding.instance(),
+                    args.shards,
+                    seconds(started.elapsed())
+                )
+            });
+        }
+        work.join().expect("planning does not panic")
+    });
+    line.finish();
     let json = serde_json::to_string_pretty(&plan)?;
     write_atomically(&args.out.join(PLAN_FILE), |w| w.write_all(json.as_bytes()))?;
     if args.json {

@@ -11,6 +11,7 @@
 
 use std::io::{self, Write};
 use std::path::{Path, PathBuf};
+use std::sync::atomic::{AtomicUsize, Ordering};
 
 use anyhow::{bail, Context, Result};
 
@@ -108,6 +109,23 @@ pub fn merge(
     single_trace: bool,
     certify: bool,
 ) -> Result<MergeReport> {
+    merge_counted(
+        plan_dir,
+        out_dir,
+        single_trace,
+        certify,
+        &AtomicUsize::new(0),
+    )
+}
+
+/// [`merge`], counting in `shards_copied` the shard traces taken in (for progress).
+pub fn merge_counted(
+    plan_dir: &Path,
+    out_dir: &Path,
+    single_trace: bool,
+    certify: bool,
+    shards_copied: &AtomicUsize,
+) -> Result<MergeReport> {
     let plan = read_plan(plan_dir)?;
     let status = plan_status(plan_dir, plan.cubes.len());
     if let Some(&i) = status.found.first() {
@@ -168,6 +186,7 @@ pub fn merge(
         record.cube = Some(cube.literals.clone());
         files.push(record);
         written.push(out_dir.join(&name));
+        shards_copied.fetch_add(1, Ordering::Relaxed);
     }
     let plan_copy = std::fs::read(plan_dir.join(PLAN_FILE))?;
     write_atomically(&out_dir.join(PLAN_FILE), |w| w.write_all(&plan_copy))?;

@@ -100,6 +100,21 @@ fn measure(propagator: &Propagator, cube: &[i32], colour_variables: usize) -> Me
 
 /// Plans `shards` cubes for the encoding (fewer if the tree cannot grow further).
 pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: String) -> Plan {
+    plan_cubes_counted(
+        encoding,
+        shards,
+        formula_sha256,
+        &std::sync::atomic::AtomicUsize::new(0),
+    )
+}
+
+/// [`plan_cubes`], keeping `leaves` at the number of cubes so far (for progress).
+pub fn plan_cubes_counted(
+    encoding: &CliqueEncoding,
+    shards: usize,
+    formula_sha256: String,
+    leaves_so_far: &std::sync::atomic::AtomicUsize,
+) -> Plan {
     let formula = Formula::from_encoding(encoding);
     let propagator = Propagator::new(&formula);
     let colour_variables = formula.variables().colour_variable_count();
@@ -111,6 +126,7 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
     }];
     let mut leaves = 1;
     while leaves < shards.max(1) {
+        leaves_so_far.store(leaves, std::sync::atomic::Ordering::Relaxed);
         // The open leaf with the most free variables.
         let Some(target) = (0..nodes.len())
             .filter(|&i| matches!(nodes[i], Node::Leaf { refuted: false, free, .. } if free > 0))
