@@ -22,7 +22,7 @@ pub fn require_regular_file(path: &Path) -> Result<std::fs::Metadata, InputError
         return Ok(meta);
     }
     let kind = if meta.is_dir() { "a directory" } else { "a device, FIFO or socket" };
-    Err(InputError::whole(&name, format!("is {kind}: only regular files are read")))
+    Err(InputError::whole(&name, format!("is {kind}: only regular files are read (give - for standard input)")))
 }
 
 /// Reads a regular file, decompressing it if it is gzip.

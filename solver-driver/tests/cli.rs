@@ -1170,6 +1170,31 @@ fn a_dash_means_standard_input_or_output() {
     assert_eq!(checked.status.code(), Some(0), "{}", stdout(&checked));
     let refused = ramsift(&["enumerate", "3,4", "8", "--out", "-", "--json"]);
     assert_eq!(refused.status.code(), Some(2));
+    // A figure to standard output, from a colouring on standard input.
+    let colouring = ramsift(&["find", "3,3", "5", "-q"]).stdout;
+    let figure = run_with_input(
+        env!("CARGO_BIN_EXE_ramsift"),
+        &["draw", "-", "--out", "-"],
+        &colouring,
+    );
+    assert_eq!(figure.status.code(), Some(0), "{}", stderr(&figure));
+    assert!(stdout(&figure).starts_with("<svg"), "{}", stdout(&figure));
+    // A pipe named as a file is refused with the hint to use -.
+    let o = Command::new("bash")
+        .arg("-c")
+        .arg(format!(
+            "\"{}\" find 4,4 17 -q | \"{}\" colouring /dev/stdin",
+            env!("CARGO_BIN_EXE_ramsift"),
+            ramsift_tests_checker()
+        ))
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    assert!(
+        stderr(&o).contains("give - for standard input"),
+        "{}",
+        stderr(&o)
+    );
 }
 
 #[test]

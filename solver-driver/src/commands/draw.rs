@@ -20,7 +20,7 @@ pub struct DrawArgs {
     /// standard input.
     #[arg(value_name = "FILE")]
     pub file: PathBuf,
-    /// The figure: .svg for SVG, .tex for a TikZ picture.
+    /// The figure: .svg for SVG, .tex for a TikZ picture; - writes SVG to standard output.
     #[arg(long, value_name = "FILE")]
     pub out: PathBuf,
     /// circle (vertices on a circle, edges in their colour's style) or matrix
@@ -120,8 +120,12 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
         .and_then(|e| e.to_str())
         .unwrap_or("")
         .to_ascii_lowercase();
+    let to_stdout = args.out.as_os_str() == "-";
     let text = match extension.as_str() {
-        "svg" => {
+        _ if to_stdout && args.json => {
+            anyhow::bail!("--out - and --json both want standard output; give --out a file")
+        }
+        "svg" | "" if to_stdout || extension == "svg" => {
             let size = args.size.unwrap_or(480.0);
             anyhow::ensure!(
                 (50.0..=20_000.0).contains(&size),
@@ -142,6 +146,10 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
             args.out.display()
         ),
     };
+    if to_stdout {
+        print!("{text}");
+        return Ok(exit_codes::SUCCESS);
+    }
     write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
         .with_context(|| format!("writing {}", args.out.display()))?;
     if args.json {
