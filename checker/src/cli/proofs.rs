@@ -133,6 +133,7 @@ pub fn run_lrat(cnf_path: &Path, proof_path: &Path) -> Report {
         Ok(c) => c,
         Err(e) => return Report::unreadable(e),
     };
+    super::progress::reading(proof_path);
     let lines = match read_arg(proof_path)
         .and_then(|b| parse_lrat(&proof_path.display().to_string(), &b).map_err(|e| e.to_string()))
     {
