@@ -1199,8 +1199,9 @@ fn a_dash_means_standard_input_or_output() {
 
 #[test]
 fn local_search_keeps_its_best_near_solution() {
-    // (4,6;35) is beyond the published lower bound's construction by search alone in
-    // a second (R(4,6) >= 36, Exoo 2012; DS1): the run ends unknown, keeping its best.
+    // (4,6;35) colourings exist (R(4,6) >= 36, Exoo 2012; DS1), but local search
+    // finds none in a second (16 cliques remained after 30 minutes, BENCHMARKS.md):
+    // the run ends unknown, keeping its best.
     let dir = tempfile::tempdir().unwrap();
     let out = dir.path().join("local");
     let o = ramsift(&[
