@@ -29,6 +29,7 @@ pub mod cadical_backend;
 pub mod draw;
 pub mod enumerate;
 pub mod exit_codes;
+pub mod extension;
 pub mod formula;
 pub mod graph6;
 pub mod hybrid;

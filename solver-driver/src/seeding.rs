@@ -31,6 +31,8 @@ pub enum SeedKind {
     CirculantNeighbour,
     /// The edges of a local-search near-solution in no monochromatic clique.
     NearSolution,
+    /// Every edge of a given colouring of K_{n-1} (see [`crate::extension`]).
+    Extension,
 }
 
 impl fmt::Display for SeedKind {
@@ -41,6 +43,7 @@ impl fmt::Display for SeedKind {
             SeedKind::CirculantSubset => "circulant-subset",
             SeedKind::CirculantNeighbour => "circulant colouring of K_(n-1)",
             SeedKind::NearSolution => "local-search near-solution",
+            SeedKind::Extension => "given colouring of K_(n-1)",
         })
     }
 }

@@ -7,6 +7,7 @@ use std::time::Instant;
 use anyhow::{Context, Result};
 use clap::Args;
 
+use ramsift_driver::extension::{extend, Extension};
 use ramsift_driver::formula::Formula;
 use ramsift_driver::hybrid::auto_search;
 use ramsift_driver::local::search::LocalProgress;
@@ -44,6 +45,11 @@ pub struct FindArgs {
     /// With --method local: tabu (default) or anneal.
     #[arg(long, default_value = "tabu", value_parser = ["tabu", "anneal"])]
     pub rule: String,
+    /// Extend this colouring of K_(N-1) by one vertex with SAT (a ramsift colouring
+    /// file, or graph6 for two colours; - reads standard input). "None extends"
+    /// concerns this colouring only.
+    #[arg(long, value_name = "FILE")]
+    pub from: Option<PathBuf>,
     /// Worker threads (default: all cores).
     #[arg(long, value_name = "COUNT")]
     pub threads: Option<usize>,
@@ -112,6 +118,97 @@ impl FindArgs {
     }
 }
 
+/// `find --from FILE`: extends the given colouring of K_(N-1) by one vertex.
+fn find_by_extension(
+    args: &FindArgs,
+    from: &std::path::Path,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+) -> Result<(SearchReport, Option<String>)> {
+    anyhow::ensure!(
+        args.symmetry == "none",
+        "--from extends a given colouring: symmetry breaking could exclude its extensions, so --symmetry must be none"
+    );
+    let name = from.display().to_string();
+    let content = if name == "-" {
+        let mut bytes = Vec::new();
+        std::io::Read::read_to_end(&mut std::io::stdin(), &mut bytes)
+            .context("reading standard input")?;
+        bytes
+    } else {
+        std::fs::read(from).with_context(|| format!("reading {name}"))?
+    };
+    let matrix = match std::str::from_utf8(&content) {
+        Ok(text)
+            if text.lines().any(|l| {
+                l.trim_start()
+                    .starts_with(ramsift_driver::witness::COLOURING_MAGIC)
+            }) =>
+        {
+            ramsift_checker::colouring_file::parse_colouring_file(&name, text)?.matrix
+        }
+        _ => {
+            let mut graphs = ramsift_checker::graph6::decode_graph6_file(&name, &content)?;
+            anyhow::ensure!(
+                instance.colours() == 2,
+                "{name}: graph6 describes two colours; the specification has {}",
+                instance.colours()
+            );
+            graphs.swap_remove(0)
+        }
+    };
+    let base = ramsift_encoder::Colouring::from_fn(matrix.order(), instance.colours(), |i, j| {
+        matrix.colour(i, j)
+    });
+    anyhow::ensure!(
+        base.order() + 1 == instance.order(),
+        "{name} colours K_{}: --from extends a colouring of K_{} to K_{}",
+        base.order(),
+        instance.order().saturating_sub(1),
+        instance.order()
+    );
+    let verdict = ramsift_driver::verify::verify_witness(instance.spec(), &base);
+    anyhow::ensure!(
+        verdict.is_valid(),
+        "{name} is not a good colouring of K_{} for {}: {verdict}",
+        base.order(),
+        instance.spec()
+    );
+    let encoding = args.instance.encoding("none")?;
+    args.instance.fits(&encoding, &instance.to_string(), 1)?;
+    let formula = Formula::from_encoding(&encoding);
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let outcome = extend(
+        &formula,
+        instance.spec(),
+        &base,
+        &AtomicBool::new(false),
+        deadline,
+    )?;
+    let (result, note) = match outcome {
+        Extension::Extended(result) => (result, None),
+        Extension::None => (
+            SearchResult::Unknown,
+            Some(format!(
+                "no colouring of K_{} extends the colouring of K_{} in {name}",
+                instance.order(),
+                base.order()
+            )),
+        ),
+        Extension::Stopped => (SearchResult::Unknown, None),
+    };
+    Ok((
+        SearchReport {
+            result,
+            attempts: 1,
+            elapsed: started.elapsed(),
+            threads: 1,
+        },
+        note,
+    ))
+}
+
 /// Where `find --method local --out DIR` keeps its best near-solution.
 const NEAR_SOLUTION_FILE: &str = "near-solution.colouring";
 
@@ -139,7 +236,11 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     let method = args.method().to_string();
 
     let mut family_note = None;
-    let report = if let Some(choice) = args.family_choice()? {
+    let report = if let Some(from) = &args.from {
+        let (report, note) = find_by_extension(args, from, &instance, &options)?;
+        family_note = note;
+        report
+    } else if let Some(choice) = args.family_choice()? {
         let (report, note) = find_in_family(&choice, &instance, &options, &line)?;
         family_note = note;
         report

@@ -1,0 +1,119 @@
+//! Extension by SAT (`find --from`): a good colouring of K_{n-1} with one vertex
+//! added, against published facts about which colourings extend.
+
+use std::process::Command;
+use std::sync::atomic::AtomicBool;
+
+use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
+use ramsift_driver::extension::{extend, Extension};
+use ramsift_driver::formula::Formula;
+use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
+use ramsift_tests::binaries::workspace_binary;
+
+fn formula(sizes: &[usize], n: usize) -> (Formula, RamseySpec) {
+    let spec = RamseySpec::cliques(sizes).unwrap();
+    let instance = Instance::new(spec.clone(), n).unwrap();
+    (
+        Formula::from_encoding(
+            &CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap(),
+        ),
+        spec,
+    )
+}
+
+#[test]
+fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
+    // McKay's Ramsey-graph data: 12 (3,5;12)-graphs, and one (3,5;13)-graph, which is
+    // vertex-transitive (the circulant with distances {1,5}, DS1); so exactly one class
+    // of K_12 colourings is a vertex-deleted (3,5;13) colouring and extends.
+    let twelve = Instance::new(RamseySpec::cliques(&[3, 5]).unwrap(), 12).unwrap();
+    let options = EnumerateOptions {
+        swap_colours: false,
+        timeout: None,
+    };
+    let classes = enumerate(&twelve, &options, &AtomicBool::new(false), |_, _| {})
+        .unwrap()
+        .classes;
+    assert_eq!(classes.len(), 12);
+    let (formula, spec) = formula(&[3, 5], 13);
+    let extended = classes
+        .iter()
+        .filter(|base| {
+            matches!(
+                extend(&formula, &spec, base, &AtomicBool::new(false), None).unwrap(),
+                Extension::Extended(_)
+            )
+        })
+        .count();
+    assert_eq!(extended, 1);
+}
+
+#[test]
+fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line() {
+    // R(4,5) = 25 (McKay & Radziszowski 1995; DS1); find's circulant search gives a
+    // (4,5;24) colouring, whose first 23 vertices must extend to 24 again.
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("circulant");
+    let ramsift = workspace_binary("ramsift");
+    let o = Command::new(&ramsift)
+        .args(["find", "4,5", "24", "--circulant", "-q", "--out"])
+        .arg(&out)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(10));
+    let text = std::fs::read_to_string(out.join("witness.colouring")).unwrap();
+    let file = ramsift_checker::colouring_file::parse_colouring_file("w", &text).unwrap();
+    let less = Colouring::from_fn(23, 2, |i, j| file.matrix.colour(i, j));
+    let (formula, spec) = formula(&[4, 5], 24);
+    assert!(matches!(
+        extend(&formula, &spec, &less, &AtomicBool::new(false), None).unwrap(),
+        Extension::Extended(_)
+    ));
+    // The same through `find --from` with a graph6 file of the 23-vertex colouring.
+    let g6 = dir.path().join("less.g6");
+    std::fs::write(
+        &g6,
+        ramsift_driver::witness::colour_one_graph6(&less) + "\n",
+    )
+    .unwrap();
+    let o = Command::new(&ramsift)
+        .args(["find", "4,5", "24", "--from"])
+        .arg(&g6)
+        .args(["--json"])
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(10),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let record: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert!(record["found_by"].as_str().unwrap().contains("extension"));
+    // A colouring that no vertex extends is said so, about that colouring only:
+    // K_13's unique (3,5) colouring cannot grow (R(3,5) = 14, Greenwood & Gleason 1955).
+    let o = Command::new(&ramsift)
+        .args(["find", "3,5", "13", "--circulant", "-q", "--out"])
+        .arg(dir.path().join("c13"))
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(10));
+    let o = Command::new(&ramsift)
+        .args(["find", "3,5", "14", "--from"])
+        .arg(dir.path().join("c13").join("witness.colouring"))
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(1));
+    assert!(
+        String::from_utf8_lossy(&o.stdout).contains("no colouring of K_14 extends"),
+        "{}",
+        String::from_utf8_lossy(&o.stdout)
+    );
+    // Wrong orders and bad colourings are refused.
+    let o = Command::new(&ramsift)
+        .args(["find", "4,5", "25", "--from"])
+        .arg(&g6)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+}
