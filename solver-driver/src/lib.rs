@@ -39,6 +39,7 @@ pub mod memory;
 pub mod output_dir;
 pub mod portfolio;
 pub mod refute;
+pub mod repair;
 pub mod seeding;
 pub mod shard;
 pub mod structured;

@@ -117,3 +117,38 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
         .unwrap();
     assert_eq!(o.status.code(), Some(2));
 }
+
+#[test]
+fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
+    use ramsift_driver::repair::{monochromatic_cliques, repair, Repair};
+    // The Paley colouring of order 17 is the unique (4,4;17) colouring (DS1); every
+    // single recoloured edge gives monochromatic K4s (the Paley test in this crate).
+    let paley = ramsift_tests::constructions::paley(17);
+    let mut near = paley.clone();
+    near.set(0, 1, 3 - paley.colour(0, 1));
+    let (paley_formula, spec) = formula(&[4, 4], 17);
+    let cliques = monochromatic_cliques(&spec, &near);
+    assert!(
+        !cliques.is_empty()
+            && cliques
+                .iter()
+                .all(|(_, s)| s.contains(&0) && s.contains(&1))
+    );
+    match repair(&paley_formula, &spec, &near, &AtomicBool::new(false), None).unwrap() {
+        Repair::Repaired(
+            ramsift_driver::portfolio::SearchResult::Found { colouring, .. },
+            radius,
+        ) => {
+            assert_eq!(radius, 0, "freeing the damaged cliques' edges suffices");
+            assert!(monochromatic_cliques(&spec, &colouring).is_empty());
+        }
+        other => panic!("not repaired: {other:?}"),
+    }
+    // At R(3,3) = 6 nothing can be repaired: the last radius is the whole formula.
+    let (small, spec) = formula(&[3, 3], 6);
+    let any = Colouring::from_fn(6, 2, |_, _| 1);
+    assert!(matches!(
+        repair(&small, &spec, &any, &AtomicBool::new(false), None).unwrap(),
+        Repair::None
+    ));
+}

@@ -15,6 +15,7 @@ use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
 use ramsift_driver::portfolio::{
     search, SearchOptions, SearchProgress, SearchReport, SearchResult,
 };
+use ramsift_driver::repair::{repair, Repair};
 use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice};
 use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files, FindSummary};
 use ramsift_encoder::atomic_file::write_atomically;
@@ -48,8 +49,13 @@ pub struct FindArgs {
     /// Extend this colouring of K_(N-1) by one vertex with SAT (a ramsift colouring
     /// file, or graph6 for two colours; - reads standard input). "None extends"
     /// concerns this colouring only.
-    #[arg(long, value_name = "FILE")]
+    #[arg(long, value_name = "FILE", conflicts_with = "repair")]
     pub from: Option<PathBuf>,
+    /// Repair this near-solution of K_N by SAT: free the edges of its remaining
+    /// monochromatic cliques, then every edge at their vertices, then all edges,
+    /// until a colouring is found (cliques only; e.g. local search's near-solution).
+    #[arg(long, value_name = "FILE")]
+    pub repair: Option<PathBuf>,
     /// Worker threads (default: all cores).
     #[arg(long, value_name = "COUNT")]
     pub threads: Option<usize>,
@@ -118,17 +124,12 @@ impl FindArgs {
     }
 }
 
-/// `find --from FILE`: extends the given colouring of K_(N-1) by one vertex.
-fn find_by_extension(
-    args: &FindArgs,
+/// A colouring named on the command line (a colouring file, or graph6 for two
+/// colours; - reads standard input), in the instance's colours.
+fn read_colouring_arg(
     from: &std::path::Path,
     instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
-) -> Result<(SearchReport, Option<String>)> {
-    anyhow::ensure!(
-        args.symmetry == "none",
-        "--from extends a given colouring: symmetry breaking could exclude its extensions, so --symmetry must be none"
-    );
+) -> Result<ramsift_encoder::Colouring> {
     let name = from.display().to_string();
     let content = if name == "-" {
         let mut bytes = Vec::new();
@@ -157,9 +158,75 @@ fn find_by_extension(
             graphs.swap_remove(0)
         }
     };
-    let base = ramsift_encoder::Colouring::from_fn(matrix.order(), instance.colours(), |i, j| {
-        matrix.colour(i, j)
-    });
+    Ok(ramsift_encoder::Colouring::from_fn(
+        matrix.order(),
+        instance.colours(),
+        |i, j| matrix.colour(i, j),
+    ))
+}
+
+/// `find --repair FILE`: repairs a near-solution of K_N by SAT around its
+/// remaining monochromatic cliques (see `ramsift_driver::repair`).
+fn find_by_repair(
+    args: &FindArgs,
+    from: &std::path::Path,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+) -> Result<SearchReport> {
+    anyhow::ensure!(
+        args.symmetry == "none",
+        "--repair keeps most edges of a colouring: --symmetry must be none"
+    );
+    anyhow::ensure!(
+        instance.spec().is_cliques(),
+        "--repair is for clique specifications"
+    );
+    let near = read_colouring_arg(from, instance)?;
+    anyhow::ensure!(
+        near.order() == instance.order(),
+        "{} colours K_{}: --repair takes a (near-)colouring of K_{}",
+        from.display(),
+        near.order(),
+        instance.order()
+    );
+    let encoding = args.instance.encoding("none")?;
+    args.instance.fits(&encoding, &instance.to_string(), 1)?;
+    let formula = Formula::from_encoding(&encoding);
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let result = match repair(
+        &formula,
+        instance.spec(),
+        &near,
+        &AtomicBool::new(false),
+        deadline,
+    )? {
+        Repair::Repaired(result, _) => result,
+        // The last radius is the whole plain formula: none exists at all.
+        Repair::None => SearchResult::NoneExists,
+        Repair::Stopped => SearchResult::Unknown,
+    };
+    Ok(SearchReport {
+        result,
+        attempts: 1,
+        elapsed: started.elapsed(),
+        threads: 1,
+    })
+}
+
+/// `find --from FILE`: extends the given colouring of K_(N-1) by one vertex.
+fn find_by_extension(
+    args: &FindArgs,
+    from: &std::path::Path,
+    instance: &ramsift_encoder::Instance,
+    options: &SearchOptions,
+) -> Result<(SearchReport, Option<String>)> {
+    anyhow::ensure!(
+        args.symmetry == "none",
+        "--from extends a given colouring: symmetry breaking could exclude its extensions, so --symmetry must be none"
+    );
+    let name = from.display().to_string();
+    let base = read_colouring_arg(from, instance)?;
     anyhow::ensure!(
         base.order() + 1 == instance.order(),
         "{name} colours K_{}: --from extends a colouring of K_{} to K_{}",
@@ -236,7 +303,9 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     let method = args.method().to_string();
 
     let mut family_note = None;
-    let report = if let Some(from) = &args.from {
+    let report = if let Some(near) = &args.repair {
+        find_by_repair(args, near, &instance, &options)?
+    } else if let Some(from) = &args.from {
         let (report, note) = find_by_extension(args, from, &instance, &options)?;
         family_note = note;
         report

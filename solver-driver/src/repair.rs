@@ -1,0 +1,109 @@
+//! Repair by SAT: from a near-solution (a colouring with a few monochromatic
+//! forbidden cliques left), free the edges near the remaining cliques and solve
+//! for them with every other edge fixed, growing the freed region until a
+//! colouring is found or the formula is the full one:
+//!
+//! * radius 0: the edges of the remaining monochromatic cliques;
+//! * radius 1: every edge at a vertex of one of them;
+//! * radius 2: every edge (the complete search, bounded by the deadline).
+//!
+//! An unsatisfiable radius says only that no repair within it exists.
+
+use std::io;
+use std::sync::atomic::AtomicBool;
+use std::time::Instant;
+
+use ramsift_encoder::combinations::for_each_subset;
+use ramsift_encoder::edges::edge_index;
+use ramsift_encoder::{Colouring, RamseySpec};
+
+use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::formula::Formula;
+use crate::portfolio::{verified, SearchError, SearchResult};
+use crate::seeding::{Seed, SeedKind};
+
+/// The monochromatic forbidden cliques of `colouring`: (colour, vertices).
+pub fn monochromatic_cliques(spec: &RamseySpec, colouring: &Colouring) -> Vec<(usize, Vec<usize>)> {
+    let mut found = Vec::new();
+    for (index, k) in spec.clique_sizes().into_iter().enumerate() {
+        let colour = index as u8 + 1;
+        let _ = for_each_subset::<()>(colouring.order(), k, |s| {
+            let mono = s
+                .iter()
+                .enumerate()
+                .all(|(p, &a)| s[p + 1..].iter().all(|&b| colouring.colour(a, b) == colour));
+            if mono {
+                found.push((colour as usize, s.to_vec()));
+            }
+            Ok(())
+        });
+    }
+    found
+}
+
+/// How a repair ended.
+#[derive(Clone, Debug)]
+pub enum Repair {
+    /// A verified colouring, found at this radius.
+    Repaired(SearchResult, usize),
+    /// No colouring differs from the near-solution only on the freed edges, at
+    /// every radius tried (the last being the full formula: none exists at all).
+    None,
+    Stopped,
+}
+
+/// Repairs `near` (a colouring of K_n for a clique specification).
+pub fn repair(
+    formula: &Formula,
+    spec: &RamseySpec,
+    near: &Colouring,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<Repair, SearchError> {
+    let n = near.order();
+    let cliques = monochromatic_cliques(spec, near);
+    let mut in_clique = vec![false; n];
+    cliques
+        .iter()
+        .flat_map(|(_, s)| s)
+        .for_each(|&v| in_clique[v] = true);
+    let clique_edge = |i: usize, j: usize| {
+        cliques
+            .iter()
+            .any(|(_, s)| s.contains(&i) && s.contains(&j))
+    };
+    for radius in 0..=2 {
+        let free = |i: usize, j: usize| match radius {
+            0 => clique_edge(i, j),
+            1 => in_clique[i] || in_clique[j],
+            _ => true,
+        };
+        let fixed: Vec<(usize, usize)> = (0..n)
+            .flat_map(|j| (0..j).map(move |i| (i, j)))
+            .filter(|&(i, j)| !free(i, j))
+            .map(|(i, j)| (edge_index(i, j), near.colour(i, j) as usize))
+            .collect();
+        let seed = Seed {
+            kind: SeedKind::NearSolution,
+            fixed,
+        };
+        let plan = AttemptPlan {
+            units: seed.units(formula.variables()),
+            ..AttemptPlan::default()
+        };
+        let report = run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?;
+        match report.outcome {
+            AttemptOutcome::Satisfiable(colouring) => {
+                let freed = n * (n - 1) / 2 - seed.fixed.len();
+                let by = format!(
+                    "SAT repair of a near-solution with {} monochromatic cliques, radius {radius} ({freed} edges freed)",
+                    cliques.len()
+                );
+                return Ok(Repair::Repaired(verified(spec, colouring, by)?, radius));
+            }
+            AttemptOutcome::Unsatisfiable => continue,
+            AttemptOutcome::Stopped(_) => return Ok(Repair::Stopped),
+        }
+    }
+    Ok(Repair::None)
+}
