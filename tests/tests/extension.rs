@@ -109,13 +109,51 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
         "{}",
         String::from_utf8_lossy(&o.stdout)
     );
-    // Wrong orders and bad colourings are refused.
+    // A colouring of a larger K_m than asked for is refused.
     let o = Command::new(&ramsift)
-        .args(["find", "4,5", "25", "--from"])
+        .args(["find", "4,5", "20", "--from"])
         .arg(&g6)
         .output()
         .unwrap();
     assert_eq!(o.status.code(), Some(2));
+    // Chains of extensions, one vertex at a time: the pentagon colouring of K_5
+    // (no monochromatic triangle, so no K4) grows to K_9, well below R(4,4) = 18
+    // (Greenwood & Gleason 1955); the chain is greedy, so it may also stop early,
+    // which it must then say with the order reached.
+    let k5 = dir.path().join("k5.colouring");
+    std::fs::write(&k5, "ramsift-colouring spec=4,4 order=5\n. 1 2 2 1\n1 . 1 2 2\n2 1 . 1 2\n2 2 1 . 1\n1 2 2 1 .\n").unwrap();
+    let o = Command::new(&ramsift)
+        .args(["find", "4,4", "9", "--json", "--from"])
+        .arg(&k5)
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(10),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let record: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert!(
+        record["found_by"]
+            .as_str()
+            .unwrap()
+            .contains("4 extension step(s) from K_5"),
+        "{record}"
+    );
+    let o = Command::new(&ramsift)
+        .args(["find", "4,4", "12", "--from"])
+        .arg(&k5)
+        .output()
+        .unwrap();
+    let out = String::from_utf8_lossy(&o.stdout);
+    assert!(
+        o.status.code() == Some(10)
+            || (o.status.code() == Some(1)
+                && out.contains("the chain of extensions")
+                && out.contains("stops at K_")),
+        "{out}"
+    );
 }
 
 #[test]

@@ -46,9 +46,9 @@ pub struct FindArgs {
     /// With --method local: tabu (default) or anneal.
     #[arg(long, default_value = "tabu", value_parser = ["tabu", "anneal"])]
     pub rule: String,
-    /// Extend this colouring of K_(N-1) by one vertex with SAT (a ramsift colouring
-    /// file, or graph6 for two colours; - reads standard input). "None extends"
-    /// concerns this colouring only.
+    /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
+    /// (a ramsift colouring file, or graph6 for two colours; - reads standard
+    /// input). "None extends" concerns this colouring only.
     #[arg(long, value_name = "FILE", conflicts_with = "repair")]
     pub from: Option<PathBuf>,
     /// Repair this near-solution of K_N by SAT: free the edges of its remaining
@@ -228,10 +228,9 @@ fn find_by_extension(
     let name = from.display().to_string();
     let base = read_colouring_arg(from, instance)?;
     anyhow::ensure!(
-        base.order() + 1 == instance.order(),
-        "{name} colours K_{}: --from extends a colouring of K_{} to K_{}",
+        base.order() < instance.order(),
+        "{name} colours K_{}: --from extends a colouring of a smaller K_m to K_{}",
         base.order(),
-        instance.order().saturating_sub(1),
         instance.order()
     );
     let verdict = ramsift_driver::verify::verify_witness(instance.spec(), &base);
@@ -241,29 +240,48 @@ fn find_by_extension(
         base.order(),
         instance.spec()
     );
-    let encoding = args.instance.encoding("none")?;
-    args.instance.fits(&encoding, &instance.to_string(), 1)?;
-    let formula = Formula::from_encoding(&encoding);
+    // One vertex at a time: K_m -> K_(m+1) -> ... -> K_N (a chain of extensions).
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
-    let outcome = extend(
-        &formula,
-        instance.spec(),
-        &base,
-        &AtomicBool::new(false),
-        deadline,
-    )?;
+    let mut current = base.clone();
+    let mut outcome = Extension::Stopped;
+    for order in base.order() + 1..=instance.order() {
+        let step = ramsift_encoder::Instance::new(instance.spec().clone(), order)?;
+        let encoding = ramsift_encoder::CliqueEncoding::new(
+            &step,
+            &ramsift_encoder::EncodingLimits::default(),
+        )?;
+        args.instance.fits(&encoding, &step.to_string(), 1)?;
+        let formula = Formula::from_encoding(&encoding);
+        outcome = extend(
+            &formula,
+            instance.spec(),
+            &current,
+            &AtomicBool::new(false),
+            deadline,
+        )?;
+        match &outcome {
+            Extension::Extended(SearchResult::Found { colouring, .. }) => {
+                current = colouring.clone()
+            }
+            _ => break,
+        }
+    }
     let (result, note) = match outcome {
-        Extension::Extended(result) => (result, None),
+        Extension::Extended(SearchResult::Found { colouring, found_by }) if colouring.order() == instance.order() => {
+            let steps = instance.order() - base.order();
+            (SearchResult::Found { colouring, found_by: format!("{found_by}; {steps} extension step(s) from K_{}", base.order()) }, None)
+        }
+        Extension::Extended(_) | Extension::Stopped => (SearchResult::Unknown, None),
         Extension::None => (
             SearchResult::Unknown,
             Some(format!(
-                "no colouring of K_{} extends the colouring of K_{} in {name}",
-                instance.order(),
-                base.order()
+                "the chain of extensions from the colouring of K_{} in {name} stops at K_{}: no colouring of K_{} extends it",
+                base.order(),
+                current.order(),
+                current.order() + 1
             )),
         ),
-        Extension::Stopped => (SearchResult::Unknown, None),
     };
     Ok((
         SearchReport {
