@@ -40,14 +40,7 @@ pub struct DrawArgs {
 
 pub fn run(args: &DrawArgs) -> Result<u8> {
     let name = args.file.display().to_string();
-    let content = if name == "-" {
-        let mut bytes = Vec::new();
-        std::io::Read::read_to_end(&mut std::io::stdin(), &mut bytes)
-            .context("reading standard input")?;
-        bytes
-    } else {
-        std::fs::read(&args.file).with_context(|| format!("reading {name}"))?
-    };
+    let content = super::input::read_file_or_stdin(&args.file)?;
     let is_colouring_file = content
         .split(|&b| b == b'\n')
         .map(|l| l.trim_ascii())

@@ -131,14 +131,7 @@ fn read_colouring_arg(
     instance: &ramsift_encoder::Instance,
 ) -> Result<ramsift_encoder::Colouring> {
     let name = from.display().to_string();
-    let content = if name == "-" {
-        let mut bytes = Vec::new();
-        std::io::Read::read_to_end(&mut std::io::stdin(), &mut bytes)
-            .context("reading standard input")?;
-        bytes
-    } else {
-        std::fs::read(from).with_context(|| format!("reading {name}"))?
-    };
+    let content = super::input::read_file_or_stdin(from)?;
     let matrix = match std::str::from_utf8(&content) {
         Ok(text)
             if text.lines().any(|l| {

@@ -6,6 +6,7 @@ pub mod draw;
 pub mod encode;
 pub mod enumerate;
 pub mod find;
+pub mod input;
 pub mod instance_args;
 pub mod progress;
 pub mod record;
