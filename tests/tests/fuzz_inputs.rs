@@ -487,7 +487,7 @@ fn graph6_mutants() {
 
 #[test]
 fn plan_and_shard_result_mutants() {
-    use ramsift_driver::shard::run::{complete_result, plan_encoding, read_plan};
+    use ramsift_driver::shard::run::{complete_result, plan_encoding, plan_sha256, read_plan};
     let dir = tempfile::tempdir().unwrap();
     let plan_dir = dir.path().join("plan");
     let status = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
@@ -525,9 +525,10 @@ fn plan_and_shard_result_mutants() {
     std::fs::write(&plan_path, &plan_base).unwrap();
     let result_path = plan_dir.join("shards").join("00000").join("result.json");
     let result_base = std::fs::read(&result_path).unwrap();
-    assert!(complete_result(&plan_dir, 0).is_some());
+    let sha = plan_sha256(&plan_dir).unwrap();
+    assert!(complete_result(&plan_dir, 0, &sha).is_some());
     fuzz("result.json", 9, &result_base, |m| {
         std::fs::write(&result_path, m).unwrap();
-        complete_result(&plan_dir, 0).is_some()
+        complete_result(&plan_dir, 0, &sha).is_some()
     });
 }

@@ -20,7 +20,7 @@ use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::plan::{Plan, PlanTree};
-use super::run::{complete_result, plan_encoding, read_plan};
+use super::run::{complete_result, plan_encoding, plan_sha256, read_plan};
 use super::status::{array_list, plan_status};
 use super::{shard_dir, PLAN_FILE};
 use crate::bundle::{
@@ -150,6 +150,7 @@ pub fn merge_counted(
         );
     }
     let encoding = plan_encoding(&plan)?;
+    let plan_sha256 = plan_sha256(plan_dir).context("hashing the plan")?;
     ensure_dir(out_dir)?;
     let shards_out = out_dir.join("shards");
     ensure_dir(&shards_out)?;
@@ -165,7 +166,7 @@ pub fn merge_counted(
     let mut shard_seconds = 0.0;
     let mut trace_bytes = 0;
     for cube in &plan.cubes {
-        let result = complete_result(plan_dir, cube.index)
+        let result = complete_result(plan_dir, cube.index, &plan_sha256)
             .context("a shard result changed during the merge")?;
         shard_seconds += result.seconds;
         let name = format!("shards/{:05}.drat", cube.index);

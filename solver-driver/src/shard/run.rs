@@ -99,14 +99,14 @@ pub fn plan_sha256(plan_dir: &Path) -> Option<String> {
         .map(|(sha, _)| sha)
 }
 
-/// Reads a shard's result record if it is complete (trace present with the recorded hash).
-pub fn complete_result(plan_dir: &Path, index: usize) -> Option<ShardResult> {
+/// Reads a shard's result record if it is complete (trace present with the recorded
+/// hash) and belongs to the plan whose plan.json hashes to `plan_sha256` (callers
+/// hash the plan once, not once per shard).
+pub fn complete_result(plan_dir: &Path, index: usize, plan_sha256: &str) -> Option<ShardResult> {
     let dir = shard_dir(plan_dir, index);
     let result: ShardResult =
         serde_json::from_str(&std::fs::read_to_string(dir.join(RESULT_FILE)).ok()?).ok()?;
-    if result.index != index
-        || Some(result.plan_sha256.as_str()) != plan_sha256(plan_dir).as_deref()
-    {
+    if result.index != index || result.plan_sha256.is_empty() || result.plan_sha256 != plan_sha256 {
         return None;
     }
     match result.status.as_str() {
@@ -134,7 +134,8 @@ pub fn run_shard(
             plan.cubes.len().saturating_sub(1)
         );
     };
-    if complete_result(plan_dir, index).is_some() {
+    let plan_sha256 = plan_sha256(plan_dir).context("hashing the plan")?;
+    if complete_result(plan_dir, index, &plan_sha256).is_some() {
         return Ok(ShardOutcome::AlreadyDone);
     }
     let dir: PathBuf = shard_dir(plan_dir, index);
@@ -144,7 +145,6 @@ pub fn run_shard(
     }
     std::fs::create_dir_all(&dir).with_context(|| format!("creating {}", dir.display()))?;
     let encoding = plan_encoding(&plan)?;
-    let plan_sha256 = plan_sha256(plan_dir).context("hashing the plan")?;
     let formula = Formula::from_encoding(&encoding);
     let trace = tempfile::Builder::new()
         .prefix(".proof.")

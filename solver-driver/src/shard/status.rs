@@ -4,7 +4,7 @@
 
 use std::path::Path;
 
-use super::run::complete_result;
+use super::run::{complete_result, plan_sha256};
 use super::{shard_dir, RESULT_FILE};
 
 /// The state of every shard.
@@ -32,8 +32,13 @@ impl PlanStatus {
 
 pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
     let mut status = PlanStatus::default();
+    // Without a readable plan no result can belong to it.
+    let plan_sha256 = plan_sha256(plan_dir);
     for index in 0..shards {
-        match complete_result(plan_dir, index) {
+        match plan_sha256
+            .as_deref()
+            .and_then(|sha| complete_result(plan_dir, index, sha))
+        {
             Some(r) if r.status == "refuted" => status.done.push(index),
             Some(_) => status.found.push(index),
             None if shard_dir(plan_dir, index).join(RESULT_FILE).exists() => {
