@@ -521,33 +521,20 @@ fn find_by_local_search(
     };
     let stop = AtomicBool::new(false);
     let progress = LocalProgress::default();
-    let started = Instant::now();
-    let report = std::thread::scope(|scope| {
-        let worker = scope.spawn(|| {
-            local_search(
-                instance.spec(),
-                instance.order(),
-                &local_options,
-                &stop,
-                &progress,
+    let report = line.run_while(
+        || local_search(instance.spec(), instance.order(), &local_options, &stop, &progress),
+        |elapsed| {
+            let best = progress.best_cost.load(Ordering::Relaxed);
+            format!(
+                "{instance}: {}, {} steps, {} restarts, fewest monochromatic cliques {}, {} elapsed",
+                local_options.method,
+                progress.steps.load(Ordering::Relaxed),
+                progress.restarts.load(Ordering::Relaxed),
+                if best == u64::MAX { "-".to_string() } else { best.to_string() },
+                seconds(elapsed)
             )
-        });
-        while !worker.is_finished() {
-            std::thread::sleep(std::time::Duration::from_millis(100));
-            line.update(|| {
-                let best = progress.best_cost.load(Ordering::Relaxed);
-                format!(
-                    "{instance}: {}, {} steps, {} restarts, fewest monochromatic cliques {}, {} elapsed",
-                    local_options.method,
-                    progress.steps.load(Ordering::Relaxed),
-                    progress.restarts.load(Ordering::Relaxed),
-                    if best == u64::MAX { "-".to_string() } else { best.to_string() },
-                    seconds(started.elapsed())
-                )
-            });
-        }
-        worker.join().expect("local search thread")
-    })?;
+        },
+    )?;
     if report.found.is_none() && !args.quiet && !args.json {
         eprintln!(
             "{instance}: best colouring seen has {} monochromatic forbidden cliques",

@@ -2,7 +2,7 @@
 //! did not ask for quiet.
 
 use std::io::IsTerminal;
-use std::time::Duration;
+use std::time::{Duration, Instant};
 
 use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
 
@@ -26,6 +26,31 @@ impl ProgressLine {
             bar.set_message(message());
             bar.tick();
         }
+    }
+
+    /// Runs `work` on a thread of its own while the line shows `message(elapsed)`,
+    /// refreshed every 100 ms (the end of the work is noticed within 5 ms), and
+    /// clears the line afterwards.
+    pub fn run_while<T: Send>(
+        &self,
+        work: impl FnOnce() -> T + Send,
+        message: impl Fn(Duration) -> String,
+    ) -> T {
+        let started = Instant::now();
+        let result = std::thread::scope(|scope| {
+            let worker = scope.spawn(work);
+            let mut polls = 0u32;
+            while !worker.is_finished() {
+                std::thread::sleep(Duration::from_millis(5));
+                polls += 1;
+                if polls % 20 == 0 {
+                    self.update(|| message(started.elapsed()));
+                }
+            }
+            worker.join().expect("the worker thread does not panic")
+        });
+        self.finish();
+        result
     }
 
     pub fn finish(&self) {

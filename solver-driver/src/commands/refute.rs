@@ -2,7 +2,6 @@
 
 use std::path::PathBuf;
 use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
-use std::time::{Duration, Instant};
 
 use anyhow::{Context, Result};
 use clap::Args;
@@ -74,28 +73,17 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let stop = AtomicBool::new(false);
     let bytes = AtomicU64::new(0);
     let line = ProgressLine::new(args.quiet);
-    let started = Instant::now();
-    let report = std::thread::scope(|scope| {
-        let worker = scope.spawn(|| refute(&encoding, &args.out, &options, &stop, &bytes));
-        let mut polls = 0u32;
-        while !worker.is_finished() {
-            std::thread::sleep(Duration::from_millis(5));
-            polls += 1;
-            if polls % 20 != 0 {
-                continue;
-            }
-            line.update(|| {
-                format!(
-                    "refuting {instance} [{}]: {} elapsed, {} MiB of DRAT trace",
-                    encoding.symmetry(),
-                    seconds(started.elapsed()),
-                    bytes.load(Ordering::Relaxed) >> 20
-                )
-            });
-        }
-        worker.join().expect("the refutation thread does not panic")
-    })?;
-    line.finish();
+    let report = line.run_while(
+        || refute(&encoding, &args.out, &options, &stop, &bytes),
+        |elapsed| {
+            format!(
+                "refuting {instance} [{}]: {} elapsed, {} MiB of DRAT trace",
+                encoding.symmetry(),
+                seconds(elapsed),
+                bytes.load(Ordering::Relaxed) >> 20
+            )
+        },
+    )?;
 
     let spec = instance.spec();
     let n = instance.order();

@@ -151,10 +151,9 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
             ramsift_driver::output_dir::prepare(&args.out, args.force)?;
             let copied = std::sync::atomic::AtomicUsize::new(0);
             let line = ProgressLine::new(args.json);
-            let started = std::time::Instant::now();
             let shards = read_plan(&args.plan)?.cubes.len();
-            let report = std::thread::scope(|scope| {
-                let work = scope.spawn(|| {
+            let report = line.run_while(
+                || {
                     merge_counted(
                         &args.plan,
                         &args.out,
@@ -162,21 +161,15 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                         !args.assume_premises,
                         &copied,
                     )
-                });
-                while !work.is_finished() {
-                    std::thread::sleep(std::time::Duration::from_millis(100));
-                    line.update(|| {
-                        let done = copied.load(Ordering::Relaxed);
-                        format!(
-                            "merging: {done} of {shards} shard traces taken in, {} elapsed",
-                            seconds(started.elapsed())
-                        )
-                    });
-                }
-                work.join().expect("merging does not panic")
-            });
-            line.finish();
-            let report = report?;
+                },
+                |elapsed| {
+                    let done = copied.load(Ordering::Relaxed);
+                    format!(
+                        "merging: {done} of {shards} shard traces taken in, {} elapsed",
+                        seconds(elapsed)
+                    )
+                },
+            )?;
             if args.json {
                 let plan = read_plan(&args.plan)?;
                 let record = serde_json::json!({
@@ -214,24 +207,18 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let (sha, _) = ramsift_driver::bundle::hash_file(&formula_path)?;
     let leaves = std::sync::atomic::AtomicUsize::new(0);
     let line = ProgressLine::new(args.json);
-    let started = std::time::Instant::now();
-    let plan = std::thread::scope(|scope| {
-        let work = scope.spawn(|| plan_cubes_counted(&encoding, args.shards, sha, &leaves));
-        while !work.is_finished() {
-            std::thread::sleep(std::time::Duration::from_millis(100));
-            line.update(|| {
-                let so_far = leaves.load(Ordering::Relaxed);
-                format!(
-                    "planning {}: {so_far} of {} cubes, {} elapsed",
-                    encoding.instance(),
-                    args.shards,
-                    seconds(started.elapsed())
-                )
-            });
-        }
-        work.join().expect("planning does not panic")
-    });
-    line.finish();
+    let plan = line.run_while(
+        || plan_cubes_counted(&encoding, args.shards, sha, &leaves),
+        |elapsed| {
+            let so_far = leaves.load(Ordering::Relaxed);
+            format!(
+                "planning {}: {so_far} of {} cubes, {} elapsed",
+                encoding.instance(),
+                args.shards,
+                seconds(elapsed)
+            )
+        },
+    );
     let json = serde_json::to_string_pretty(&plan)?;
     write_atomically(&args.out.join(PLAN_FILE), |w| w.write_all(json.as_bytes()))?;
     if args.json {
@@ -365,32 +352,27 @@ fn local(args: &LocalArgs) -> Result<u8> {
     let stop = AtomicBool::new(false);
     let finished = std::sync::atomic::AtomicUsize::new(0);
     let line = ProgressLine::new(args.json);
-    let started = std::time::Instant::now();
-    let outcomes: Vec<Result<ShardOutcome>> = std::thread::scope(|scope| {
-        let work = scope.spawn(|| {
-            pool.install(|| {
-                let run = |&i: &usize| {
-                    let outcome = run_shard(&args.plan, i, None, &stop);
-                    finished.fetch_add(1, Ordering::Relaxed);
-                    outcome
-                };
-                pending.par_iter().map(run).collect()
-            })
-        });
-        while !work.is_finished() {
-            std::thread::sleep(std::time::Duration::from_millis(100));
-            line.update(|| {
-                let done = finished.load(Ordering::Relaxed);
-                format!(
-                    "{done} of {} shards run on {threads} threads, {} elapsed",
-                    pending.len(),
-                    seconds(started.elapsed())
-                )
-            });
-        }
-        work.join().expect("the shard pool does not panic")
+    let run_all = || {
+        pool.install(|| {
+            let run = |&i: &usize| {
+                let outcome = run_shard(&args.plan, i, None, &stop);
+                finished.fetch_add(1, Ordering::Relaxed);
+                outcome
+            };
+            pending
+                .par_iter()
+                .map(run)
+                .collect::<Vec<Result<ShardOutcome>>>()
+        })
+    };
+    let outcomes = line.run_while(run_all, |elapsed| {
+        let done = finished.load(Ordering::Relaxed);
+        format!(
+            "{done} of {} shards run on {threads} threads, {} elapsed",
+            pending.len(),
+            seconds(elapsed)
+        )
     });
-    line.finish();
     let mut found = Vec::new();
     for (i, outcome) in pending.iter().zip(outcomes) {
         match outcome.with_context(|| format!("shard {i}"))? {
