@@ -4,14 +4,12 @@
 //! that contains the given one, or a proof that none does (a statement about this
 //! colouring only: other colourings of K_n may still exist).
 
-use std::io;
 use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
-use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::Colouring;
 
-use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::attempt::AttemptOutcome;
 use crate::formula::Formula;
 use crate::portfolio::{verified, SearchError, SearchResult};
 use crate::seeding::{Seed, SeedKind};
@@ -44,20 +42,8 @@ pub fn extend(
             base.order()
         )));
     }
-    let fixed = (0..n - 1)
-        .flat_map(|j| (0..j).map(move |i| (i, j)))
-        .map(|(i, j)| (edge_index(i, j), base.colour(i, j) as usize))
-        .collect();
-    let seed = Seed {
-        kind: SeedKind::Extension,
-        fixed,
-    };
-    let plan = AttemptPlan {
-        units: seed.units(formula.variables()),
-        ..AttemptPlan::default()
-    };
-    let report = run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?;
-    Ok(match report.outcome {
+    let seed = Seed::from_colouring(SeedKind::Extension, base, |_, _| true);
+    Ok(match seed.solve(formula, stop, deadline)? {
         AttemptOutcome::Satisfiable(colouring) => Extension::Extended(verified(
             spec,
             colouring,

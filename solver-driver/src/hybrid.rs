@@ -33,7 +33,6 @@ use rand::seq::SliceRandom;
 use rand::{Rng, SeedableRng};
 use rand_chacha::ChaCha8Rng;
 
-use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{Colouring, RamseySpec};
 
 use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
@@ -334,14 +333,8 @@ fn helper_stages(
             let neighbours =
                 family_colourings(&orbits, spec, 16, stop, structured_deadline).unwrap_or_default();
             for colouring in neighbours {
-                let fixed = (0..order - 1)
-                    .flat_map(|j| (0..j).map(move |i| (i, j)))
-                    .map(|(i, j)| (edge_index(i, j), colouring.colour(i, j) as usize))
-                    .collect();
-                let seed = Seed {
-                    kind: SeedKind::CirculantNeighbour,
-                    fixed,
-                };
+                let seed =
+                    Seed::from_colouring(SeedKind::CirculantNeighbour, &colouring, |_, _| true);
                 if let Some(found) = try_seed(&seed, &mut rng, &mut attempt_no)? {
                     return Ok(Some(found));
                 }
@@ -412,12 +405,8 @@ fn helper_stages(
 pub fn near_solution_seeds(near: &Colouring, spec: &RamseySpec, rng: &mut ChaCha8Rng) -> Vec<Seed> {
     let state = LocalState::new(near, &spec.clique_sizes());
     let bad: std::collections::HashSet<(usize, usize)> = state.bad_edges().into_iter().collect();
-    let n = near.order();
-    let good: Vec<(usize, usize)> = (0..n)
-        .flat_map(|j| (0..j).map(move |i| (i, j)))
-        .filter(|e| !bad.contains(e))
-        .map(|(i, j)| (edge_index(i, j), near.colour(i, j) as usize))
-        .collect();
+    let good =
+        Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !bad.contains(&(i, j))).fixed;
     let mut released = good.clone();
     released.shuffle(rng);
     released.truncate(good.len() * 4 / 5);
@@ -437,6 +426,7 @@ pub fn near_solution_seeds(near: &Colouring, spec: &RamseySpec, rng: &mut ChaCha
 #[cfg(test)]
 mod tests {
     use super::*;
+    use ramsift_encoder::edges::edge_index;
 
     #[test]
     fn near_solution_seeds_leave_the_bad_edges_free() {

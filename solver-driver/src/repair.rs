@@ -9,15 +9,13 @@
 //!
 //! An unsatisfiable radius says only that no repair within it exists.
 
-use std::io;
 use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
 use ramsift_encoder::combinations::for_each_subset;
-use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{Colouring, RamseySpec};
 
-use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::attempt::AttemptOutcome;
 use crate::formula::Formula;
 use crate::portfolio::{verified, SearchError, SearchResult};
 use crate::seeding::{Seed, SeedKind};
@@ -78,21 +76,8 @@ pub fn repair(
             1 => in_clique[i] || in_clique[j],
             _ => true,
         };
-        let fixed: Vec<(usize, usize)> = (0..n)
-            .flat_map(|j| (0..j).map(move |i| (i, j)))
-            .filter(|&(i, j)| !free(i, j))
-            .map(|(i, j)| (edge_index(i, j), near.colour(i, j) as usize))
-            .collect();
-        let seed = Seed {
-            kind: SeedKind::NearSolution,
-            fixed,
-        };
-        let plan = AttemptPlan {
-            units: seed.units(formula.variables()),
-            ..AttemptPlan::default()
-        };
-        let report = run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?;
-        match report.outcome {
+        let seed = Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !free(i, j));
+        match seed.solve(formula, stop, deadline)? {
             AttemptOutcome::Satisfiable(colouring) => {
                 let freed = n * (n - 1) / 2 - seed.fixed.len();
                 let by = format!(

@@ -11,15 +11,23 @@
 //!   classical extremal colourings.
 //!
 //! Seeds only steer the search: an attempt that is unsatisfiable under its seed
-//! says nothing, and the one unseeded worker keeps the search complete.
+//! says nothing, and the one unseeded worker keeps the search complete. Seeds
+//! taken from whole colourings ([`Seed::from_colouring`]) also serve extension
+//! and repair, which solve with them directly ([`Seed::solve`]).
 
 use std::fmt;
+use std::io;
+use std::sync::atomic::AtomicBool;
+use std::time::Instant;
 
 use rand::seq::index::sample;
 use rand::Rng;
 
 use ramsift_encoder::edges::{edge_count, edge_index};
-use ramsift_encoder::VariableMap;
+use ramsift_encoder::{Colouring, VariableMap};
+
+use crate::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::formula::Formula;
 
 /// Which construction a seed came from.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -57,6 +65,36 @@ pub struct Seed {
 }
 
 impl Seed {
+    /// The edges {i,j} of `colouring` for which `keep(i, j)` holds, fixed to their colours.
+    pub fn from_colouring(
+        kind: SeedKind,
+        colouring: &Colouring,
+        keep: impl Fn(usize, usize) -> bool,
+    ) -> Seed {
+        let n = colouring.order();
+        let fixed = (0..n)
+            .flat_map(|j| (0..j).map(move |i| (i, j)))
+            .filter(|&(i, j)| keep(i, j))
+            .map(|(i, j)| (edge_index(i, j), colouring.colour(i, j) as usize))
+            .collect();
+        Seed { kind, fixed }
+    }
+
+    /// One complete attempt on `formula` with this seed's edges fixed (no
+    /// renaming, no budget): how extension and repair solve.
+    pub fn solve(
+        &self,
+        formula: &Formula,
+        stop: &AtomicBool,
+        deadline: Option<Instant>,
+    ) -> Result<AttemptOutcome, AttemptError> {
+        let plan = AttemptPlan {
+            units: self.units(formula.variables()),
+            ..AttemptPlan::default()
+        };
+        Ok(run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?.outcome)
+    }
+
     /// Unit clauses pinning each fixed edge to its colour.
     pub fn units(&self, vars: &VariableMap) -> Vec<i32> {
         let r = vars.colours();
