@@ -5,12 +5,8 @@ use std::path::PathBuf;
 use anyhow::{Context, Result};
 use clap::Args;
 
-use ramsift_checker::colouring_file::parse_colouring_file;
-use ramsift_checker::graph6::decode_graph6_file;
-use ramsift_checker::ColourMatrix;
 use ramsift_driver::draw::{svg, tikz, Figure, Layout};
 use ramsift_driver::exit_codes;
-use ramsift_driver::witness::split_colouring_stream;
 use ramsift_encoder::atomic_file::write_atomically;
 
 #[derive(Args, Debug)]
@@ -39,35 +35,24 @@ pub struct DrawArgs {
 }
 
 pub fn run(args: &DrawArgs) -> Result<u8> {
-    let name = args.file.display().to_string();
-    let content = super::input::read_file_or_stdin(&args.file)?;
-    let is_colouring_file = content
-        .split(|&b| b == b'\n')
-        .map(|l| l.trim_ascii())
-        .find(|l| !l.is_empty() && !l.starts_with(b"#"))
-        .is_some_and(|l| l.starts_with(b"ramsift-colouring"));
-    let (matrix, colours, title): (ColourMatrix, usize, String) = if is_colouring_file {
-        let text = String::from_utf8(content).map_err(|e| {
-            anyhow::anyhow!(
-                "{name}: not UTF-8 text at byte {}",
-                e.utf8_error().valid_up_to()
-            )
-        })?;
-        // A stream (enumerate's output with three or more colours): the first one.
-        let parts = split_colouring_stream(&text);
-        let file =
-            parse_colouring_file(&name, parts.first().map_or(text.as_str(), String::as_str))?;
-        let mut title = format!("a ({};{}) colouring", file.claim, file.matrix.order());
-        if parts.len() > 1 {
-            title.push_str(&format!(", the first of {} in the file", parts.len()));
+    let read = super::input::read_first_colouring(&args.file)?;
+    let matrix = read.matrix;
+    let (colours, title) = match &read.claim {
+        Some(claim) => {
+            let mut title = format!("a ({claim};{}) colouring", matrix.order());
+            if read.in_file > 1 {
+                // A stream (enumerate's output with three or more colours): the first one.
+                title.push_str(&format!(", the first of {} in the file", read.in_file));
+            }
+            (claim.colours(), title)
         }
-        (file.matrix, file.claim.colours(), title)
-    } else {
-        let mut graphs = decode_graph6_file(&name, &content)?;
-        anyhow::ensure!(!graphs.is_empty(), "{name}: no graph6 line found");
-        let m = graphs.swap_remove(0);
-        let title = format!("a 2-colouring of K_{} (graph6: edges colour 1)", m.order());
-        (m, 2, title)
+        None => (
+            2,
+            format!(
+                "a 2-colouring of K_{} (graph6: edges colour 1)",
+                matrix.order()
+            ),
+        ),
     };
     let n = matrix.order();
     let mut cells = vec![0u8; n * n];

@@ -130,27 +130,20 @@ fn read_colouring_arg(
     from: &std::path::Path,
     instance: &ramsift_encoder::Instance,
 ) -> Result<ramsift_encoder::Colouring> {
-    let name = from.display().to_string();
-    let content = super::input::read_file_or_stdin(from)?;
-    let matrix = match std::str::from_utf8(&content) {
-        Ok(text)
-            if text.lines().any(|l| {
-                l.trim_start()
-                    .starts_with(ramsift_driver::witness::COLOURING_MAGIC)
-            }) =>
-        {
-            ramsift_checker::colouring_file::parse_colouring_file(&name, text)?.matrix
-        }
-        _ => {
-            let mut graphs = ramsift_checker::graph6::decode_graph6_file(&name, &content)?;
-            anyhow::ensure!(
-                instance.colours() == 2,
-                "{name}: graph6 describes two colours; the specification has {}",
-                instance.colours()
-            );
-            graphs.swap_remove(0)
-        }
-    };
+    let read = super::input::read_first_colouring(from)?;
+    anyhow::ensure!(
+        read.in_file == 1,
+        "{}: holds {} colourings; give a file with one",
+        from.display(),
+        read.in_file
+    );
+    anyhow::ensure!(
+        read.claim.is_some() || instance.colours() == 2,
+        "{}: graph6 describes two colours; the specification has {}",
+        from.display(),
+        instance.colours()
+    );
+    let matrix = read.matrix;
     Ok(ramsift_encoder::Colouring::from_fn(
         matrix.order(),
         instance.colours(),
