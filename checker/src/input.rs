@@ -30,20 +30,20 @@ pub fn read_input(path: &Path) -> Result<Vec<u8>, InputError> {
     let name = path.display().to_string();
     require_regular_file(path)?;
     let raw = std::fs::read(path).map_err(|e| InputError::whole(&name, format!("cannot read: {e}")))?;
+    expand_gzip(&name, raw)
+}
+
+/// `raw` itself, or its gzip decompression, never beyond the bounded multiple.
+pub fn expand_gzip(name: &str, raw: Vec<u8>) -> Result<Vec<u8>, InputError> {
     if !raw.starts_with(&[0x1f, 0x8b]) {
         return Ok(raw);
     }
-    let limit = raw.len() as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE;
-    let mut out = Vec::new();
-    flate2::read::MultiGzDecoder::new(&raw[..])
-        .take(limit + 1)
-        .read_to_end(&mut out)
-        .map_err(|e| InputError::whole(&name, format!("gzip data is damaged: {e}")))?;
+    let (limit, mut out) = (raw.len() as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE, Vec::new());
+    let decoded = flate2::read::MultiGzDecoder::new(&raw[..]).take(limit + 1).read_to_end(&mut out);
+    decoded.map_err(|e| InputError::whole(name, format!("gzip data is damaged: {e}")))?;
     if out.len() as u64 > limit {
-        return Err(InputError::whole(
-            &name,
-            format!("gzip data expands beyond {limit} bytes ({MAX_GZIP_RATIO}x its size plus 64 MiB): refused"),
-        ));
+        let why = format!("gzip data expands beyond {limit} bytes ({MAX_GZIP_RATIO}x its size plus 64 MiB): refused");
+        return Err(InputError::whole(name, why));
     }
     Ok(out)
 }

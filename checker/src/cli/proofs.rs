@@ -20,19 +20,7 @@ fn read_arg(path: &Path) -> Result<Vec<u8>, String> {
     }
     let mut raw = Vec::new();
     std::io::stdin().read_to_end(&mut raw).map_err(|e| format!("standard input: {e}"))?;
-    if !raw.starts_with(&[0x1f, 0x8b]) {
-        return Ok(raw);
-    }
-    let mut out = Vec::new();
-    let limit = raw.len() as u64 * ramsift_checker::input::MAX_GZIP_RATIO + ramsift_checker::input::GZIP_ALLOWANCE;
-    flate2::read::MultiGzDecoder::new(&raw[..])
-        .take(limit + 1)
-        .read_to_end(&mut out)
-        .map_err(|e| format!("standard input: gzip data is damaged: {e}"))?;
-    if out.len() as u64 > limit {
-        return Err(format!("standard input: gzip data expands beyond {limit} bytes: refused"));
-    }
-    Ok(out)
+    ramsift_checker::input::expand_gzip("standard input", raw).map_err(|e| e.to_string())
 }
 
 fn load_cnf(path: &Path) -> Result<Cnf, String> {
