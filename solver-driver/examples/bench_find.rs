@@ -15,7 +15,7 @@ mod bench_util;
 
 use std::process::Command;
 
-use ramsift_driver::formula::Formula;
+use ramsift_driver::search::formula::Formula;
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
 use varisat::{ExtendFormula, Lit, Solver};
 

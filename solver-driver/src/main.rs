@@ -68,7 +68,7 @@ fn quiet_on_closed_pipe() {
 fn main() -> ExitCode {
     quiet_on_closed_pipe();
     let cli = Cli::parse();
-    if let Err(e) = ramsift_driver::interrupt::install_signal_handler() {
+    if let Err(e) = ramsift_driver::search::interrupt::install_signal_handler() {
         eprintln!("ramsift: warning: Ctrl-C will not stop cleanly: {e}");
     }
     let result = match cli.command {

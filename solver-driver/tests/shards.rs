@@ -148,7 +148,9 @@ fn local_shards_merge_into_a_passing_bundle_and_damage_is_caught() {
     let cut = steps[steps.len() / 2].offset as usize;
     let bytes = std::fs::read(&shard_trace).unwrap();
     std::fs::write(&shard_trace, &bytes[..cut]).unwrap();
-    let hash = ramsift_driver::bundle::hash_file(&shard_trace).unwrap().0;
+    let hash = ramsift_driver::certify::bundle::hash_file(&shard_trace)
+        .unwrap()
+        .0;
     let manifest_path = bundle.join("manifest.json");
     let mut manifest: serde_json::Value =
         serde_json::from_str(&std::fs::read_to_string(&manifest_path).unwrap()).unwrap();

@@ -5,9 +5,9 @@ use std::time::Duration;
 
 use ramsift_checker::check_colouring;
 use ramsift_checker::colouring_file::parse_colouring_file;
-use ramsift_driver::formula::Formula;
-use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
-use ramsift_driver::witness::colouring_text;
+use ramsift_driver::output::witness::colouring_text;
+use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
 use ramsift_tests::published::CLASSICAL;
 

@@ -5,8 +5,8 @@ use proptest::prelude::*;
 
 use ramsift_checker::check_colouring;
 use ramsift_checker::graph6::{decode_graph6, decode_graph6_file};
-use ramsift_driver::graph6::encode_graph6;
-use ramsift_driver::verify::{to_claim, to_matrix};
+use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
+use ramsift_driver::output::graph6::encode_graph6;
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
 
 fn colouring_from(order: usize, colours: usize, words: &[u64]) -> Colouring {

@@ -3,8 +3,8 @@
 use std::sync::atomic::AtomicBool;
 
 use ramsift_checker::check_colouring;
+use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
-use ramsift_driver::verify::{to_claim, to_matrix};
 use ramsift_encoder::{Instance, RamseySpec};
 
 fn count(sizes: &[usize], n: usize, swap_colours: bool) -> usize {

@@ -5,8 +5,8 @@ use std::process::Command;
 use std::sync::atomic::AtomicBool;
 
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
-use ramsift_driver::extension::{extend, Extension};
-use ramsift_driver::formula::Formula;
+use ramsift_driver::search::extension::{extend, Extension};
+use ramsift_driver::search::formula::Formula;
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
 use ramsift_tests::binaries::workspace_binary;
 
@@ -73,7 +73,7 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
     let g6 = dir.path().join("less.g6");
     std::fs::write(
         &g6,
-        ramsift_driver::witness::colour_one_graph6(&less) + "\n",
+        ramsift_driver::output::witness::colour_one_graph6(&less) + "\n",
     )
     .unwrap();
     let o = Command::new(&ramsift)
@@ -158,7 +158,7 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
 
 #[test]
 fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
-    use ramsift_driver::repair::{monochromatic_cliques, repair, Repair};
+    use ramsift_driver::search::repair::{monochromatic_cliques, repair, Repair};
     // The Paley colouring of order 17 is the unique (4,4;17) colouring (DS1); every
     // single recoloured edge gives monochromatic K4s (the Paley test in this crate).
     let paley = ramsift_tests::constructions::paley(17);
@@ -174,7 +174,7 @@ fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
     );
     match repair(&paley_formula, &spec, &near, &AtomicBool::new(false), None).unwrap() {
         Repair::Repaired(
-            ramsift_driver::portfolio::SearchResult::Found { colouring, .. },
+            ramsift_driver::search::portfolio::SearchResult::Found { colouring, .. },
             radius,
         ) => {
             assert_eq!(radius, 0, "freeing the damaged cliques' edges suffices");

@@ -20,7 +20,7 @@ use ramsift_checker::graph6::decode_graph6_file;
 use ramsift_checker::input::read_input;
 use ramsift_checker::lrat::{check_lrat, parse_lrat, write_lrat, LratStep};
 use ramsift_checker::{check_colouring, Claim, ClaimGraph, ColourMatrix};
-use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 
 const MUTANTS: usize = 10_000;
@@ -462,7 +462,7 @@ fn graph6_mutants() {
     let paley = ramsift_tests::constructions::paley(13);
     let base = format!(
         ">>graph6<<Dhc\n{}\n",
-        ramsift_driver::witness::colour_one_graph6(&paley)
+        ramsift_driver::output::witness::colour_one_graph6(&paley)
     );
     let claim = Claim {
         forbidden: vec![ClaimGraph::Clique(3), ClaimGraph::Clique(3)],

@@ -7,10 +7,10 @@ use std::time::Duration;
 
 use ramsift_checker::bundle::check_bundle;
 use ramsift_checker::check_colouring;
-use ramsift_driver::formula::Formula;
-use ramsift_driver::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
-use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
-use ramsift_driver::verify::{to_claim, to_matrix};
+use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
+use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 use ramsift_tests::published::GRAPH_VALUES;
 

@@ -1,7 +1,7 @@
 //! Model counting of the encoder against brute force.
 
 use ramsift_checker::check_colouring;
-use ramsift_driver::verify::{to_claim, to_matrix};
+use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
 use ramsift_tests::published::TRIANGLE_FREE_K5_COLOURINGS;
 

@@ -1,7 +1,7 @@
 //! The Paley colouring of K_17 against the checker, and single-edge mutants of it.
 
 use ramsift_checker::{check_colouring, Claim, Verdict};
-use ramsift_driver::verify::to_matrix;
+use ramsift_driver::certify::witness_check::to_matrix;
 use ramsift_encoder::combinations::for_each_subset;
 use ramsift_encoder::Colouring;
 use ramsift_tests::constructions::{paley, quadratic_residues};

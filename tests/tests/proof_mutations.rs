@@ -11,7 +11,7 @@ use ramsift_checker::cnf::{parse_cnf, Cnf};
 use ramsift_checker::drat_check::check_drat;
 use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
 use ramsift_checker::input::read_input;
-use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 use ramsift_tests::reference_drat::reference_refutes;
 
@@ -198,7 +198,7 @@ fn copy_dir(from: &Path, to: &Path) {
 }
 
 fn sha256_of(path: &Path) -> String {
-    ramsift_driver::bundle::hash_file(path).unwrap().0
+    ramsift_driver::certify::bundle::hash_file(path).unwrap().0
 }
 
 /// Edits the manifest JSON with `edit`, writing it back.

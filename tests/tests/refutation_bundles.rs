@@ -5,7 +5,7 @@
 use std::sync::atomic::{AtomicBool, AtomicU64};
 
 use ramsift_checker::bundle::check_bundle;
-use ramsift_driver::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, Scheme, SymmetrySet};
 
 /// Refutes (sizes; order) with `symmetry` into a fresh directory and checks the bundle.

@@ -5,16 +5,16 @@ use std::sync::atomic::AtomicBool;
 use std::time::Duration;
 
 use ramsift_checker::{check_colouring, Claim};
-use ramsift_driver::formula::Formula;
-use ramsift_driver::hybrid::hybrid_search;
+use ramsift_driver::certify::witness_check::to_matrix;
 use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
-use ramsift_driver::portfolio::{SearchOptions, SearchProgress, SearchResult};
+use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::hybrid::hybrid_search;
+use ramsift_driver::search::portfolio::{SearchOptions, SearchProgress, SearchResult};
 use ramsift_driver::structured::scan::scan;
 use ramsift_driver::structured::{
     search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
 };
-use ramsift_driver::verify::to_matrix;
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
 use ramsift_tests::constructions::{circulant, paley};
 use ramsift_tests::published::{CLASSICAL, LARGEST_CIRCULANT_3T};

@@ -14,10 +14,10 @@ use super::record::print_record;
 use ramsift_checker::check_colouring;
 use ramsift_checker::colouring_file::parse_colouring_file;
 use ramsift_driver::exit_codes;
-use ramsift_driver::formula::Formula;
-use ramsift_driver::hybrid::hybrid_search;
-use ramsift_driver::portfolio::{SearchOptions, SearchProgress, SearchResult};
-use ramsift_driver::witness::{write_witness_files, COLOURING_FILE};
+use ramsift_driver::output::witness::{write_witness_files, COLOURING_FILE};
+use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::hybrid::hybrid_search;
+use ramsift_driver::search::portfolio::{SearchOptions, SearchProgress, SearchResult};
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
 
 /// The demo's cases: (specification, order, expected answer). Expected answers are

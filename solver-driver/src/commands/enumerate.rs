@@ -15,7 +15,7 @@ use serde::Serialize;
 
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::exit_codes;
-use ramsift_driver::witness::{colour_one_graph6, colouring_text};
+use ramsift_driver::output::witness::{colour_one_graph6, colouring_text};
 use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
@@ -107,7 +107,7 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         colourings: result
             .classes
             .iter()
-            .map(ramsift_driver::witness::colouring_rows)
+            .map(ramsift_driver::output::witness::colouring_rows)
             .collect(),
     };
     if result.complete {

@@ -7,17 +7,19 @@ use std::time::Instant;
 use anyhow::{Context, Result};
 use clap::Args;
 
-use ramsift_driver::extension::{extend, Extension};
-use ramsift_driver::formula::Formula;
-use ramsift_driver::hybrid::auto_search;
 use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
-use ramsift_driver::portfolio::{
+use ramsift_driver::output::witness::{
+    colouring_text, write_summary, write_witness_files, FindSummary,
+};
+use ramsift_driver::search::extension::{extend, Extension};
+use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::hybrid::auto_search;
+use ramsift_driver::search::portfolio::{
     search, SearchOptions, SearchProgress, SearchReport, SearchResult,
 };
-use ramsift_driver::repair::{repair, Repair};
+use ramsift_driver::search::repair::{repair, Repair};
 use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice};
-use ramsift_driver::witness::{colouring_text, write_summary, write_witness_files, FindSummary};
 use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
@@ -152,7 +154,7 @@ fn read_colouring_arg(
 }
 
 /// `find --repair FILE`: repairs a near-solution of K_N by SAT around its
-/// remaining monochromatic cliques (see `ramsift_driver::repair`).
+/// remaining monochromatic cliques (see `ramsift_driver::search::repair`).
 fn find_by_repair(
     args: &FindArgs,
     from: &std::path::Path,
@@ -219,7 +221,7 @@ fn find_by_extension(
         base.order(),
         instance.order()
     );
-    let verdict = ramsift_driver::verify::verify_witness(instance.spec(), &base);
+    let verdict = ramsift_driver::certify::witness_check::verify_witness(instance.spec(), &base);
     anyhow::ensure!(
         verdict.is_valid(),
         "{name} is not a good colouring of K_{} for {}: {verdict}",
@@ -291,7 +293,7 @@ fn count(n: u64, noun: &str) -> String {
 pub fn run(args: &FindArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
     if let Some(dir) = &args.out {
-        ramsift_driver::output_dir::prepare(dir, args.force)?;
+        ramsift_driver::output::dir::prepare(dir, args.force)?;
     }
     let timeout = timeout_of(args.timeout)?;
     let mut options = SearchOptions {
@@ -393,7 +395,7 @@ pub fn run(args: &FindArgs) -> Result<u8> {
             summary.files = write_witness_files(dir, &instance, colouring, &comments)
                 .with_context(|| format!("writing the witness into {}", dir.display()))?;
         }
-        let path = dir.join(ramsift_driver::witness::SUMMARY_FILE);
+        let path = dir.join(ramsift_driver::output::witness::SUMMARY_FILE);
         summary.files.push(path);
         write_summary(dir, &summary)
             .with_context(|| format!("writing the summary into {}", dir.display()))?;
@@ -432,7 +434,7 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                 ),
                 None => println!(
                     "UNKNOWN {instance}: no answer {} ({:.2}s, {})",
-                    ramsift_driver::interrupt::stopped_because(),
+                    ramsift_driver::search::interrupt::stopped_because(),
                     report.elapsed.as_secs_f64(),
                     count(report.attempts, "attempt")
                 ),
@@ -570,7 +572,7 @@ fn search_with_cadical(
     instance: &ramsift_encoder::Instance,
     options: &SearchOptions,
 ) -> Result<SearchReport> {
-    Ok(ramsift_driver::cadical_backend::search_cadical(
+    Ok(ramsift_driver::search::backends::cadical::search_cadical(
         formula,
         instance.spec(),
         options,

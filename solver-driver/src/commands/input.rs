@@ -34,7 +34,9 @@ pub fn read_first_colouring(path: &Path) -> Result<FirstColouring> {
         .split(|&b| b == b'\n')
         .map(|l| l.trim_ascii())
         .find(|l| !l.is_empty() && !l.starts_with(b"#"))
-        .is_some_and(|l| l.starts_with(ramsift_driver::witness::COLOURING_MAGIC.as_bytes()));
+        .is_some_and(|l| {
+            l.starts_with(ramsift_driver::output::witness::COLOURING_MAGIC.as_bytes())
+        });
     if !is_colouring_file {
         let mut graphs = ramsift_checker::graph6::decode_graph6_file(&name, &content)?;
         anyhow::ensure!(!graphs.is_empty(), "{name}: no graph6 line found");
@@ -50,7 +52,7 @@ pub fn read_first_colouring(path: &Path) -> Result<FirstColouring> {
             e.utf8_error().valid_up_to()
         )
     })?;
-    let parts = ramsift_driver::witness::split_colouring_stream(&text);
+    let parts = ramsift_driver::output::witness::split_colouring_stream(&text);
     let file = ramsift_checker::colouring_file::parse_colouring_file(
         &name,
         parts.first().map_or(text.as_str(), String::as_str),

@@ -3,7 +3,7 @@
 use anyhow::{Context, Result};
 use clap::Args;
 
-use ramsift_driver::memory;
+use ramsift_driver::search::memory;
 use ramsift_encoder::clauses::DEFAULT_MAX_CLAUSES;
 use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
 

@@ -7,9 +7,9 @@ use anyhow::{Context, Result};
 use clap::Args;
 use serde_json::json;
 
+use ramsift_driver::certify::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
 use ramsift_driver::exit_codes;
-use ramsift_driver::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
-use ramsift_driver::witness::{colouring_text, write_witness_files};
+use ramsift_driver::output::witness::{colouring_text, write_witness_files};
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
@@ -62,7 +62,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
-    ramsift_driver::output_dir::prepare(&args.out, args.force)?;
+    ramsift_driver::output::dir::prepare(&args.out, args.force)?;
     let instance = encoding.instance().clone();
     let timeout = timeout_of(args.timeout)?;
     let options = RefuteOptions {
@@ -102,7 +102,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                     &options,
                     &stop,
                 )?);
-                ramsift_driver::bundle::write_guide(&args.out, manifest)?;
+                ramsift_driver::certify::bundle::write_guide(&args.out, manifest)?;
             }
             if args.json {
                 let record = json!({
@@ -138,7 +138,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             if args.json {
                 let record = json!({
                     "instance": instance.to_string(), "proves": format!("R({spec}) > {n}"),
-                    "colouring": ramsift_driver::witness::colouring_rows(colouring),
+                    "colouring": ramsift_driver::output::witness::colouring_rows(colouring),
                     "files": files, "seconds": report.solve_seconds,
                 });
                 print_record(record, "found", exit_codes::FOUND)?;
@@ -161,7 +161,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             } else {
                 println!(
                     "UNKNOWN {instance}: no answer {} ({:.2}s); no bundle written",
-                    ramsift_driver::interrupt::stopped_because(),
+                    ramsift_driver::search::interrupt::stopped_because(),
                     report.solve_seconds
                 );
             }

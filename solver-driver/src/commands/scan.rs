@@ -9,9 +9,9 @@ use clap::Args;
 use serde::Serialize;
 
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::witness::write_witness_files;
 use ramsift_driver::structured::scan::scan;
 use ramsift_driver::structured::{FamilyChoice, FamilyOutcome, OrderReport};
-use ramsift_driver::witness::write_witness_files;
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::{Instance, RamseySpec};
 
@@ -110,7 +110,7 @@ fn row(report: &OrderReport) -> OrderRow {
                     } => (
                         "found",
                         Some(description.clone()),
-                        Some(ramsift_driver::witness::colouring_rows(colouring)),
+                        Some(ramsift_driver::output::witness::colouring_rows(colouring)),
                     ),
                     FamilyOutcome::NoneInFamily => ("none", None, None),
                     FamilyOutcome::Unknown => ("unknown", None, None),
@@ -135,7 +135,7 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         .parse()
         .with_context(|| format!("specification {:?}", args.spec))?;
     if let Some(dir) = &args.out {
-        ramsift_driver::output_dir::prepare(dir, args.force)?;
+        ramsift_driver::output::dir::prepare(dir, args.force)?;
     }
     anyhow::ensure!(
         args.from >= 2 && args.from <= args.to,

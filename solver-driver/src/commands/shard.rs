@@ -148,7 +148,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
         ShardCommand::Slurm(args) => slurm(args),
         ShardCommand::Status(args) => status(args),
         ShardCommand::Merge(args) => {
-            ramsift_driver::output_dir::prepare(&args.out, args.force)?;
+            ramsift_driver::output::dir::prepare(&args.out, args.force)?;
             let copied = std::sync::atomic::AtomicUsize::new(0);
             let line = ProgressLine::new(args.json);
             let shards = read_plan(&args.plan)?.cubes.len();
@@ -201,10 +201,10 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
-    ramsift_driver::output_dir::prepare(&args.out, args.force)?;
+    ramsift_driver::output::dir::prepare(&args.out, args.force)?;
     let formula_path = args.out.join("formula.cnf.gz");
     write_encoding_to(&encoding, &formula_path)?;
-    let (sha, _) = ramsift_driver::bundle::hash_file(&formula_path)?;
+    let (sha, _) = ramsift_driver::certify::bundle::hash_file(&formula_path)?;
     let leaves = std::sync::atomic::AtomicUsize::new(0);
     let line = ProgressLine::new(args.json);
     let plan = line.run_while(

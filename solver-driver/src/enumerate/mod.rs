@@ -21,9 +21,9 @@ use varisat::{ExtendFormula, Lit};
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, Scheme, SymmetrySet};
 
-use crate::interrupt::{limited_solver, SinkReport};
-use crate::portfolio::SearchError;
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::interrupt::{limited_solver, SinkReport};
+use crate::search::portfolio::SearchError;
 use canonical::{canonical_form, colour_permutations, ColourTable};
 
 /// How an enumeration runs.

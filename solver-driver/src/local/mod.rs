@@ -3,7 +3,7 @@
 //! delta evaluation ([`state`]), restarts, and one independent run per core.
 //!
 //! Local search cannot prove that no colouring exists; it finds colourings, and its
-//! best near-solutions seed the SAT driver (see [`crate::hybrid`]).
+//! best near-solutions seed the SAT driver (see [`crate::search::hybrid`]).
 
 pub mod moves;
 pub mod search;

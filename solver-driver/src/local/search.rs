@@ -15,8 +15,8 @@ use ramsift_encoder::{Colouring, RamseySpec};
 
 use super::moves::{anneal_step, tabu_step, TabuList};
 use super::state::{LocalState, MAX_LOCAL_ORDER};
-use crate::portfolio::{worker_pool, SearchError};
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::portfolio::{worker_pool, SearchError};
 
 /// Which move rule.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -132,7 +132,7 @@ pub fn local_search(
                 rng.set_stream(worker as u64 + 1000);
                 let stopped = || {
                     stop.load(Ordering::Relaxed)
-                        || crate::interrupt::interrupted()
+                        || crate::search::interrupt::interrupted()
                         || deadline.is_some_and(|d| Instant::now() >= d)
                 };
                 while !stopped() {

@@ -23,11 +23,11 @@ use super::plan::{Plan, PlanTree};
 use super::run::{complete_result, plan_encoding, plan_sha256, read_plan};
 use super::status::{array_list, plan_status};
 use super::{shard_dir, PLAN_FILE};
-use crate::bundle::{
+use crate::certify::bundle::{
     claim_of, encoding_record, premise_records, write_guide, write_manifest_and_guide, FileRecord,
     Manifest, ShardingRecord, BUNDLE_FORMAT, FORMULA_FILE,
 };
-use crate::refute::{certify_premises, RefuteOptions};
+use crate::certify::refute::{certify_premises, RefuteOptions};
 
 /// What the merge wrote.
 #[derive(Clone, Debug)]

@@ -12,7 +12,7 @@ use serde::{Deserialize, Serialize};
 use ramsift_encoder::CliqueEncoding;
 
 use super::propagate::{Propagation, Propagator};
-use crate::formula::Formula;
+use crate::search::formula::Formula;
 
 /// The identifier of the plan layout.
 pub const PLAN_FORMAT: &str = "ramsift-plan 1";

@@ -1,7 +1,7 @@
 //! Unit propagation over a [`Formula`] with occurrence lists, for the lookahead of
 //! the shard planner (small and simple: it runs a few thousand times per plan).
 
-use crate::formula::Formula;
+use crate::search::formula::Formula;
 
 /// Occurrence lists of a formula.
 pub struct Propagator<'a> {

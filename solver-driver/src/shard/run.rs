@@ -20,11 +20,11 @@ use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, Symm
 
 use super::plan::Plan;
 use super::{shard_dir, PLAN_FILE, RESULT_FILE, SHARD_PROOF_FILE};
-use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
-use crate::bundle::hash_file;
-use crate::formula::Formula;
-use crate::verify::verify_witness;
-use crate::witness::colouring_text;
+use crate::certify::bundle::hash_file;
+use crate::certify::witness_check::verify_witness;
+use crate::output::witness::colouring_text;
+use crate::search::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::search::formula::Formula;
 
 /// The record a finished shard leaves behind.
 #[derive(Clone, Debug, Serialize, Deserialize)]

@@ -10,9 +10,9 @@ use ramsift_encoder::{Colouring, RamseySpec};
 
 use super::families::{EdgeOrbits, FamilyError};
 use super::orbit_formula::{orbit_literal, OrbitFormula};
-use crate::interrupt::{limited_solver, SinkReport};
-use crate::portfolio::SearchError;
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::interrupt::{limited_solver, SinkReport};
+use crate::search::portfolio::SearchError;
 
 /// How a family search at one order ended.
 #[derive(Clone, Debug, PartialEq, Eq)]

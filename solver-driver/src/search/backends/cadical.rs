@@ -16,9 +16,9 @@ use rustsat_cadical::CaDiCaL;
 
 use ramsift_encoder::RamseySpec;
 
-use crate::formula::Formula;
-use crate::portfolio::{SearchError, SearchOptions, SearchReport, SearchResult};
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::formula::Formula;
+use crate::search::portfolio::{SearchError, SearchOptions, SearchReport, SearchResult};
 
 /// The backend's name and version recorded in outputs.
 pub const SOLVER_NAME: &str = "CaDiCaL (rustsat-cadical 0.7.5)";

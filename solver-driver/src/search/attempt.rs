@@ -7,7 +7,7 @@
 //! decision order), a random clause order, and the fixed edges. The seed colouring
 //! is added as unit clauses rather than as assumptions: it is equivalent for the
 //! search, lets the solver simplify with it, and keeps proof output (which is how
-//! budgets are enforced, see [`crate::interrupt`]) usable.
+//! budgets are enforced, see [`crate::search::interrupt`]) usable.
 
 use std::io::{self, Write};
 use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
@@ -20,8 +20,8 @@ use varisat::{ExtendFormula, Lit, ProofFormat, Solver};
 
 use ramsift_encoder::Colouring;
 
-use crate::formula::Formula;
-use crate::interrupt::{InterruptSink, Limits, SinkReport, StopReason};
+use crate::search::formula::Formula;
+use crate::search::interrupt::{InterruptSink, Limits, SinkReport, StopReason};
 
 /// A bijection on variables with polarity flips: variable v (1-based) is given to the
 /// solver as `target[v-1]`, negated when `flip[v-1]`.
@@ -146,7 +146,7 @@ pub fn run_attempt_counted<W: Write>(
     // Loading a large formula takes seconds and varisat only notices the limits
     // once it writes proof steps, so they are checked before and during loading.
     let interrupted = || {
-        if stop.load(Ordering::Relaxed) || crate::interrupt::interrupted() {
+        if stop.load(Ordering::Relaxed) || crate::search::interrupt::interrupted() {
             Some(StopReason::Stopped)
         } else {
             deadline

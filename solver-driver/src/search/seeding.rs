@@ -26,8 +26,8 @@ use rand::Rng;
 use ramsift_encoder::edges::{edge_count, edge_index};
 use ramsift_encoder::{Colouring, VariableMap};
 
-use crate::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
-use crate::formula::Formula;
+use crate::search::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::search::formula::Formula;
 
 /// Which construction a seed came from.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -35,11 +35,11 @@ pub enum SeedKind {
     Star,
     RandomSubset,
     CirculantSubset,
-    /// The edges of a circulant colouring of K_{n-1} (see [`crate::hybrid`]).
+    /// The edges of a circulant colouring of K_{n-1} (see [`crate::search::hybrid`]).
     CirculantNeighbour,
     /// The edges of a local-search near-solution in no monochromatic clique.
     NearSolution,
-    /// Every edge of a given colouring of K_{n-1} (see [`crate::extension`]).
+    /// Every edge of a given colouring of K_{n-1} (see [`crate::search::extension`]).
     Extension,
 }
 

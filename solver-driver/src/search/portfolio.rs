@@ -2,7 +2,7 @@
 //!
 //! * Worker 0 solves the formula as given, with no seed and no budget, until it
 //!   answers or the run ends. Its "unsatisfiable" means no colouring exists.
-//! * Every other worker loops: draw a seed ([`crate::seeding`]) and a random
+//! * Every other worker loops: draw a seed ([`crate::search::seeding`]) and a random
 //!   renaming and clause order, solve under a proof-byte budget that follows the
 //!   Luby sequence, and start over when the budget runs out or the seed fails.
 //!
@@ -22,10 +22,10 @@ use thiserror::Error;
 
 use ramsift_encoder::{Colouring, RamseySpec};
 
-use crate::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
-use crate::formula::Formula;
-use crate::seeding::draw_seed;
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::search::formula::Formula;
+use crate::search::seeding::draw_seed;
 
 /// How the search is run.
 #[derive(Clone, Debug)]
@@ -273,7 +273,7 @@ fn seeded_worker(
     let vars = formula.variables();
     for attempt in 1u64.. {
         if stop.load(Ordering::Relaxed)
-            || crate::interrupt::interrupted()
+            || crate::search::interrupt::interrupted()
             || deadline.is_some_and(|d| Instant::now() >= d)
         {
             return Ok(None);

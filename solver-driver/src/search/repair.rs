@@ -15,10 +15,10 @@ use std::time::Instant;
 use ramsift_encoder::combinations::for_each_subset;
 use ramsift_encoder::{Colouring, RamseySpec};
 
-use crate::attempt::AttemptOutcome;
-use crate::formula::Formula;
-use crate::portfolio::{verified, SearchError, SearchResult};
-use crate::seeding::{Seed, SeedKind};
+use crate::search::attempt::AttemptOutcome;
+use crate::search::formula::Formula;
+use crate::search::portfolio::{verified, SearchError, SearchResult};
+use crate::search::seeding::{Seed, SeedKind};
 
 /// The monochromatic forbidden cliques of `colouring`: (colour, vertices).
 pub fn monochromatic_cliques(spec: &RamseySpec, colouring: &Colouring) -> Vec<(usize, Vec<usize>)> {

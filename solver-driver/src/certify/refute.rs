@@ -1,5 +1,5 @@
 //! Certified refutation: solve the exact CNF of an instance with varisat writing a
-//! DRAT trace, then write the certificate bundle (see [`crate::bundle`]).
+//! DRAT trace, then write the certificate bundle (see [`crate::certify::bundle`]).
 //!
 //! The trace is written to a temporary file in the bundle directory while the solver
 //! runs; only when the formula is proven unsatisfiable is it renamed into place
@@ -17,13 +17,13 @@ use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 use ramsift_encoder::{CliqueEncoding, Colouring};
 
-use crate::attempt::{run_attempt_counted, AttemptError, AttemptOutcome, AttemptPlan};
-use crate::bundle::{
+use crate::certify::bundle::{
     claim_of, encoding_record, premise_records, write_manifest_and_guide, FileRecord, Manifest,
     PremiseRecord, BUNDLE_FORMAT, FORMULA_FILE,
 };
-use crate::formula::Formula;
-use crate::verify::verify_witness;
+use crate::certify::witness_check::verify_witness;
+use crate::search::attempt::{run_attempt_counted, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::search::formula::Formula;
 
 /// How to refute.
 #[derive(Clone, Debug, Default)]
@@ -190,7 +190,7 @@ pub fn refute(
 
 /// The directory a premise's bundle goes to inside a bundle: `premises/R3-4-9`.
 pub fn premise_dir(dir: &Path, premise: &PremiseRecord) -> PathBuf {
-    dir.join(crate::bundle::premise_folder(premise))
+    dir.join(crate::certify::bundle::premise_folder(premise))
 }
 
 /// Refutes every premise into `dir/premises/` (recursively certifying theirs), with
@@ -224,7 +224,7 @@ pub fn certify_premises(
                     options,
                     stop,
                 )?);
-                crate::bundle::write_guide(&sub_dir, &manifest).map_err(|source| {
+                crate::certify::bundle::write_guide(&sub_dir, &manifest).map_err(|source| {
                     RefuteError::Io {
                         dir: sub_dir.clone(),
                         source,

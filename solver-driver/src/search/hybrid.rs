@@ -19,7 +19,7 @@
 //!    each round.
 //!
 //! Specifications with forbidden graphs other than cliques go to the SAT portfolio
-//! ([`crate::portfolio`]) alone.
+//! ([`crate::search::portfolio`]) alone.
 //!
 //! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
 //! one thread, stages 1 and 2 run first and then worker 0 alone (no stage 3).
@@ -35,14 +35,14 @@ use rand_chacha::ChaCha8Rng;
 
 use ramsift_encoder::{Colouring, RamseySpec};
 
-use crate::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
-use crate::formula::Formula;
 use crate::local::{local_search, LocalOptions, LocalState, MAX_LOCAL_ORDER};
-use crate::portfolio::{
+use crate::search::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use crate::search::formula::Formula;
+use crate::search::portfolio::{
     complete_worker, luby, verified, FirstAnswer, SearchError, SearchOptions, SearchProgress,
     SearchReport, SearchResult,
 };
-use crate::seeding::{Seed, SeedKind};
+use crate::search::seeding::{Seed, SeedKind};
 use crate::structured::{
     family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
     FamilySearchError,
@@ -160,7 +160,7 @@ fn later_stages(
     if !spec.is_cliques() {
         // The structured families and local search are written for cliques; other
         // forbidden graphs go to the SAT portfolio alone.
-        return crate::portfolio::search(formula, spec, options, progress, tick);
+        return crate::search::portfolio::search(formula, spec, options, progress, tick);
     }
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
@@ -247,7 +247,7 @@ pub fn structured_stage(
     let family_cap = FAMILY_CAP;
     for orbits in tries {
         if stop.load(Ordering::Relaxed)
-            || crate::interrupt::interrupted()
+            || crate::search::interrupt::interrupted()
             || structured_deadline.is_some_and(|d| Instant::now() >= d)
         {
             return Ok(None);
@@ -358,7 +358,7 @@ fn helper_stages(
     let mut slice = Duration::from_secs(1);
     let mut round = 0u64;
     while !stop.load(Ordering::Relaxed)
-        && !crate::interrupt::interrupted()
+        && !crate::search::interrupt::interrupted()
         && deadline.is_none_or(|d| Instant::now() < d)
     {
         round += 1;

@@ -9,10 +9,10 @@ use std::time::Instant;
 
 use ramsift_encoder::Colouring;
 
-use crate::attempt::AttemptOutcome;
-use crate::formula::Formula;
-use crate::portfolio::{verified, SearchError, SearchResult};
-use crate::seeding::{Seed, SeedKind};
+use crate::search::attempt::AttemptOutcome;
+use crate::search::formula::Formula;
+use crate::search::portfolio::{verified, SearchError, SearchResult};
+use crate::search::seeding::{Seed, SeedKind};
 use ramsift_encoder::RamseySpec;
 
 /// What extending a colouring found.

@@ -17,7 +17,7 @@ use serde::Serialize;
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::{Colouring, Instance};
 
-use crate::graph6::encode_graph6;
+use crate::output::graph6::encode_graph6;
 
 /// File names written into an output directory.
 pub const COLOURING_FILE: &str = "witness.colouring";
@@ -162,11 +162,11 @@ impl FindSummary {
     /// The summary of a finished search (files are added by the caller).
     pub fn of_search(
         instance: &Instance,
-        report: &crate::portfolio::SearchReport,
+        report: &crate::search::portfolio::SearchReport,
         seed: u64,
     ) -> Self {
         use crate::exit_codes;
-        use crate::portfolio::SearchResult;
+        use crate::search::portfolio::SearchResult;
         let spec = instance.spec().to_string();
         let n = instance.order();
         let (result, proves, exit_code, found_by, graph6) = match &report.result {
