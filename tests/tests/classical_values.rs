@@ -7,13 +7,14 @@ use ramsift_checker::check_colouring;
 use ramsift_checker::colouring_file::parse_colouring_file;
 use ramsift_driver::output::witness::colouring_text;
 use ramsift_driver::search::formula::Formula;
-use ramsift_driver::search::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use ramsift_driver::search::job::{SearchJob, SearchOptions, SearchResult};
+use ramsift_driver::search::portfolio::search;
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 use ramsift_tests::published::CLASSICAL;
 
 fn run(sizes: &[usize], order: usize, threads: usize) -> (Instance, SearchResult) {
     let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
     let options = SearchOptions {
         threads,
         seed: 11,
@@ -21,10 +22,8 @@ fn run(sizes: &[usize], order: usize, threads: usize) -> (Instance, SearchResult
         ..SearchOptions::default()
     };
     let report = search(
+        &SearchJob::new(instance.clone(), SymmetrySet::none(), options),
         &Formula::from_encoding(&encoding),
-        instance.spec(),
-        &options,
-        &SearchProgress::default(),
         |_| {},
     )
     .unwrap();

@@ -7,7 +7,7 @@ use std::sync::atomic::AtomicBool;
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::search::extension::{extend, Extension};
 use ramsift_driver::search::formula::Formula;
-use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 use ramsift_tests::binaries::workspace_binary;
 
 fn formula(sizes: &[usize], n: usize) -> (Formula, RamseySpec) {
@@ -15,7 +15,7 @@ fn formula(sizes: &[usize], n: usize) -> (Formula, RamseySpec) {
     let instance = Instance::new(spec.clone(), n).unwrap();
     (
         Formula::from_encoding(
-            &CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap(),
+            &RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap(),
         ),
         spec,
     )
@@ -35,12 +35,12 @@ fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
         .unwrap()
         .classes;
     assert_eq!(classes.len(), 12);
-    let (formula, spec) = formula(&[3, 5], 13);
+    let (formula, _) = formula(&[3, 5], 13);
     let extended = classes
         .iter()
         .filter(|base| {
             matches!(
-                extend(&formula, &spec, base, &AtomicBool::new(false), None).unwrap(),
+                extend(&formula, base, &AtomicBool::new(false), None).unwrap(),
                 Extension::Extended(_)
             )
         })
@@ -64,16 +64,16 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
     let text = std::fs::read_to_string(out.join("witness.colouring")).unwrap();
     let file = ramsift_checker::colouring_file::parse_colouring_file("w", &text).unwrap();
     let less = Colouring::from_fn(23, 2, |i, j| file.matrix.colour(i, j));
-    let (formula, spec) = formula(&[4, 5], 24);
+    let (formula, _) = formula(&[4, 5], 24);
     assert!(matches!(
-        extend(&formula, &spec, &less, &AtomicBool::new(false), None).unwrap(),
+        extend(&formula, &less, &AtomicBool::new(false), None).unwrap(),
         Extension::Extended(_)
     ));
     // The same through `find --from` with a graph6 file of the 23-vertex colouring.
     let g6 = dir.path().join("less.g6");
     std::fs::write(
         &g6,
-        ramsift_driver::output::witness::colour_one_graph6(&less) + "\n",
+        ramsift_driver::output::graph6::colour_one_graph6(&less) + "\n",
     )
     .unwrap();
     let o = Command::new(&ramsift)
@@ -172,9 +172,9 @@ fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
                 .iter()
                 .all(|(_, s)| s.contains(&0) && s.contains(&1))
     );
-    match repair(&paley_formula, &spec, &near, &AtomicBool::new(false), None).unwrap() {
+    match repair(&paley_formula, &near, &AtomicBool::new(false), None).unwrap() {
         Repair::Repaired(
-            ramsift_driver::search::portfolio::SearchResult::Found { colouring, .. },
+            ramsift_driver::search::job::SearchResult::Found { colouring, .. },
             radius,
         ) => {
             assert_eq!(radius, 0, "freeing the damaged cliques' edges suffices");
@@ -183,10 +183,10 @@ fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
         other => panic!("not repaired: {other:?}"),
     }
     // At R(3,3) = 6 nothing can be repaired: the last radius is the whole formula.
-    let (small, spec) = formula(&[3, 3], 6);
+    let (small, _) = formula(&[3, 3], 6);
     let any = Colouring::from_fn(6, 2, |_, _| 1);
     assert!(matches!(
-        repair(&small, &spec, &any, &AtomicBool::new(false), None).unwrap(),
+        repair(&small, &any, &AtomicBool::new(false), None).unwrap(),
         Repair::None
     ));
 }

@@ -10,8 +10,9 @@ use ramsift_checker::check_colouring;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
 use ramsift_driver::search::formula::Formula;
-use ramsift_driver::search::portfolio::{search, SearchOptions, SearchProgress, SearchResult};
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_driver::search::job::{SearchJob, SearchOptions, SearchResult};
+use ramsift_driver::search::portfolio::search;
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 use ramsift_tests::published::GRAPH_VALUES;
 
 fn instance(spec: &str, n: usize) -> Instance {
@@ -22,17 +23,15 @@ fn instance(spec: &str, n: usize) -> Instance {
 fn witnesses_below_and_certified_refutations_at_each_value() {
     for value in GRAPH_VALUES {
         let below = instance(value.spec, value.value - 1);
-        let encoding = CliqueEncoding::new(&below, &EncodingLimits::default()).unwrap();
+        let encoding = RamseyEncoding::new(&below, &EncodingLimits::default()).unwrap();
         let options = SearchOptions {
             threads: 2,
             timeout: Some(Duration::from_secs(120)),
             ..SearchOptions::default()
         };
         let report = search(
+            &SearchJob::new(below.clone(), SymmetrySet::none(), options),
             &Formula::from_encoding(&encoding),
-            below.spec(),
-            &options,
-            &SearchProgress::default(),
             |_| {},
         )
         .unwrap();
@@ -54,7 +53,7 @@ fn witnesses_below_and_certified_refutations_at_each_value() {
         let at = instance(value.spec, value.value);
         let symmetry: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
         let encoding =
-            CliqueEncoding::with_symmetry(&at, &symmetry, &EncodingLimits::default()).unwrap();
+            RamseyEncoding::with_symmetry(&at, &symmetry, &EncodingLimits::default()).unwrap();
         let dir = tempfile::tempdir().unwrap();
         let out = dir.path().join("bundle");
         let report = refute(
@@ -105,11 +104,11 @@ fn one_clause_per_copy() {
         // The second colour forbids K2 (every edge): C(n,2) one-literal clauses.
         let k2 = (n * (n - 1) / 2) as u128;
         assert_eq!(
-            CliqueEncoding::count_clauses(&inst),
+            RamseyEncoding::count_clauses(&inst),
             Some(copies + k2),
             "{spec} at {n}"
         );
-        let encoding = CliqueEncoding::new(&inst, &EncodingLimits::default()).unwrap();
+        let encoding = RamseyEncoding::new(&inst, &EncodingLimits::default()).unwrap();
         let clauses = encoding.clauses();
         assert_eq!(clauses.len() as u128, copies + k2);
         // No two clauses name the same copy.

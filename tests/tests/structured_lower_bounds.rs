@@ -10,12 +10,12 @@ use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
 use ramsift_driver::search::formula::Formula;
 use ramsift_driver::search::hybrid::hybrid_search;
-use ramsift_driver::search::portfolio::{SearchOptions, SearchProgress, SearchResult};
+use ramsift_driver::search::job::{SearchJob, SearchOptions, SearchResult};
 use ramsift_driver::structured::scan::scan;
 use ramsift_driver::structured::{
     search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
 };
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 use ramsift_tests::constructions::{circulant, paley};
 use ramsift_tests::published::{CLASSICAL, LARGEST_CIRCULANT_3T};
 
@@ -86,8 +86,11 @@ fn scan_reproduces_the_published_largest_circulant_orders() {
         .unwrap();
         assert_eq!(report.largest_found(), Some(largest), "(3,{t})");
         // Every order is settled (no time limit), and R(3,t) itself has none.
-        assert!(report.orders.iter().all(|o| o.verdict() != "unknown"));
-        assert_eq!(report.orders.last().unwrap().verdict(), "none");
+        assert!(report
+            .orders
+            .iter()
+            .all(|o| o.verdict().word() != "unknown"));
+        assert_eq!(report.orders.last().unwrap().verdict().word(), "none");
     }
     // (4,4): Paley 17 is circulant and R(4,4) = 18, so the largest is 17 (DS1).
     let report = scan(
@@ -184,8 +187,7 @@ fn both_local_search_rules_find_44_colourings_of_k16() {
         let stop = AtomicBool::new(false);
         // R(4,4) = 18 (DS1): colourings of K16 exist.
         let report = local_search(
-            &spec(&[4, 4]),
-            16,
+            &ramsift_encoder::Instance::new(spec(&[4, 4]), 16).unwrap(),
             &options,
             &stop,
             &LocalProgress::default(),
@@ -199,7 +201,7 @@ fn both_local_search_rules_find_44_colourings_of_k16() {
 /// The hybrid search (`find`'s default) on the full formula of (sizes; n).
 fn hybrid(sizes: &[usize], n: usize, threads: usize, seed: u64) -> SearchResult {
     let instance = Instance::new(spec(sizes), n).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
     let options = SearchOptions {
         threads,
         seed,
@@ -207,10 +209,8 @@ fn hybrid(sizes: &[usize], n: usize, threads: usize, seed: u64) -> SearchResult 
         ..SearchOptions::default()
     };
     hybrid_search(
+        &SearchJob::new(instance.clone(), SymmetrySet::none(), options),
         &Formula::from_encoding(&encoding),
-        instance.spec(),
-        &options,
-        &SearchProgress::default(),
         |_| {},
     )
     .unwrap()

@@ -19,11 +19,11 @@ use std::time::{Duration, Instant};
 use varisat::{ExtendFormula, Lit};
 
 use ramsift_encoder::edges::edge_index;
-use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, Scheme, SymmetrySet};
+use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, Scheme, SymmetrySet};
 
 use crate::certify::witness_check::verify_witness;
 use crate::search::interrupt::{limited_solver, SinkReport};
-use crate::search::portfolio::SearchError;
+use crate::search::job::SearchError;
 use canonical::{canonical_form, colour_permutations, ColourTable};
 
 /// How an enumeration runs.
@@ -58,14 +58,8 @@ pub fn enumerate(
 ) -> Result<Enumeration, SearchError> {
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
-    let schemes = if options.swap_colours {
-        "colour-swap,lex-leader"
-    } else {
-        "lex-leader"
-    };
-    let symmetry: SymmetrySet = schemes.parse().expect("known schemes");
-    let encoding = CliqueEncoding::with_symmetry(instance, &symmetry, &EncodingLimits::default())
-        .map_err(|e| SearchError::Backend(e.to_string()))?;
+    let symmetry = SymmetrySet::for_enumeration(options.swap_colours);
+    let encoding = RamseyEncoding::with_symmetry(instance, &symmetry, &EncodingLimits::default())?;
     debug_assert!(!symmetry.contains(Scheme::DegreeBounds));
     let vars = *encoding.variables();
     let colour_vars = vars.colour_variable_count();

@@ -11,12 +11,13 @@ use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
 
 use ramsift_encoder::edges::edge_count;
-use ramsift_encoder::{Colouring, RamseySpec};
+use ramsift_encoder::{Colouring, Instance};
 
 use super::moves::{anneal_step, tabu_step, TabuList};
 use super::state::{LocalState, MAX_LOCAL_ORDER};
 use crate::certify::witness_check::verify_witness;
-use crate::search::portfolio::{worker_pool, SearchError};
+use crate::search::first_answer::worker_pool;
+use crate::search::job::SearchError;
 
 /// Which move rule.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -95,93 +96,71 @@ pub struct LocalReport {
     pub elapsed: Duration,
 }
 
-/// Runs local search on K_order for the specification's clique sizes.
-pub fn local_search(
-    spec: &RamseySpec,
+/// What the threads of one local search share.
+struct Shared<'a> {
+    options: &'a LocalOptions,
+    sizes: &'a [usize],
     order: usize,
+    stall: u64,
+    stop: &'a AtomicBool,
+    deadline: Option<Instant>,
+    progress: &'a LocalProgress,
+    found: Mutex<Option<(Colouring, String)>>,
+    near: Mutex<Vec<(u64, Colouring)>>,
+    start_index: AtomicU64,
+}
+
+/// Runs local search on the instance's K_n for its clique sizes.
+pub fn local_search(
+    instance: &Instance,
     options: &LocalOptions,
     stop: &AtomicBool,
     progress: &LocalProgress,
 ) -> Result<LocalReport, SearchError> {
+    let (spec, order) = (instance.spec(), instance.order());
     if !(2..=MAX_LOCAL_ORDER).contains(&order) {
-        return Err(SearchError::Backend(format!(
-            "local search handles orders 2 to {MAX_LOCAL_ORDER}; {order} is outside"
-        )));
+        return Err(SearchError::LocalOrder {
+            order,
+            max: MAX_LOCAL_ORDER,
+        });
     }
-    let Some(sizes) = spec.clique_sizes_if_cliques() else {
-        return Err(SearchError::Backend(format!(
-            "local search handles specifications in which every colour forbids a clique; {spec} forbids other graphs"
-        )));
+    let Some(sizes) = spec.clique_sizes() else {
+        return Err(SearchError::LocalNeedsCliques {
+            spec: spec.to_string(),
+        });
     };
     let started = Instant::now();
-    let deadline = options.timeout.map(|t| started + t);
     let threads = options.threads.max(1);
-    let found: Mutex<Option<(Colouring, String)>> = Mutex::new(None);
-    let near: Mutex<Vec<(u64, Colouring)>> = Mutex::new(Vec::new());
-    let start_index = AtomicU64::new(0);
+    let shared = Shared {
+        options,
+        sizes: &sizes,
+        order,
+        stall: options
+            .stall_steps
+            .unwrap_or(50 * edge_count(order) as u64)
+            .max(1),
+        stop,
+        deadline: options.timeout.map(|t| started + t),
+        progress,
+        found: Mutex::new(None),
+        near: Mutex::new(Vec::new()),
+        start_index: AtomicU64::new(0),
+    };
     let pool = worker_pool(threads)?;
-    let stall = options
-        .stall_steps
-        .unwrap_or(50 * edge_count(order) as u64)
-        .max(1);
     pool.scope(|scope| {
         for worker in 0..threads {
-            let (found, near, start_index, sizes) = (&found, &near, &start_index, &sizes);
-            scope.spawn(move |_| {
-                let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
-                rng.set_stream(worker as u64 + 1000);
-                let stopped = || {
-                    stop.load(Ordering::Relaxed)
-                        || crate::search::interrupt::interrupted()
-                        || deadline.is_some_and(|d| Instant::now() >= d)
-                };
-                while !stopped() {
-                    let index = start_index.fetch_add(1, Ordering::Relaxed) as usize;
-                    let mut state = match options.starts.get(index) {
-                        Some(start) => LocalState::new(start, sizes),
-                        None => LocalState::random(order, sizes, &mut rng),
-                    };
-                    progress.restarts.fetch_add(1, Ordering::Relaxed);
-                    let (cost, best) = run_once(
-                        &mut state,
-                        options.method,
-                        stall,
-                        &mut rng,
-                        &stopped,
-                        progress,
-                    );
-                    progress.best_cost.fetch_min(cost, Ordering::Relaxed);
-                    if cost == 0 {
-                        let mut slot = found.lock().expect("found lock");
-                        if slot.is_none() {
-                            *slot = Some((
-                                best,
-                                format!(
-                                    "{} (thread {worker}, restart {})",
-                                    options.method,
-                                    index + 1
-                                ),
-                            ));
-                        }
-                        stop.store(true, Ordering::SeqCst);
-                        return;
-                    }
-                    let mut kept = near.lock().expect("near lock");
-                    kept.push((cost, best));
-                    kept.sort_by_key(|(c, _)| *c);
-                    kept.truncate(options.keep_near.max(1));
-                }
-            });
+            let shared = &shared;
+            scope.spawn(move |_| local_worker(shared, worker));
         }
     });
-    let found = found.into_inner().expect("found lock");
+    let found = shared.found.into_inner().expect("found lock");
     if let Some((colouring, _)) = &found {
         let verdict = verify_witness(spec, colouring);
         if !verdict.is_valid() {
             return Err(SearchError::WitnessRejected(verdict.to_string()));
         }
     }
-    let near = near.into_inner().expect("near lock");
+    let near = shared.near.into_inner().expect("near lock");
     let best_cost = if found.is_some() {
         0
     } else {
@@ -195,6 +174,55 @@ pub fn local_search(
         restarts: progress.restarts.load(Ordering::Relaxed),
         elapsed: started.elapsed(),
     })
+}
+
+/// Thread `worker`: restarts (given starts first, then random colourings) until a
+/// colouring is found or the search stops.
+fn local_worker(shared: &Shared<'_>, worker: usize) {
+    let options = shared.options;
+    let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
+    rng.set_stream(worker as u64 + 1000);
+    let stopped = || {
+        shared.stop.load(Ordering::Relaxed)
+            || crate::search::interrupt::interrupted()
+            || shared.deadline.is_some_and(|d| Instant::now() >= d)
+    };
+    while !stopped() {
+        let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
+        let mut state = match options.starts.get(index) {
+            Some(start) => LocalState::new(start, shared.sizes),
+            None => LocalState::random(shared.order, shared.sizes, &mut rng),
+        };
+        shared.progress.restarts.fetch_add(1, Ordering::Relaxed);
+        let (cost, best) = run_once(
+            &mut state,
+            options.method,
+            shared.stall,
+            &mut rng,
+            &stopped,
+            shared.progress,
+        );
+        shared.progress.best_cost.fetch_min(cost, Ordering::Relaxed);
+        if cost == 0 {
+            let mut slot = shared.found.lock().expect("found lock");
+            if slot.is_none() {
+                *slot = Some((
+                    best,
+                    format!(
+                        "{} (thread {worker}, restart {})",
+                        options.method,
+                        index + 1
+                    ),
+                ));
+            }
+            shared.stop.store(true, Ordering::SeqCst);
+            return;
+        }
+        let mut kept = shared.near.lock().expect("near lock");
+        kept.push((cost, best));
+        kept.sort_by_key(|(c, _)| *c);
+        kept.truncate(options.keep_near.max(1));
+    }
 }
 
 /// One run from `state` until the cost reaches 0, `stall` steps pass without a new
@@ -258,6 +286,7 @@ fn run_once(
 #[cfg(test)]
 mod tests {
     use super::*;
+    use ramsift_encoder::RamseySpec;
 
     fn run(method: LocalMethod, sizes: &[usize], n: usize, threads: usize) -> LocalReport {
         let options = LocalOptions {
@@ -269,8 +298,7 @@ mod tests {
         };
         let stop = AtomicBool::new(false);
         local_search(
-            &RamseySpec::cliques(sizes).unwrap(),
-            n,
+            &Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap(),
             &options,
             &stop,
             &LocalProgress::default(),
@@ -299,8 +327,7 @@ mod tests {
         };
         let stop = AtomicBool::new(false);
         let report = local_search(
-            &RamseySpec::cliques(&[3, 3]).unwrap(),
-            6,
+            &Instance::new(RamseySpec::cliques(&[3, 3]).unwrap(), 6).unwrap(),
             &options,
             &stop,
             &LocalProgress::default(),

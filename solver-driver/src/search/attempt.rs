@@ -108,122 +108,73 @@ pub enum AttemptError {
     Solver(String),
 }
 
-/// Runs one attempt. `proof` receives varisat's binary DRAT (or text DRAT when
-/// `text_proof`); it is meaningful for the formula only with no renaming, the
-/// formula's clause order free, and no units.
-pub fn run_attempt<W: Write>(
+/// Where an attempt's DRAT proof goes.
+pub struct ProofOutput<'a, W: Write> {
+    pub writer: W,
+    /// Text DRAT instead of binary DRAT.
+    pub text: bool,
+    /// Incremented with the proof bytes as they are written (for progress lines).
+    pub bytes_seen: Option<&'a AtomicU64>,
+}
+
+/// Runs one attempt with no proof output.
+pub fn run_attempt(
     formula: &Formula,
     plan: &AttemptPlan,
     stop: &AtomicBool,
     deadline: Option<Instant>,
-    proof: Option<W>,
-    text_proof: bool,
 ) -> Result<AttemptReport, AttemptError> {
-    run_attempt_counted(formula, plan, stop, deadline, proof, text_proof, None)
+    run_attempt_with_proof::<io::Sink>(formula, plan, stop, deadline, None)
 }
 
 /// How many clauses are loaded between two checks of the stop flag and deadline.
 const LOAD_CHECK_EVERY: usize = 1 << 16;
 
-/// [`run_attempt`], adding the proof bytes to `bytes_seen` as they are written.
-pub fn run_attempt_counted<W: Write>(
+/// Runs one attempt; `proof` receives varisat's DRAT. The proof is meaningful for
+/// the formula only with no renaming, the formula's clause order free, and no units.
+pub fn run_attempt_with_proof<W: Write>(
     formula: &Formula,
     plan: &AttemptPlan,
     stop: &AtomicBool,
     deadline: Option<Instant>,
-    proof: Option<W>,
-    text_proof: bool,
-    bytes_seen: Option<&AtomicU64>,
+    proof: Option<ProofOutput<'_, W>>,
 ) -> Result<AttemptReport, AttemptError> {
     let started = Instant::now();
     let report = SinkReport::default();
+    let (writer, text, bytes_seen) = match proof {
+        Some(p) => (Some(p.writer), p.text, p.bytes_seen),
+        None => (None, false, None),
+    };
     let limits = Limits {
         stop,
         deadline,
         budget_bytes: plan.budget_bytes,
         bytes_seen,
     };
-    // Loading a large formula takes seconds and varisat only notices the limits
-    // once it writes proof steps, so they are checked before and during loading.
-    let interrupted = || {
-        if stop.load(Ordering::Relaxed) || crate::search::interrupt::interrupted() {
-            Some(StopReason::Stopped)
-        } else {
-            deadline
-                .is_some_and(|d| Instant::now() >= d)
-                .then_some(StopReason::Deadline)
-        }
+    let mut solver = Solver::new();
+    let format = if text {
+        ProofFormat::Drat
+    } else {
+        ProofFormat::BinaryDrat
     };
-    let stopped = |reason| AttemptReport {
-        outcome: AttemptOutcome::Stopped(reason),
-        proof_bytes: 0,
-        elapsed: started.elapsed(),
-    };
-    let outcome = {
-        let mut solver = Solver::new();
-        let format = if text_proof {
-            ProofFormat::Drat
-        } else {
-            ProofFormat::BinaryDrat
-        };
-        solver.write_proof(InterruptSink::new(limits, proof, &report), format);
-        let mut buffer: Vec<Lit> = Vec::new();
-        let mut add = |solver: &mut Solver, clause: &[i32]| {
-            buffer.clear();
-            match &plan.renaming {
-                Some(r) => buffer.extend(clause.iter().map(|&l| r.map(l))),
-                None => buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize))),
-            }
-            solver.add_clause(&buffer);
-        };
-        let count = plan
-            .clause_order
-            .as_ref()
-            .map_or(formula.clause_count(), Vec::len);
-        for k in 0..count {
-            if k % LOAD_CHECK_EVERY == 0 {
-                if let Some(reason) = interrupted() {
-                    return Ok(stopped(reason));
+    solver.write_proof(InterruptSink::new(limits, writer, &report), format);
+    let outcome = match load(&mut solver, formula, plan, stop, deadline) {
+        Some(reason) => AttemptOutcome::Stopped(reason),
+        None => {
+            let solved = solver.solve();
+            let closed = solver.close_proof();
+            match (solved, report.reason.get()) {
+                (Ok(true), _) => AttemptOutcome::Satisfiable(decode_model(&solver, formula, plan)),
+                (Ok(false), _) => {
+                    closed.map_err(|e| AttemptError::Solver(e.to_string()))?;
+                    AttemptOutcome::Unsatisfiable
                 }
-            }
-            let index = plan
-                .clause_order
-                .as_ref()
-                .map_or(k, |order| order[k] as usize);
-            add(&mut solver, formula.clause(index));
-        }
-        for &unit in &plan.units {
-            add(&mut solver, &[unit]);
-        }
-        let solved = solver.solve();
-        let closed = solver.close_proof();
-        match (solved, report.reason.get()) {
-            (Ok(true), _) => {
-                let mut values = vec![false; formula.variable_count() + 1];
-                for lit in solver.model().unwrap_or_default() {
-                    let var = lit.var().to_dimacs() as usize;
-                    if var < values.len() {
-                        values[var] = lit.is_positive();
-                    }
+                (Err(_), Some(reason)) => AttemptOutcome::Stopped(reason),
+                (Err(varisat::solver::SolverError::ProofIoError { cause }), None) => {
+                    return Err(AttemptError::Proof(cause))
                 }
-                let solver_value = |v: usize| values[v];
-                let colouring = formula.variables().decode(|var| match &plan.renaming {
-                    Some(r) => r.value(var, solver_value),
-                    None => solver_value(var),
-                });
-                AttemptOutcome::Satisfiable(colouring)
+                (Err(other), None) => return Err(AttemptError::Solver(other.to_string())),
             }
-            (Ok(false), _) => {
-                if let Err(e) = closed {
-                    return Err(AttemptError::Solver(e.to_string()));
-                }
-                AttemptOutcome::Unsatisfiable
-            }
-            (Err(_), Some(reason)) => AttemptOutcome::Stopped(reason),
-            (Err(varisat::solver::SolverError::ProofIoError { cause }), None) => {
-                return Err(AttemptError::Proof(cause))
-            }
-            (Err(other), None) => return Err(AttemptError::Solver(other.to_string())),
         }
     };
     Ok(AttemptReport {
@@ -233,23 +184,87 @@ pub fn run_attempt_counted<W: Write>(
     })
 }
 
+/// Gives the plan's clauses and units to the solver. Loading a large formula takes
+/// seconds and varisat only notices the limits once it writes proof steps, so they
+/// are checked before and during loading: `Some` when loading was cut short.
+fn load(
+    solver: &mut Solver,
+    formula: &Formula,
+    plan: &AttemptPlan,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Option<StopReason> {
+    let interrupted = || {
+        if stop.load(Ordering::Relaxed) || crate::search::interrupt::interrupted() {
+            Some(StopReason::Stopped)
+        } else {
+            deadline
+                .is_some_and(|d| Instant::now() >= d)
+                .then_some(StopReason::Deadline)
+        }
+    };
+    let mut buffer: Vec<Lit> = Vec::new();
+    let mut add = |solver: &mut Solver, clause: &[i32]| {
+        buffer.clear();
+        match &plan.renaming {
+            Some(r) => buffer.extend(clause.iter().map(|&l| r.map(l))),
+            None => buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize))),
+        }
+        solver.add_clause(&buffer);
+    };
+    let count = plan
+        .clause_order
+        .as_ref()
+        .map_or(formula.clause_count(), Vec::len);
+    for k in 0..count {
+        if k % LOAD_CHECK_EVERY == 0 {
+            if let Some(reason) = interrupted() {
+                return Some(reason);
+            }
+        }
+        let index = plan
+            .clause_order
+            .as_ref()
+            .map_or(k, |order| order[k] as usize);
+        add(solver, formula.clause(index));
+    }
+    for &unit in &plan.units {
+        add(solver, &[unit]);
+    }
+    None
+}
+
+/// The colouring of a model, in the formula's numbering.
+fn decode_model(solver: &Solver, formula: &Formula, plan: &AttemptPlan) -> Colouring {
+    let mut values = vec![false; formula.variable_count() + 1];
+    for lit in solver.model().unwrap_or_default() {
+        let var = lit.var().to_dimacs() as usize;
+        if var < values.len() {
+            values[var] = lit.is_positive();
+        }
+    }
+    let solver_value = |v: usize| values[v];
+    formula.variables().decode(|var| match &plan.renaming {
+        Some(r) => r.value(var, solver_value),
+        None => solver_value(var),
+    })
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
-    use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+    use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec};
     use rand::SeedableRng;
     use rand_chacha::ChaCha8Rng;
 
     fn formula(sizes: &[usize], n: usize) -> Formula {
         let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
-        Formula::from_encoding(&CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap())
+        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
     }
 
     fn run(formula: &Formula, plan: &AttemptPlan) -> AttemptOutcome {
         let stop = AtomicBool::new(false);
-        run_attempt::<io::Sink>(formula, plan, &stop, None, None, false)
-            .unwrap()
-            .outcome
+        run_attempt(formula, plan, &stop, None).unwrap().outcome
     }
 
     #[test]
@@ -293,9 +308,7 @@ mod tests {
         let f = formula(&[4, 4], 18);
         let stop = AtomicBool::new(false);
         let deadline = Some(Instant::now() + Duration::from_millis(300));
-        let report =
-            run_attempt::<io::Sink>(&f, &AttemptPlan::default(), &stop, deadline, None, false)
-                .unwrap();
+        let report = run_attempt(&f, &AttemptPlan::default(), &stop, deadline).unwrap();
         assert_eq!(
             report.outcome,
             AttemptOutcome::Stopped(StopReason::Deadline)

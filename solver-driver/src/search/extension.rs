@@ -7,13 +7,13 @@
 use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
-use ramsift_encoder::Colouring;
+use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding};
 
 use crate::search::attempt::AttemptOutcome;
+use crate::search::first_answer::verified;
 use crate::search::formula::Formula;
-use crate::search::portfolio::{verified, SearchError, SearchResult};
-use crate::search::seeding::{Seed, SeedKind};
-use ramsift_encoder::RamseySpec;
+use crate::search::job::{SearchError, SearchResult};
+use crate::search::seeding::extension_seed;
 
 /// What extending a colouring found.
 #[derive(Clone, Debug)]
@@ -27,22 +27,22 @@ pub enum Extension {
 }
 
 /// Extends `base` (a colouring of K_{n-1}) to K_n, `formula` being the plain
-/// formula of `spec` at order n.
+/// formula of its specification at order n (the formula names both).
 pub fn extend(
     formula: &Formula,
-    spec: &RamseySpec,
     base: &Colouring,
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> Result<Extension, SearchError> {
+    let spec = formula.instance().spec();
     let n = formula.variables().order();
     if base.order() + 1 != n {
-        return Err(SearchError::Backend(format!(
-            "extension adds one vertex: a colouring of K_{} cannot become one of K_{n}",
-            base.order()
-        )));
+        return Err(SearchError::ExtensionOrder {
+            given: base.order(),
+            order: n,
+        });
     }
-    let seed = Seed::from_colouring(SeedKind::Extension, base, |_, _| true);
+    let seed = extension_seed(base);
     Ok(match seed.solve(formula, stop, deadline)? {
         AttemptOutcome::Satisfiable(colouring) => Extension::Extended(verified(
             spec,
@@ -55,5 +55,58 @@ pub fn extend(
         )?),
         AttemptOutcome::Unsatisfiable => Extension::None,
         AttemptOutcome::Stopped(_) => Extension::Stopped,
+    })
+}
+
+/// How a chain of extensions ended.
+#[derive(Clone, Debug)]
+pub enum Chain {
+    /// A verified colouring of the target K_N, grown one vertex at a time.
+    Reached {
+        colouring: Colouring,
+        found_by: String,
+    },
+    /// The colouring of K_m reached last has no extension to K_(m+1).
+    StuckAt(Colouring),
+    /// Stopped (deadline or signal) before the end.
+    Stopped,
+}
+
+/// Extends `base` one vertex at a time, K_m → K_(m+1) → … → K_N, to the order of
+/// `target`. `admit` is asked about each step's encoding before its formula is
+/// built (a memory limit, say) and may refuse it.
+pub fn extend_chain<E: From<SearchError>>(
+    target: &Instance,
+    base: &Colouring,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+    mut admit: impl FnMut(&RamseyEncoding) -> Result<(), E>,
+) -> Result<Chain, E> {
+    let mut current = base.clone();
+    let mut found_by = String::new();
+    for order in base.order() + 1..=target.order() {
+        let step = Instance::new(target.spec().clone(), order).map_err(SearchError::from)?;
+        let encoding =
+            RamseyEncoding::new(&step, &EncodingLimits::default()).map_err(SearchError::from)?;
+        admit(&encoding)?;
+        match extend(&Formula::from_encoding(&encoding), &current, stop, deadline)? {
+            Extension::Extended(SearchResult::Found {
+                colouring,
+                found_by: by,
+            }) => {
+                current = colouring;
+                found_by = by;
+            }
+            Extension::Extended(_) | Extension::Stopped => return Ok(Chain::Stopped),
+            Extension::None => return Ok(Chain::StuckAt(current)),
+        }
+    }
+    let steps = target.order() - base.order();
+    Ok(Chain::Reached {
+        colouring: current,
+        found_by: format!(
+            "{found_by}; {steps} extension step(s) from K_{}",
+            base.order()
+        ),
     })
 }

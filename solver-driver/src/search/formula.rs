@@ -1,11 +1,14 @@
 //! An encoding's clauses held in memory once, in a flat array, and shared read-only
-//! by every worker.
+//! by every worker. The formula keeps the instance and symmetry breaking it
+//! encodes, so that no search has to read them back out of its variables.
 
-use ramsift_encoder::{CliqueEncoding, VariableMap};
+use ramsift_encoder::{Instance, RamseyEncoding, SymmetrySet, VariableMap};
 
 /// Clauses as DIMACS literals, stored back to back.
 #[derive(Clone, Debug)]
 pub struct Formula {
+    instance: Instance,
+    symmetry: SymmetrySet,
     variables: VariableMap,
     variable_count: usize,
     literals: Vec<i32>,
@@ -15,7 +18,7 @@ pub struct Formula {
 
 impl Formula {
     /// Collects the clauses of an encoding.
-    pub fn from_encoding(encoding: &CliqueEncoding) -> Self {
+    pub fn from_encoding(encoding: &RamseyEncoding) -> Self {
         let mut literals = Vec::new();
         let mut starts = Vec::with_capacity(encoding.clause_count() as usize + 1);
         starts.push(0);
@@ -27,11 +30,21 @@ impl Formula {
             })
             .expect("collecting cannot fail");
         Formula {
+            instance: encoding.instance().clone(),
+            symmetry: encoding.symmetry().clone(),
             variables: *encoding.variables(),
             variable_count: encoding.variable_count(),
             literals,
             starts,
         }
+    }
+
+    pub fn instance(&self) -> &Instance {
+        &self.instance
+    }
+
+    pub fn symmetry(&self) -> &SymmetrySet {
+        &self.symmetry
     }
 
     pub fn variables(&self) -> &VariableMap {

@@ -11,84 +11,18 @@
 //! seeded with (seed, w), so a run with the same `--seed` and `--threads` repeats
 //! the same attempts; with one thread the whole run is reproducible.
 
-use std::io;
-use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
-use std::sync::{mpsc, Mutex};
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::mpsc;
 use std::time::{Duration, Instant};
 
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
-use thiserror::Error;
 
-use ramsift_encoder::{Colouring, RamseySpec};
-
-use crate::certify::witness_check::verify_witness;
-use crate::search::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
-use crate::search::formula::Formula;
-use crate::search::seeding::draw_seed;
-
-/// How the search is run.
-#[derive(Clone, Debug)]
-pub struct SearchOptions {
-    pub threads: usize,
-    pub seed: u64,
-    pub timeout: Option<Duration>,
-    /// Proof bytes of the first seeded attempt; later ones follow the Luby sequence.
-    pub base_budget_bytes: u64,
-}
-
-impl Default for SearchOptions {
-    fn default() -> Self {
-        SearchOptions {
-            threads: std::thread::available_parallelism().map_or(1, |n| n.get()),
-            seed: 0,
-            timeout: None,
-            base_budget_bytes: 256 * 1024,
-        }
-    }
-}
-
-/// The answer of a search.
-#[derive(Clone, Debug, PartialEq, Eq)]
-pub enum SearchResult {
-    /// A verified colouring; `found_by` says which worker and attempt.
-    Found {
-        colouring: Colouring,
-        found_by: String,
-    },
-    /// The complete worker proved that no colouring exists.
-    NoneExists,
-    /// The run ended (timeout) without an answer.
-    Unknown,
-}
-
-/// The answer and what it cost.
-#[derive(Clone, Debug)]
-pub struct SearchReport {
-    pub result: SearchResult,
-    pub attempts: u64,
-    pub elapsed: Duration,
-    pub threads: usize,
-}
-
-/// Counters a caller may show while the search runs.
-#[derive(Debug, Default)]
-pub struct SearchProgress {
-    pub attempts: AtomicU64,
-    pub proof_bytes: AtomicU64,
-}
-
-#[derive(Debug, Error)]
-pub enum SearchError {
-    #[error(transparent)]
-    Attempt(#[from] AttemptError),
-    #[error("internal error: the solver's colouring failed the independent check ({0}); please report this")]
-    WitnessRejected(String),
-    #[error("the solver backend failed: {0}")]
-    Backend(String),
-    #[error("cannot start {threads} worker threads: {message}")]
-    Threads { threads: usize, message: String },
-}
+use super::attempt::{run_attempt, AttemptOutcome, AttemptPlan};
+use super::first_answer::{verified, worker_pool, FirstAnswer};
+use super::formula::Formula;
+use super::job::{SearchError, SearchJob, SearchReport, SearchResult};
+use super::seeding::{draw_seed, seeded_attempt};
 
 /// The Luby sequence 1, 1, 2, 1, 1, 2, 4, 1, … (index from 1).
 pub fn luby(mut index: u64) -> u64 {
@@ -108,77 +42,25 @@ pub fn luby(mut index: u64) -> u64 {
     power
 }
 
-/// The first answer of several workers: the first one kept, and the stop flag
-/// raised for the rest.
-#[derive(Debug, Default)]
-pub(crate) struct FirstAnswer {
-    slot: Mutex<Option<Result<SearchResult, SearchError>>>,
-    pub stop: AtomicBool,
-}
-
-impl FirstAnswer {
-    /// Keeps `value` if it is the first, and stops every worker.
-    pub fn settle(&self, value: Result<SearchResult, SearchError>) {
-        let mut slot = self.slot.lock().expect("answer lock");
-        if slot.is_none() {
-            *slot = Some(value);
-        }
-        self.stop.store(true, Ordering::SeqCst);
-    }
-
-    /// A worker's outcome: an answer or an error settles, `Ok(None)` does not.
-    pub fn offer(&self, outcome: Result<Option<SearchResult>, SearchError>) {
-        match outcome {
-            Ok(Some(result)) => self.settle(Ok(result)),
-            Ok(None) => {}
-            Err(e) => self.settle(Err(e)),
-        }
-    }
-
-    /// The report once every worker has ended (`Unknown` if none answered).
-    pub fn into_report(
-        self,
-        progress: &SearchProgress,
-        started: Instant,
-        threads: usize,
-    ) -> Result<SearchReport, SearchError> {
-        let result = self
-            .slot
-            .into_inner()
-            .expect("answer lock")
-            .unwrap_or(Ok(SearchResult::Unknown))?;
-        Ok(SearchReport {
-            result,
-            attempts: progress.attempts.load(Ordering::SeqCst),
-            elapsed: started.elapsed(),
-            threads,
-        })
-    }
-}
-
-/// A rayon pool of `threads` workers (at least one), for every parallel search.
-pub(crate) fn worker_pool(threads: usize) -> Result<rayon::ThreadPool, SearchError> {
-    let threads = threads.max(1);
-    rayon::ThreadPoolBuilder::new()
-        .num_threads(threads)
-        .build()
-        .map_err(|e| SearchError::Threads {
-            threads,
-            message: e.to_string(),
-        })
-}
-
 /// Runs the search; `tick` is called about every 100 ms on the calling thread.
 pub fn search(
+    job: &SearchJob,
     formula: &Formula,
-    spec: &RamseySpec,
-    options: &SearchOptions,
-    progress: &SearchProgress,
     mut tick: impl FnMut(Duration),
 ) -> Result<SearchReport, SearchError> {
+    search_until(job, formula, job.deadline_from(Instant::now()), &mut tick)
+}
+
+/// [`search`] until `deadline` (None: until an answer).
+pub(crate) fn search_until(
+    job: &SearchJob,
+    formula: &Formula,
+    deadline: Option<Instant>,
+    tick: &mut impl FnMut(Duration),
+) -> Result<SearchReport, SearchError> {
+    job.check_formula(formula)?;
     let started = Instant::now();
-    let deadline = options.timeout.map(|t| started + t);
-    let threads = options.threads.max(1);
+    let threads = job.threads();
     let answer = FirstAnswer::default();
     let stop = &answer.stop;
 
@@ -190,9 +72,9 @@ pub fn search(
             let (answer, done_tx) = (&answer, done_tx.clone());
             scope.spawn(move |_| {
                 let outcome = if worker == 0 {
-                    complete_worker(formula, spec, stop, deadline, progress)
+                    complete_worker(job, formula, stop, deadline)
                 } else {
-                    seeded_worker(formula, spec, options, worker, stop, deadline, progress)
+                    seeded_worker(job, formula, worker, stop, deadline)
                 };
                 answer.offer(outcome);
                 let _ = done_tx.send(());
@@ -210,90 +92,52 @@ pub fn search(
         }
     });
 
-    answer.into_report(progress, started, threads)
-}
-
-/// Verifies a colouring with the checker before it may be reported.
-pub(crate) fn verified(
-    spec: &RamseySpec,
-    colouring: Colouring,
-    found_by: String,
-) -> Result<SearchResult, SearchError> {
-    let verdict = verify_witness(spec, &colouring);
-    if verdict.is_valid() {
-        Ok(SearchResult::Found {
-            colouring,
-            found_by,
-        })
-    } else {
-        Err(SearchError::WitnessRejected(verdict.to_string()))
-    }
+    answer.into_report(job, started)
 }
 
 /// Worker 0: the formula as given, no seed, no budget, until it answers or stops.
 pub(crate) fn complete_worker(
+    job: &SearchJob,
     formula: &Formula,
-    spec: &RamseySpec,
     stop: &AtomicBool,
     deadline: Option<Instant>,
-    progress: &SearchProgress,
 ) -> Result<Option<SearchResult>, SearchError> {
-    progress.attempts.fetch_add(1, Ordering::Relaxed);
-    let report = run_attempt::<io::Sink>(
-        formula,
-        &AttemptPlan::default(),
-        stop,
-        deadline,
-        None,
-        false,
-    )?;
-    progress
-        .proof_bytes
-        .fetch_add(report.proof_bytes, Ordering::Relaxed);
+    let report = run_attempt(formula, &AttemptPlan::default(), stop, deadline)?;
+    job.count_attempt(report.proof_bytes);
     Ok(match report.outcome {
-        AttemptOutcome::Satisfiable(c) => {
-            Some(verified(spec, c, "worker 0 (complete, unseeded)".into())?)
-        }
+        AttemptOutcome::Satisfiable(c) => Some(verified(
+            job.spec(),
+            c,
+            "worker 0 (complete, unseeded)".into(),
+        )?),
         AttemptOutcome::Unsatisfiable => Some(SearchResult::NoneExists),
         AttemptOutcome::Stopped(_) => None,
     })
 }
 
+/// Worker w > 0: random seeds under growing budgets until the run ends.
 fn seeded_worker(
+    job: &SearchJob,
     formula: &Formula,
-    spec: &RamseySpec,
-    options: &SearchOptions,
     worker: usize,
     stop: &AtomicBool,
     deadline: Option<Instant>,
-    progress: &SearchProgress,
 ) -> Result<Option<SearchResult>, SearchError> {
-    let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
+    let mut rng = ChaCha8Rng::seed_from_u64(job.options.seed);
     rng.set_stream(worker as u64);
-    let vars = formula.variables();
     for attempt in 1u64.. {
         if stop.load(Ordering::Relaxed)
-            || crate::search::interrupt::interrupted()
+            || super::interrupt::interrupted()
             || deadline.is_some_and(|d| Instant::now() >= d)
         {
             return Ok(None);
         }
-        let seed = draw_seed(vars.order(), vars.colours(), &mut rng);
-        let mut plan = AttemptPlan::shuffled(formula, &mut rng);
-        plan.units = seed.units(vars);
-        plan.budget_bytes = Some(options.base_budget_bytes.saturating_mul(luby(attempt)));
-        progress.attempts.fetch_add(1, Ordering::Relaxed);
-        let report = run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?;
-        progress
-            .proof_bytes
-            .fetch_add(report.proof_bytes, Ordering::Relaxed);
-        if let AttemptOutcome::Satisfiable(c) = report.outcome {
-            let by = format!(
-                "worker {worker}, attempt {attempt} ({} seed, {} edges fixed)",
-                seed.kind,
-                seed.fixed.len()
-            );
-            return Ok(Some(verified(spec, c, by)?));
+        let seed = draw_seed(job.order(), job.instance.colours(), &mut rng);
+        let who = format!("worker {worker}, attempt {attempt}");
+        if let Some(found) =
+            seeded_attempt(job, formula, &seed, &mut rng, attempt, &who, stop, deadline)?
+        {
+            return Ok(Some(found));
         }
     }
     Ok(None)

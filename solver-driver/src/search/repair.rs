@@ -16,14 +16,20 @@ use ramsift_encoder::combinations::for_each_subset;
 use ramsift_encoder::{Colouring, RamseySpec};
 
 use crate::search::attempt::AttemptOutcome;
+use crate::search::first_answer::verified;
 use crate::search::formula::Formula;
-use crate::search::portfolio::{verified, SearchError, SearchResult};
-use crate::search::seeding::{Seed, SeedKind};
+use crate::search::job::{SearchError, SearchResult};
+use crate::search::seeding::repair_seed;
 
 /// The monochromatic forbidden cliques of `colouring`: (colour, vertices).
 pub fn monochromatic_cliques(spec: &RamseySpec, colouring: &Colouring) -> Vec<(usize, Vec<usize>)> {
     let mut found = Vec::new();
-    for (index, k) in spec.clique_sizes().into_iter().enumerate() {
+    for (index, k) in spec
+        .clique_sizes()
+        .unwrap_or_default()
+        .into_iter()
+        .enumerate()
+    {
         let colour = index as u8 + 1;
         let _ = for_each_subset::<()>(colouring.order(), k, |s| {
             let mono = s
@@ -53,30 +59,16 @@ pub enum Repair {
 /// Repairs `near` (a colouring of K_n for a clique specification).
 pub fn repair(
     formula: &Formula,
-    spec: &RamseySpec,
     near: &Colouring,
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> Result<Repair, SearchError> {
+    let spec = formula.instance().spec();
     let n = near.order();
     let cliques = monochromatic_cliques(spec, near);
-    let mut in_clique = vec![false; n];
-    cliques
-        .iter()
-        .flat_map(|(_, s)| s)
-        .for_each(|&v| in_clique[v] = true);
-    let clique_edge = |i: usize, j: usize| {
-        cliques
-            .iter()
-            .any(|(_, s)| s.contains(&i) && s.contains(&j))
-    };
+    let vertex_sets: Vec<Vec<usize>> = cliques.iter().map(|(_, s)| s.clone()).collect();
     for radius in 0..=2 {
-        let free = |i: usize, j: usize| match radius {
-            0 => clique_edge(i, j),
-            1 => in_clique[i] || in_clique[j],
-            _ => true,
-        };
-        let seed = Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !free(i, j));
+        let seed = repair_seed(near, &vertex_sets, radius);
         match seed.solve(formula, stop, deadline)? {
             AttemptOutcome::Satisfiable(colouring) => {
                 let freed = n * (n - 1) / 2 - seed.fixed.len();

@@ -11,23 +11,33 @@
 //!   classical extremal colourings.
 //!
 //! Seeds only steer the search: an attempt that is unsatisfiable under its seed
-//! says nothing, and the one unseeded worker keeps the search complete. Seeds
-//! taken from whole colourings ([`Seed::from_colouring`]) also serve extension
-//! and repair, which solve with them directly ([`Seed::solve`]).
+//! says nothing, and the one unseeded worker keeps the search complete.
+//! [`seeded_attempt`] is the one budgeted attempt under a seed (the portfolio's
+//! workers and the hybrid's stages use it). Seeds taken from whole colourings
+//! ([`Seed::from_colouring`]): the circulant neighbours of the hybrid search,
+//! near-solutions of local search ([`near_solution_seeds`]), and the fixed parts
+//! of extension ([`extension_seed`]) and repair ([`repair_seed`]), which solve
+//! with them completely ([`Seed::solve`]).
 
+use std::collections::HashSet;
 use std::fmt;
-use std::io;
 use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
 use rand::seq::index::sample;
+use rand::seq::SliceRandom;
 use rand::Rng;
+use rand_chacha::ChaCha8Rng;
 
 use ramsift_encoder::edges::{edge_count, edge_index};
 use ramsift_encoder::{Colouring, VariableMap};
 
-use crate::search::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
-use crate::search::formula::Formula;
+use super::attempt::{run_attempt, AttemptError, AttemptOutcome, AttemptPlan};
+use super::first_answer::verified;
+use super::formula::Formula;
+use super::job::{SearchError, SearchJob, SearchResult};
+use super::portfolio::luby;
+use crate::local::LocalState;
 
 /// Which construction a seed came from.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -46,9 +56,9 @@ pub enum SeedKind {
 impl fmt::Display for SeedKind {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(match self {
-            SeedKind::Star => "star",
-            SeedKind::RandomSubset => "random-subset",
-            SeedKind::CirculantSubset => "circulant-subset",
+            SeedKind::Star => "star seed",
+            SeedKind::RandomSubset => "random-subset seed",
+            SeedKind::CirculantSubset => "circulant-subset seed",
             SeedKind::CirculantNeighbour => "circulant colouring of K_(n-1)",
             SeedKind::NearSolution => "local-search near-solution",
             SeedKind::Extension => "given colouring of K_(n-1)",
@@ -92,7 +102,7 @@ impl Seed {
             units: self.units(formula.variables()),
             ..AttemptPlan::default()
         };
-        Ok(run_attempt::<io::Sink>(formula, &plan, stop, deadline, None, false)?.outcome)
+        Ok(run_attempt(formula, &plan, stop, deadline)?.outcome)
     }
 
     /// Unit clauses pinning each fixed edge to its colour.
@@ -115,6 +125,87 @@ impl Seed {
         }
         units
     }
+}
+
+/// One budgeted attempt under `seed`: a random renaming and clause order from
+/// `rng`, the seed's edges fixed, and a proof-byte budget of the job's base budget
+/// times the Luby sequence at `attempt`. `Some` with a verified colouring when it
+/// found one; `who` names the worker in the colouring's account.
+#[allow(clippy::too_many_arguments)]
+pub fn seeded_attempt(
+    job: &SearchJob,
+    formula: &Formula,
+    seed: &Seed,
+    rng: &mut ChaCha8Rng,
+    attempt: u64,
+    who: &str,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<Option<SearchResult>, SearchError> {
+    let mut plan = AttemptPlan::shuffled(formula, rng);
+    plan.units = seed.units(formula.variables());
+    plan.budget_bytes = Some(job.options.base_budget_bytes.saturating_mul(luby(attempt)));
+    let report = run_attempt(formula, &plan, stop, deadline)?;
+    job.count_attempt(report.proof_bytes);
+    match report.outcome {
+        AttemptOutcome::Satisfiable(c) => {
+            let by = format!(
+                "{who} seeded by a {} ({} edges fixed)",
+                seed.kind,
+                seed.fixed.len()
+            );
+            verified(job.spec(), c, by).map(Some)
+        }
+        _ => Ok(None),
+    }
+}
+
+/// Every edge of `base`, a colouring of K_(n-1), fixed: the SAT solver colours the
+/// new vertex's edges.
+pub fn extension_seed(base: &Colouring) -> Seed {
+    Seed::from_colouring(SeedKind::Extension, base, |_, _| true)
+}
+
+/// The edges of a near-solution kept at repair radius `radius` around its
+/// monochromatic `cliques` (vertex sets): radius 0 frees the edges inside the
+/// cliques, 1 every edge at one of their vertices, 2 and above every edge.
+pub fn repair_seed(near: &Colouring, cliques: &[Vec<usize>], radius: usize) -> Seed {
+    let mut in_clique = vec![false; near.order()];
+    cliques.iter().flatten().for_each(|&v| in_clique[v] = true);
+    let clique_edge = |i: usize, j: usize| cliques.iter().any(|s| s.contains(&i) && s.contains(&j));
+    let free = |i: usize, j: usize| match radius {
+        0 => clique_edge(i, j),
+        1 => in_clique[i] || in_clique[j],
+        _ => true,
+    };
+    Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !free(i, j))
+}
+
+/// Seeds from a near-solution: every edge in no monochromatic forbidden clique
+/// fixed; then the same with a random fifth of those edges released.
+pub fn near_solution_seeds(
+    near: &Colouring,
+    clique_sizes: &[usize],
+    rng: &mut ChaCha8Rng,
+) -> Vec<Seed> {
+    let state = LocalState::new(near, clique_sizes);
+    let bad: HashSet<(usize, usize)> = state.bad_edges().into_iter().collect();
+    let good =
+        Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !bad.contains(&(i, j))).fixed;
+    let mut released = good.clone();
+    released.shuffle(rng);
+    released.truncate(good.len() * 4 / 5);
+    released.sort_unstable();
+    vec![
+        Seed {
+            kind: SeedKind::NearSolution,
+            fixed: good,
+        },
+        Seed {
+            kind: SeedKind::NearSolution,
+            fixed: released,
+        },
+    ]
 }
 
 /// Draws a seed of a random kind.
@@ -173,6 +264,7 @@ fn subset_seed(order: usize, colours: usize, rng: &mut impl Rng, kind: SeedKind)
 #[cfg(test)]
 mod tests {
     use super::*;
+    use ramsift_encoder::edges::edge_endpoints;
     use rand::SeedableRng;
     use rand_chacha::ChaCha8Rng;
 
@@ -199,5 +291,37 @@ mod tests {
             let vars = VariableMap::new(12, 3);
             assert_eq!(s.units(&vars).len(), 3 * s.fixed.len());
         }
+    }
+
+    #[test]
+    fn near_solution_seeds_leave_the_bad_edges_free() {
+        // The pentagon colouring of K5 (colour 1 at distance ±1) plus vertex 5,
+        // joined in colour 1 to 0 and 2 and in colour 2 to 1, 3 and 4: for (3,3)
+        // the colour-2 triangle {1,3,5} is bad, most other edges are not.
+        let near = Colouring::from_fn(6, 2, |i, j| match (i, j) {
+            (0 | 2, 5) => 1,
+            (_, 5) => 2,
+            _ if j - i == 1 || j - i == 4 => 1,
+            _ => 2,
+        });
+        let state = LocalState::new(&near, &[3, 3]);
+        let bad: Vec<usize> = state
+            .bad_edges()
+            .into_iter()
+            .map(|(i, j)| edge_index(i, j))
+            .collect();
+        assert!(bad.contains(&edge_index(1, 3)) && !bad.contains(&edge_index(0, 1)));
+        let mut rng = ChaCha8Rng::seed_from_u64(1);
+        let seeds = near_solution_seeds(&near, &[3, 3], &mut rng);
+        assert!(!bad.is_empty() && bad.len() < 15);
+        assert_eq!(seeds[0].fixed.len() + bad.len(), 15);
+        for seed in &seeds {
+            for &(edge, colour) in &seed.fixed {
+                assert!(!bad.contains(&edge));
+                let (i, j) = edge_endpoints(edge);
+                assert_eq!(near.colour(i, j) as usize, colour);
+            }
+        }
+        assert!(seeds[1].fixed.len() < seeds[0].fixed.len());
     }
 }

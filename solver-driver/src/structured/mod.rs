@@ -147,20 +147,49 @@ impl OrderReport {
         })
     }
 
-    /// "found", "none" (every family proved empty) or "unknown".
-    pub fn verdict(&self) -> &'static str {
+    /// Found, none (every family proved empty) or unknown.
+    pub fn verdict(&self) -> ScanVerdict {
         if self.found().is_some() {
-            "found"
+            ScanVerdict::Found
         } else if !self.families.is_empty()
             && self
                 .families
                 .iter()
                 .all(|r| r.outcome == FamilyOutcome::NoneInFamily)
         {
-            "none"
+            ScanVerdict::None
         } else {
-            "unknown"
+            ScanVerdict::Unknown
         }
+    }
+}
+
+/// What a structured search says about one order (or one family at an order).
+#[derive(Clone, Copy, Debug, PartialEq, Eq, serde::Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum ScanVerdict {
+    /// A colouring of the family exists.
+    Found,
+    /// The family has no colouring (proved by exhaustion within it).
+    None,
+    /// The search was stopped before it could tell.
+    Unknown,
+}
+
+impl ScanVerdict {
+    /// The word in text and JSON output.
+    pub fn word(self) -> &'static str {
+        match self {
+            ScanVerdict::Found => "found",
+            ScanVerdict::None => "none",
+            ScanVerdict::Unknown => "unknown",
+        }
+    }
+}
+
+impl fmt::Display for ScanVerdict {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(self.word())
     }
 }
 

@@ -55,7 +55,7 @@ impl OrbitFormula {
         deadline: Option<std::time::Instant>,
     ) -> Option<Self> {
         let r = spec.colours();
-        let sizes = spec.clique_sizes();
+        let sizes = spec.vertex_counts();
         let mut cliques_enumerated = 0u64;
         let mut clauses = Vec::new();
         if r > 2 {

@@ -43,7 +43,7 @@ pub fn scan(
 ) -> Result<ScanReport, FamilySearchError> {
     let started = Instant::now();
     let stop = AtomicBool::new(false);
-    let pool = crate::search::portfolio::worker_pool(threads)?;
+    let pool = crate::search::first_answer::worker_pool(threads)?;
     let on_order = std::sync::Mutex::new(&mut on_order);
     let results: Vec<Result<OrderReport, FamilySearchError>> = pool.install(|| {
         (from..=to)

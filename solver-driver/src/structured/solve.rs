@@ -12,7 +12,7 @@ use super::families::{EdgeOrbits, FamilyError};
 use super::orbit_formula::{orbit_literal, OrbitFormula};
 use crate::certify::witness_check::verify_witness;
 use crate::search::interrupt::{limited_solver, SinkReport};
-use crate::search::portfolio::SearchError;
+use crate::search::job::SearchError;
 
 /// How a family search at one order ended.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -49,6 +49,15 @@ pub enum FamilySearchError {
     Family(#[from] FamilyError),
     #[error(transparent)]
     Search(#[from] SearchError),
+}
+
+impl From<FamilySearchError> for SearchError {
+    fn from(e: FamilySearchError) -> Self {
+        match e {
+            FamilySearchError::Family(e) => SearchError::Family(e),
+            FamilySearchError::Search(e) => e,
+        }
+    }
 }
 
 /// Searches one family for a colouring of K_n avoiding the specification's cliques.
