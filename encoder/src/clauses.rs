@@ -1,4 +1,5 @@
-//! The clauses of the clique encoding, generated as a stream.
+//! The clauses of the Ramsey encoding (cliques and other forbidden graphs),
+//! generated as a stream.
 //!
 //! For each colour c with forbidden clique K_k and each k-subset S of the vertices,
 //! one clause says "not every edge inside S has colour c". For another forbidden
@@ -50,9 +51,10 @@ pub enum EncodeError {
     DegreeBoundsNeedCliques { instance: String },
 }
 
-/// The clique encoding of one instance, with its symmetry-breaking clauses.
+/// The encoding of one instance (a clause per forbidden copy in each colour), with
+/// its symmetry-breaking clauses.
 #[derive(Clone, Debug)]
-pub struct CliqueEncoding {
+pub struct RamseyEncoding {
     instance: Instance,
     variables: VariableMap,
     /// Clauses of the clique encoding proper (without symmetry breaking).
@@ -61,7 +63,7 @@ pub struct CliqueEncoding {
     symmetry_clauses: SymmetryClauses,
 }
 
-impl CliqueEncoding {
+impl RamseyEncoding {
     /// Prepares the encoding without symmetry breaking, refusing instances over the limits.
     pub fn new(instance: &Instance, limits: &EncodingLimits) -> Result<Self, EncodeError> {
         Self::with_symmetry(instance, &SymmetrySet::none(), limits)
@@ -89,7 +91,7 @@ impl CliqueEncoding {
         }
         let count = Self::count_clauses(instance);
         match count {
-            Some(count) if count <= limits.max_clauses as u128 => Ok(CliqueEncoding {
+            Some(count) if count <= limits.max_clauses as u128 => Ok(RamseyEncoding {
                 instance: instance.clone(),
                 variables,
                 base_clause_count: count as u64,
@@ -271,16 +273,16 @@ mod tests {
     use crate::Colouring;
     use proptest::prelude::*;
 
-    fn encoding(sizes: &[usize], n: usize) -> CliqueEncoding {
+    fn encoding(sizes: &[usize], n: usize) -> RamseyEncoding {
         let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
-        CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap()
+        RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap()
     }
 
     #[test]
     fn literal_count_equals_the_emitted_literals() {
         // R(3,3) at 6: C(6,3) = 20 triangles per colour, 3 literals each: 120 (by hand).
         assert_eq!(
-            CliqueEncoding::count_literals(&encoding(&[3, 3], 6).instance),
+            RamseyEncoding::count_literals(&encoding(&[3, 3], 6).instance),
             Some(120)
         );
         for (spec, n, symmetry) in [
@@ -293,7 +295,7 @@ mod tests {
             let instance = Instance::new(spec.parse().unwrap(), n).unwrap();
             let set: SymmetrySet = symmetry.parse().unwrap();
             let encoding =
-                CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+                RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
             let mut emitted = 0u128;
             encoding
                 .for_each_clause::<()>(|c| {
@@ -324,17 +326,17 @@ mod tests {
         }
         // (5,5;43): 2·C(43,5) = 1,925,196 clauses (C(43,5) = 962,598, common practice).
         let instance = Instance::new(RamseySpec::cliques(&[5, 5]).unwrap(), 43).unwrap();
-        assert_eq!(CliqueEncoding::count_clauses(&instance), Some(1_925_196));
+        assert_eq!(RamseyEncoding::count_clauses(&instance), Some(1_925_196));
     }
 
     #[test]
     fn refuses_instances_over_the_limit() {
         let instance = Instance::new(RamseySpec::cliques(&[5, 5]).unwrap(), 43).unwrap();
         let err =
-            CliqueEncoding::new(&instance, &EncodingLimits { max_clauses: 1000 }).unwrap_err();
+            RamseyEncoding::new(&instance, &EncodingLimits { max_clauses: 1000 }).unwrap_err();
         assert!(err.to_string().contains("1925196"), "{err}");
         let huge = Instance::new(RamseySpec::cliques(&[30, 30]).unwrap(), 60_000).unwrap();
-        assert!(CliqueEncoding::new(&huge, &EncodingLimits::default()).is_err());
+        assert!(RamseyEncoding::new(&huge, &EncodingLimits::default()).is_err());
     }
 
     proptest! {

@@ -10,12 +10,12 @@ use std::io::{self, Write};
 use std::path::Path;
 
 use crate::atomic_file::write_atomically;
-use crate::clauses::CliqueEncoding;
+use crate::clauses::RamseyEncoding;
 use crate::spec::Forbidden;
 use crate::VERSION;
 
 /// The comment lines describing an encoding (without the leading `c `).
-pub fn header_lines(encoding: &CliqueEncoding) -> Vec<String> {
+pub fn header_lines(encoding: &RamseyEncoding) -> Vec<String> {
     let instance = encoding.instance();
     let r = instance.colours();
     let mut lines = vec![
@@ -76,7 +76,7 @@ pub fn header_lines(encoding: &CliqueEncoding) -> Vec<String> {
 }
 
 /// Writes the encoding as DIMACS to `out`. Returns the number of bytes written.
-pub fn write_encoding(encoding: &CliqueEncoding, out: &mut dyn Write) -> io::Result<u64> {
+pub fn write_encoding(encoding: &RamseyEncoding, out: &mut dyn Write) -> io::Result<u64> {
     let mut writer = ClauseWriter::new(out);
     for line in header_lines(encoding) {
         writer.comment(&line)?;
@@ -87,7 +87,7 @@ pub fn write_encoding(encoding: &CliqueEncoding, out: &mut dyn Write) -> io::Res
 }
 
 /// Writes the encoding to `path` atomically (gzip when the name ends in `.gz`).
-pub fn write_encoding_to(encoding: &CliqueEncoding, path: &Path) -> io::Result<u64> {
+pub fn write_encoding_to(encoding: &RamseyEncoding, path: &Path) -> io::Result<u64> {
     write_atomically(path, |out| write_encoding(encoding, out))
 }
 
@@ -153,7 +153,7 @@ mod tests {
     #[test]
     fn triangle_free_k3_file() {
         let instance = Instance::new(RamseySpec::cliques(&[3, 3]).unwrap(), 3).unwrap();
-        let enc = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+        let enc = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
         let mut out = Vec::new();
         write_encoding(&enc, &mut out).unwrap();
         let text = String::from_utf8(out).unwrap();

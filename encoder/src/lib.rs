@@ -22,11 +22,11 @@ pub mod spec;
 pub mod symmetry;
 pub mod variables;
 
-pub use clauses::{CliqueEncoding, EncodingLimits};
+pub use clauses::{EncodingLimits, RamseyEncoding};
 pub use colouring::Colouring;
 pub use graphs::SmallGraph;
 pub use spec::{Forbidden, Instance, NamedGraph, RamseySpec, SpecError};
-pub use symmetry::{Scheme, SymmetrySet};
+pub use symmetry::{Scheme, SymmetryChoice, SymmetrySet};
 pub use variables::VariableMap;
 
 /// The version of this encoder, recorded in every file it writes.

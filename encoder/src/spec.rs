@@ -114,120 +114,30 @@ impl Forbidden {
 
     /// Reads one entry of a specification (see the module documentation).
     pub fn parse_entry(position: usize, token: &str) -> Result<Forbidden, SpecError> {
-        let bad = || SpecError::BadEntry {
-            position,
-            token: token.to_string(),
-        };
-        let unusable = |reason: String| SpecError::BadGraph {
-            position,
-            token: token.to_string(),
-            reason,
-        };
-        let number = |text: &str| -> Result<usize, SpecError> {
-            text.parse::<usize>()
-                .ok()
-                .filter(|_| !text.is_empty() && text.bytes().all(|b| b.is_ascii_digit()))
-                .ok_or_else(bad)
-        };
+        let entry = Entry { position, token };
         let (graph, canonical) = if let Some(code) = token.strip_prefix("G6:") {
-            let g = SmallGraph::from_graph6(code).map_err(unusable)?;
+            let g = SmallGraph::from_graph6(code).map_err(|e| entry.unusable(e))?;
             (g, format!("G6:{code}"))
         } else if let Some(list) = token.strip_prefix("E:") {
-            let mut pairs = Vec::new();
-            for pair in list.split('/') {
-                let (a, b) = pair.split_once('-').ok_or_else(bad)?;
-                pairs.push((number(a)?, number(b)?));
-            }
-            let vertices = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
-            let g = SmallGraph::new(vertices, pairs).map_err(unusable)?;
-            let text: Vec<String> = g.edges().iter().map(|(a, b)| format!("{a}-{b}")).collect();
-            (g, format!("E:{}", text.join("/")))
+            entry.edge_list(list)?
         } else {
             let upper = token.to_ascii_uppercase();
             let (letter, rest) = upper.split_at(upper.chars().next().map_or(0, |c| c.len_utf8()));
             if letter.is_empty() || letter.bytes().all(|b| b.is_ascii_digit()) {
-                return Ok(Forbidden::Clique(number(token)?));
+                return Ok(Forbidden::Clique(entry.number(token)?));
             }
-            match letter {
-                "K" => {
-                    if let Some(k) = rest.strip_suffix("-E") {
-                        let k = number(k)?;
-                        if k < 3 {
-                            return Err(unusable("K_k − e needs k ≥ 3".into()));
-                        }
-                        (SmallGraph::complete_minus_edge(k), format!("K{k}-e"))
-                    } else if let Some((a, b)) = rest.split_once(':') {
-                        let (a, b) = (number(a)?, number(b)?);
-                        if a == 0 || b == 0 {
-                            return Err(unusable("both parts need a vertex".into()));
-                        }
-                        let (a, b) = (a.min(b), a.max(b));
-                        (SmallGraph::complete_bipartite(a, b), format!("K{a}:{b}"))
-                    } else {
-                        return Ok(Forbidden::Clique(number(rest)?));
-                    }
-                }
-                "C" => {
-                    let k = number(rest)?;
-                    if k < 3 {
-                        return Err(unusable("a cycle needs at least 3 vertices".into()));
-                    }
-                    (SmallGraph::cycle(k), format!("C{k}"))
-                }
-                "P" => {
-                    let k = number(rest)?;
-                    if k < 2 {
-                        return Err(unusable("a path needs at least 2 vertices".into()));
-                    }
-                    (SmallGraph::path(k), format!("P{k}"))
-                }
-                "S" => {
-                    // The literature writes S_n both for K_{1,n} and for K_{1,n-1}.
-                    let k = number(rest)?;
-                    return Err(unusable(format!(
-                        "stars are written K1:{k} (centre and {k} leaves): S{k} is ambiguous, and ramsift no longer reads it (it used to mean K1:{k})"
-                    )));
-                }
-                "W" => match rest.strip_prefix('_') {
-                    // W_n has n vertices: a hub joined to C_{n-1} (Radziszowski DS1).
-                    Some(n) => {
-                        let n = number(n)?;
-                        if n < 4 {
-                            return Err(unusable(
-                                "a wheel W_n needs n ≥ 4 vertices (a hub and a cycle)".into(),
-                            ));
-                        }
-                        (SmallGraph::wheel(n - 1), format!("W_{n}"))
-                    }
-                    None => {
-                        let k = number(rest)?;
-                        return Err(unusable(format!(
-                            "W{k} is no longer read: it used to mean a hub joined to C_{k} ({} vertices), but the survey's W_n has n vertices; write W_{} for that graph, or W_{k} for a hub joined to C_{}",
-                            k + 1,
-                            k + 1,
-                            k.saturating_sub(1)
-                        )));
-                    }
-                },
-                "B" => {
-                    let k = number(rest)?;
-                    if k < 1 {
-                        return Err(unusable("a book needs at least 1 page".into()));
-                    }
-                    (SmallGraph::book(k), format!("B{k}"))
-                }
-                _ => return Err(bad()),
+            match entry.named(letter, rest)? {
+                Named::Clique(k) => return Ok(Forbidden::Clique(k)),
+                Named::Graph(g, canonical) => (g, canonical),
             }
         };
         if graph.edges().is_empty() {
-            return Err(unusable(
-                "the graph has no edge, so every colouring contains it".into(),
-            ));
+            return Err(entry.unusable("the graph has no edge, so every colouring contains it"));
         }
         if graph.vertex_count() > MAX_GRAPH_VERTICES {
-            return Err(unusable(format!(
-                "{} vertices; forbidden graphs may have at most {MAX_GRAPH_VERTICES}",
-                graph.vertex_count()
+            let count = graph.vertex_count();
+            return Err(entry.unusable(format!(
+                "{count} vertices; forbidden graphs may have at most {MAX_GRAPH_VERTICES}"
             )));
         }
         // Isolated vertices do not change which colourings contain the graph once the
@@ -239,6 +149,140 @@ impl Forbidden {
             token: canonical,
             graph,
         }))
+    }
+}
+
+/// A named graph entry: a clique (`K4`), or another graph with its canonical token.
+enum Named {
+    Clique(usize),
+    Graph(SmallGraph, String),
+}
+
+/// One entry of a specification being read, for its error messages.
+struct Entry<'a> {
+    position: usize,
+    token: &'a str,
+}
+
+impl Entry<'_> {
+    fn bad(&self) -> SpecError {
+        SpecError::BadEntry {
+            position: self.position,
+            token: self.token.to_string(),
+        }
+    }
+
+    fn unusable(&self, reason: impl Into<String>) -> SpecError {
+        SpecError::BadGraph {
+            position: self.position,
+            token: self.token.to_string(),
+            reason: reason.into(),
+        }
+    }
+
+    /// A decimal number (digits only).
+    fn number(&self, text: &str) -> Result<usize, SpecError> {
+        text.parse::<usize>()
+            .ok()
+            .filter(|_| !text.is_empty() && text.bytes().all(|b| b.is_ascii_digit()))
+            .ok_or_else(|| self.bad())
+    }
+
+    /// `E:0-1/1-2/…`: a graph by its edges.
+    fn edge_list(&self, list: &str) -> Result<(SmallGraph, String), SpecError> {
+        let mut pairs = Vec::new();
+        for pair in list.split('/') {
+            let (a, b) = pair.split_once('-').ok_or_else(|| self.bad())?;
+            pairs.push((self.number(a)?, self.number(b)?));
+        }
+        let vertices = pairs.iter().map(|&(a, b)| a.max(b) + 1).max().unwrap_or(0);
+        let g = SmallGraph::new(vertices, pairs).map_err(|e| self.unusable(e))?;
+        let text: Vec<String> = g.edges().iter().map(|(a, b)| format!("{a}-{b}")).collect();
+        Ok((g, format!("E:{}", text.join("/"))))
+    }
+
+    /// A named family member: `letter` (upper case) and the rest of the token.
+    fn named(&self, letter: &str, rest: &str) -> Result<Named, SpecError> {
+        let at_least = |k: usize, min: usize, what: &str| {
+            if k < min {
+                Err(self.unusable(what))
+            } else {
+                Ok(k)
+            }
+        };
+        let graph = |g: SmallGraph, canonical: String| Ok(Named::Graph(g, canonical));
+        match letter {
+            "K" => self.k_entry(rest),
+            "C" => {
+                let k = at_least(self.number(rest)?, 3, "a cycle needs at least 3 vertices")?;
+                graph(SmallGraph::cycle(k), format!("C{k}"))
+            }
+            "P" => {
+                let k = at_least(self.number(rest)?, 2, "a path needs at least 2 vertices")?;
+                graph(SmallGraph::path(k), format!("P{k}"))
+            }
+            // The literature writes S_n both for K_{1,n} and for K_{1,n-1}.
+            "S" => Err(self.unusable(format!(
+                "stars are written K1:{k} (centre and {k} leaves): S{k} is ambiguous, and ramsift no longer reads it (it used to mean K1:{k})",
+                k = self.number(rest)?
+            ))),
+            "W" => self.wheel(rest),
+            "B" => {
+                let k = at_least(self.number(rest)?, 1, "a book needs at least 1 page")?;
+                graph(SmallGraph::book(k), format!("B{k}"))
+            }
+            _ => Err(self.bad()),
+        }
+    }
+
+    /// `Kk`, `Kk-e` or `Ka:b`.
+    fn k_entry(&self, rest: &str) -> Result<Named, SpecError> {
+        if let Some(k) = rest.strip_suffix("-E") {
+            let k = self.number(k)?;
+            if k < 3 {
+                return Err(self.unusable("K_k − e needs k ≥ 3"));
+            }
+            Ok(Named::Graph(
+                SmallGraph::complete_minus_edge(k),
+                format!("K{k}-e"),
+            ))
+        } else if let Some((a, b)) = rest.split_once(':') {
+            let (a, b) = (self.number(a)?, self.number(b)?);
+            if a == 0 || b == 0 {
+                return Err(self.unusable("both parts need a vertex"));
+            }
+            let (a, b) = (a.min(b), a.max(b));
+            Ok(Named::Graph(
+                SmallGraph::complete_bipartite(a, b),
+                format!("K{a}:{b}"),
+            ))
+        } else {
+            Ok(Named::Clique(self.number(rest)?))
+        }
+    }
+
+    /// `W_n`: n vertices, a hub joined to C_(n-1) (Radziszowski DS1).
+    fn wheel(&self, rest: &str) -> Result<Named, SpecError> {
+        match rest.strip_prefix('_') {
+            Some(n) => {
+                let n = self.number(n)?;
+                if n < 4 {
+                    return Err(
+                        self.unusable("a wheel W_n needs n ≥ 4 vertices (a hub and a cycle)")
+                    );
+                }
+                Ok(Named::Graph(SmallGraph::wheel(n - 1), format!("W_{n}")))
+            }
+            None => {
+                let k = self.number(rest)?;
+                Err(self.unusable(format!(
+                    "W{k} is no longer read: it used to mean a hub joined to C_{k} ({} vertices), but the survey's W_n has n vertices; write W_{} for that graph, or W_{k} for a hub joined to C_{}",
+                    k + 1,
+                    k + 1,
+                    k.saturating_sub(1)
+                )))
+            }
+        }
     }
 }
 
@@ -300,14 +344,13 @@ impl RamseySpec {
     }
 
     /// The forbidden clique size of each colour, in colour order, when every colour
-    /// forbids a clique.
-    pub fn clique_sizes_if_cliques(&self) -> Option<Vec<usize>> {
+    /// forbids a clique (None when some colour forbids another graph).
+    pub fn clique_sizes(&self) -> Option<Vec<usize>> {
         self.forbidden.iter().map(Forbidden::clique_size).collect()
     }
 
-    /// The forbidden clique size of each colour; for a graph entry, its vertex
-    /// count (callers that need true cliques check [`Self::is_cliques`] first).
-    pub fn clique_sizes(&self) -> Vec<usize> {
+    /// The vertex count of each colour's forbidden graph (its size, for a clique).
+    pub fn vertex_counts(&self) -> Vec<usize> {
         self.forbidden.iter().map(Forbidden::vertex_count).collect()
     }
 }

@@ -8,7 +8,7 @@
 use ramsift_encoder::edges::edge_count;
 use ramsift_encoder::symmetry::colour_swap::equal_colour_classes;
 use ramsift_encoder::{
-    CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec, Scheme, SymmetrySet,
+    Colouring, EncodingLimits, Instance, RamseyEncoding, RamseySpec, Scheme, SymmetrySet,
 };
 
 /// All permutations of 0..n (Heap's algorithm).
@@ -74,7 +74,7 @@ fn is_valid(c: &Colouring, sizes: &[usize]) -> bool {
         .all(|(i, &k)| !has_mono_clique(c, i as u8 + 1, k))
 }
 
-fn satisfies_symmetry(encoding: &CliqueEncoding, c: &Colouring) -> bool {
+fn satisfies_symmetry(encoding: &RamseyEncoding, c: &Colouring) -> bool {
     let values = encoding.full_assignment(c);
     encoding.symmetry_clauses().clauses.iter().all(|clause| {
         clause
@@ -126,7 +126,7 @@ fn exhaustive_spec(
 ) -> usize {
     let instance = Instance::new(spec.clone(), n).unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, set, &EncodingLimits::default()).unwrap();
     let r = spec.colours();
     let total = (r as u64).pow(edge_count(n) as u32);
     let mut covered = vec![false; total as usize];
@@ -218,7 +218,7 @@ fn random_check(sizes: &[usize], n: usize, samples: usize, seed: u64) {
     };
     for set in SymmetrySet::all_combinations() {
         let encoding =
-            CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+            RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
         let colour_perms = colour_permutations(&instance, set.contains(Scheme::ColourSwap));
         let mut checked = 0;
         while checked < samples {
@@ -282,7 +282,7 @@ fn forbidden_graphs_other_than_cliques_keep_every_class() {
             ("C4,C4,P3", 4),
         ] {
             let spec: RamseySpec = text.parse().unwrap();
-            let plain = CliqueEncoding::new(
+            let plain = RamseyEncoding::new(
                 &Instance::new(spec.clone(), n).unwrap(),
                 &EncodingLimits::default(),
             )

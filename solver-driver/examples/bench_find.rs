@@ -16,7 +16,7 @@ mod bench_util;
 use std::process::Command;
 
 use ramsift_driver::search::formula::Formula;
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 use varisat::{ExtendFormula, Lit, Solver};
 
 const DEFAULT_INSTANCES: &[&str] = &["4,4:17", "3,5:13", "3,6:17", "3,7:22", "3,3,3:16", "4,5:24"];
@@ -106,7 +106,7 @@ fn fmt(t: f64, cap: f64) -> String {
 /// Plain varisat: the formula's clauses in order, one thread, exit 10/20.
 fn plain(spec: &str, n: usize) {
     let instance = Instance::new(spec.parse::<RamseySpec>().unwrap(), n).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
     let formula = Formula::from_encoding(&encoding);
     let mut solver = Solver::new();
     let mut lits = Vec::new();

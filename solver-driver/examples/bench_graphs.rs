@@ -11,7 +11,7 @@ mod bench_util;
 use std::process::Command;
 use std::time::Instant;
 
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 
 fn main() {
     let args: Vec<String> = std::env::args().skip(1).collect();
@@ -36,7 +36,7 @@ fn main() {
         let mut count = 0u64;
         for _ in 0..repeats {
             let started = Instant::now();
-            let encoding = CliqueEncoding::new(&instance, &limits).unwrap();
+            let encoding = RamseyEncoding::new(&instance, &limits).unwrap();
             let mut seen = 0u64;
             let mut literals = 0u64;
             encoding

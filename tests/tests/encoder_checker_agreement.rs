@@ -7,7 +7,7 @@ use ramsift_checker::check_colouring;
 use ramsift_checker::graph6::{decode_graph6, decode_graph6_file};
 use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
 use ramsift_driver::output::graph6::encode_graph6;
-use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 
 fn colouring_from(order: usize, colours: usize, words: &[u64]) -> Colouring {
     let mut bit = 0usize;
@@ -26,7 +26,7 @@ proptest! {
         words in proptest::collection::vec(any::<u64>(), 1..4),
     ) {
         let instance = Instance::new(RamseySpec::cliques(&sizes).unwrap(), order).unwrap();
-        let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+        let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
         let colouring = colouring_from(order, sizes.len(), &words);
         let values = encoding.variables().assignment_of(&colouring);
         let satisfies = encoding.clauses().iter().all(|c| {
@@ -49,7 +49,7 @@ proptest! {
     ) {
         let spec: RamseySpec = entries.join(",").parse().unwrap();
         let instance = Instance::new(spec, order).unwrap();
-        let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+        let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
         let colouring = colouring_from(order, entries.len(), &words);
         let values = encoding.variables().assignment_of(&colouring);
         let satisfies = encoding.clauses().iter().all(|c| {

@@ -21,7 +21,7 @@ use ramsift_checker::input::read_input;
 use ramsift_checker::lrat::{check_lrat, parse_lrat, write_lrat, LratStep};
 use ramsift_checker::{check_colouring, Claim, ClaimGraph, ColourMatrix};
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 
 const MUTANTS: usize = 10_000;
 /// The longest any single mutant may take: far above any honest run here.
@@ -256,7 +256,7 @@ fn make_bundle(dir: &Path, sizes: &[usize], order: usize, text_proof: bool) {
     let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
     let set: SymmetrySet = "none".parse().unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
     let options = RefuteOptions {
         text_proof,
         ..RefuteOptions::default()
@@ -462,7 +462,7 @@ fn graph6_mutants() {
     let paley = ramsift_tests::constructions::paley(13);
     let base = format!(
         ">>graph6<<Dhc\n{}\n",
-        ramsift_driver::output::witness::colour_one_graph6(&paley)
+        ramsift_driver::output::graph6::colour_one_graph6(&paley)
     );
     let claim = Claim {
         forbidden: vec![ClaimGraph::Clique(3), ClaimGraph::Clique(3)],
@@ -487,7 +487,8 @@ fn graph6_mutants() {
 
 #[test]
 fn plan_and_shard_result_mutants() {
-    use ramsift_driver::shard::run::{complete_result, plan_encoding, plan_sha256, read_plan};
+    use ramsift_driver::shard::plan::{plan_sha256, Plan};
+    use ramsift_driver::shard::result::complete_result;
     let dir = tempfile::tempdir().unwrap();
     let plan_dir = dir.path().join("plan");
     let status = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
@@ -517,8 +518,8 @@ fn plan_and_shard_result_mutants() {
     let plan_base = std::fs::read(&plan_path).unwrap();
     fuzz("plan.json", 8, &plan_base, |m| {
         std::fs::write(&plan_path, m).unwrap();
-        match read_plan(&plan_dir) {
-            Ok(plan) if plan.order <= 40 => plan_encoding(&plan).is_ok(),
+        match Plan::read(&plan_dir) {
+            Ok(plan) if plan.order <= 40 => plan.encoding().is_ok(),
             _ => false,
         }
     });

@@ -2,7 +2,7 @@
 
 use ramsift_checker::check_colouring;
 use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
-use ramsift_encoder::{CliqueEncoding, Colouring, EncodingLimits, Instance, RamseySpec};
+use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 use ramsift_tests::published::TRIANGLE_FREE_K5_COLOURINGS;
 
 fn satisfied(clauses: &[Vec<i32>], assignment: u32) -> bool {
@@ -15,7 +15,7 @@ fn satisfied(clauses: &[Vec<i32>], assignment: u32) -> bool {
 #[test]
 fn cnf_of_3_3_on_5_has_twelve_models() {
     let instance = Instance::new(RamseySpec::cliques(&[3, 3]).unwrap(), 5).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
     let clauses = encoding.clauses();
     assert_eq!(encoding.variable_count(), 10);
     let models = (0u32..1 << 10).filter(|&a| satisfied(&clauses, a)).count();
@@ -43,7 +43,7 @@ fn cnf_of_3_3_on_5_has_twelve_models() {
 fn solver_enumeration_finds_the_same_twelve() {
     use varisat::{ExtendFormula, Lit, Solver};
     let instance = Instance::new(RamseySpec::cliques(&[3, 3]).unwrap(), 5).unwrap();
-    let encoding = CliqueEncoding::new(&instance, &EncodingLimits::default()).unwrap();
+    let encoding = RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap();
     let mut solver = Solver::new();
     for clause in encoding.clauses() {
         let lits: Vec<Lit> = clause

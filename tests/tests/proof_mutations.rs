@@ -12,7 +12,7 @@ use ramsift_checker::drat_check::check_drat;
 use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
 use ramsift_checker::input::read_input;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 use ramsift_tests::reference_drat::reference_refutes;
 
 /// A tiny deterministic generator (xorshift), so the mutants are the same every run.
@@ -30,7 +30,7 @@ fn make_bundle(sizes: &[usize], order: usize, symmetry: &str, dir: &Path) {
     let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
     let set: SymmetrySet = symmetry.parse().unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
     let report = refute(
         &encoding,
         dir,
@@ -425,7 +425,7 @@ fn graph_bundle_mutants_are_rejected() {
     let instance = Instance::new("C4,4".parse::<RamseySpec>().unwrap(), 10).unwrap();
     let set: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
     let report = refute(
         &encoding,
         &good,

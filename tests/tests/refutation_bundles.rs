@@ -6,7 +6,7 @@ use std::sync::atomic::{AtomicBool, AtomicU64};
 
 use ramsift_checker::bundle::check_bundle;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, Scheme, SymmetrySet};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, Scheme, SymmetrySet};
 
 /// Refutes (sizes; order) with `symmetry` into a fresh directory and checks the bundle.
 fn refute_and_check(
@@ -18,7 +18,7 @@ fn refute_and_check(
     let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
     let set: SymmetrySet = symmetry.parse().unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
     let dir = tempfile::tempdir().unwrap();
     let report = refute(
         &encoding,
@@ -113,7 +113,7 @@ fn text_and_gzip_traces_pass() {
 fn a_satisfiable_instance_writes_no_bundle() {
     // R(3,4) = 9: K8 has a good colouring, so there is nothing to refute.
     let instance = Instance::new(RamseySpec::cliques(&[3, 4]).unwrap(), 8).unwrap();
-    let encoding = CliqueEncoding::with_symmetry(
+    let encoding = RamseyEncoding::with_symmetry(
         &instance,
         &"lex-leader".parse().unwrap(),
         &EncodingLimits::default(),
@@ -143,7 +143,7 @@ fn the_trace_size_is_counted_while_it_is_written() {
     let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 18).unwrap();
     let set: SymmetrySet = "lex-leader".parse().unwrap();
     let encoding =
-        CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
     let dir = tempfile::tempdir().unwrap();
     let seen = AtomicU64::new(0);
     let report = refute(

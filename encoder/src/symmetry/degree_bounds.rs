@@ -46,7 +46,7 @@ impl Premise {
 
 /// The degree bound of each colour (None: no usable bound), with its premise.
 pub fn colour_bounds(instance: &Instance) -> Vec<Option<(usize, Premise)>> {
-    let Some(sizes) = instance.spec().clique_sizes_if_cliques() else {
+    let Some(sizes) = instance.spec().clique_sizes() else {
         // The bounds rest on clique Ramsey numbers; other graphs get none.
         return vec![None; instance.colours()];
     };

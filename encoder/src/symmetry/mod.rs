@@ -19,7 +19,7 @@ use std::str::FromStr;
 
 use thiserror::Error;
 
-use crate::spec::Instance;
+use crate::spec::{Instance, RamseySpec};
 use crate::variables::VariableMap;
 
 pub use degree_bounds::Premise;
@@ -121,6 +121,28 @@ impl SymmetrySet {
         self.schemes.is_empty()
     }
 
+    /// The default for refutations: every scheme that applies to `spec` (degree
+    /// bounds rest on clique Ramsey numbers, so graphs get colour-swap and
+    /// lex-leader only).
+    pub fn for_refutation(spec: &RamseySpec) -> Self {
+        if spec.is_cliques() {
+            SymmetrySet::of(&[Scheme::ColourSwap, Scheme::LexLeader, Scheme::DegreeBounds])
+        } else {
+            SymmetrySet::of(&[Scheme::ColourSwap, Scheme::LexLeader])
+        }
+    }
+
+    /// The schemes enumeration uses: lex-leader (and colour-swap when classes up to
+    /// colour permutation are asked for). Degree bounds are left out: they cut
+    /// colourings by degree, not only isomorphic copies.
+    pub fn for_enumeration(swap_colours: bool) -> Self {
+        if swap_colours {
+            SymmetrySet::of(&[Scheme::ColourSwap, Scheme::LexLeader])
+        } else {
+            SymmetrySet::of(&[Scheme::LexLeader])
+        }
+    }
+
     /// Every subset of the schemes (for soundness tests and benchmarks).
     pub fn all_combinations() -> Vec<SymmetrySet> {
         (0..1u32 << Scheme::ALL.len())
@@ -165,6 +187,44 @@ impl fmt::Display for SymmetrySet {
         }
         let names: Vec<&str> = self.schemes.iter().map(|s| s.name()).collect();
         f.write_str(&names.join(","))
+    }
+}
+
+/// A `--symmetry` choice: `default` (what the task chooses for the
+/// specification) or a set of schemes (`none`, or a comma list of names).
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum SymmetryChoice {
+    Default,
+    Schemes(SymmetrySet),
+}
+
+impl SymmetryChoice {
+    /// The set chosen, with `default` meaning `for_default`.
+    pub fn resolve(&self, for_default: impl FnOnce() -> SymmetrySet) -> SymmetrySet {
+        match self {
+            SymmetryChoice::Default => for_default(),
+            SymmetryChoice::Schemes(set) => set.clone(),
+        }
+    }
+}
+
+impl FromStr for SymmetryChoice {
+    type Err = SymmetryError;
+
+    fn from_str(text: &str) -> Result<Self, SymmetryError> {
+        match text.trim() {
+            "default" => Ok(SymmetryChoice::Default),
+            other => other.parse().map(SymmetryChoice::Schemes),
+        }
+    }
+}
+
+impl fmt::Display for SymmetryChoice {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            SymmetryChoice::Default => f.write_str("default"),
+            SymmetryChoice::Schemes(set) => set.fmt(f),
+        }
     }
 }
 

@@ -15,14 +15,15 @@ use thiserror::Error;
 
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
-use ramsift_encoder::{CliqueEncoding, Colouring};
+use ramsift_encoder::{Colouring, RamseyEncoding};
 
 use crate::certify::bundle::{
-    claim_of, encoding_record, premise_records, write_manifest_and_guide, FileRecord, Manifest,
-    PremiseRecord, BUNDLE_FORMAT, FORMULA_FILE,
+    write_manifest_and_guide, FileRecord, Manifest, PremiseRecord, FORMULA_FILE,
 };
 use crate::certify::witness_check::verify_witness;
-use crate::search::attempt::{run_attempt_counted, AttemptError, AttemptOutcome, AttemptPlan};
+use crate::search::attempt::{
+    run_attempt_with_proof, AttemptError, AttemptOutcome, AttemptPlan, ProofOutput,
+};
 use crate::search::formula::Formula;
 
 /// How to refute.
@@ -87,7 +88,7 @@ pub fn proof_file_name(options: &RefuteOptions) -> String {
 
 /// Refutes `encoding`, writing the bundle into `dir` on success.
 pub fn refute(
-    encoding: &CliqueEncoding,
+    encoding: &RamseyEncoding,
     dir: &Path,
     options: &RefuteOptions,
     stop: &AtomicBool,
@@ -106,14 +107,17 @@ pub fn refute(
         .map_err(io_error)?;
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
-    let report = run_attempt_counted(
+    let proof = ProofOutput {
+        writer: BufWriter::with_capacity(1 << 20, trace.as_file()),
+        text: options.text_proof,
+        bytes_seen: Some(bytes_seen),
+    };
+    let report = run_attempt_with_proof(
         &formula,
         &AttemptPlan::default(),
         stop,
         deadline,
-        Some(BufWriter::with_capacity(1 << 20, trace.as_file())),
-        options.text_proof,
-        Some(bytes_seen),
+        Some(proof),
     )?;
     let solve_seconds = started.elapsed().as_secs_f64();
     let result = match report.outcome {
@@ -126,55 +130,8 @@ pub fn refute(
             RefuteResult::Found(colouring)
         }
         AttemptOutcome::Unsatisfiable => {
-            let proof_name = proof_file_name(options);
-            let proof_path = dir.join(&proof_name);
-            trace.as_file().sync_all().map_err(io_error)?;
-            if options.gzip_proof {
-                let mut source = trace.reopen().map_err(io_error)?;
-                write_atomically(&proof_path, |w| io::copy(&mut source, w).map(|_| ()))
-                    .map_err(io_error)?;
-            } else {
-                #[cfg(unix)]
-                {
-                    use std::os::unix::fs::PermissionsExt;
-                    trace
-                        .as_file()
-                        .set_permissions(std::fs::Permissions::from_mode(0o644))
-                        .map_err(io_error)?;
-                }
-                trace.persist(&proof_path).map_err(|e| io_error(e.error))?;
-            }
-            let formula_path = dir.join(FORMULA_FILE);
-            write_encoding_to(encoding, &formula_path).map_err(io_error)?;
-            let mut files = Vec::new();
-            for (name, role, format) in [
-                (FORMULA_FILE.to_string(), "formula", "DIMACS CNF, gzip"),
-                (
-                    proof_name.clone(),
-                    "drat-proof",
-                    match (options.text_proof, options.gzip_proof) {
-                        (false, false) => "binary DRAT",
-                        (false, true) => "binary DRAT, gzip",
-                        (true, false) => "text DRAT",
-                        (true, true) => "text DRAT, gzip",
-                    },
-                ),
-            ] {
-                files.push(FileRecord::of(dir, &name, role, format).map_err(io_error)?);
-            }
-            let manifest = Manifest {
-                bundle_format: BUNDLE_FORMAT.to_string(),
-                claim: claim_of(encoding),
-                encoding: encoding_record(encoding),
-                premises: premise_records(encoding),
-                tool: format!("ramsift {}", env!("CARGO_PKG_VERSION")),
-                solver: crate::SOLVER_NAME.to_string(),
-                solve_seconds,
-                files,
-                sharding: None,
-            };
-            let mut written = vec![formula_path, proof_path];
-            written.extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
+            let (written, manifest) =
+                write_refutation_bundle(encoding, dir, options, trace, solve_seconds)?;
             RefuteResult::Refuted {
                 files: written,
                 proof_bytes: report.proof_bytes,
@@ -186,6 +143,55 @@ pub fn refute(
         result,
         solve_seconds,
     })
+}
+
+/// Puts the finished trace in place (compressed if asked) and writes the formula,
+/// the manifest and the guide. Returns the files written and the manifest.
+fn write_refutation_bundle(
+    encoding: &RamseyEncoding,
+    dir: &Path,
+    options: &RefuteOptions,
+    trace: tempfile::NamedTempFile,
+    solve_seconds: f64,
+) -> Result<(Vec<PathBuf>, Manifest), RefuteError> {
+    let io_error = |source: io::Error| RefuteError::Io {
+        dir: dir.to_path_buf(),
+        source,
+    };
+    let proof_name = proof_file_name(options);
+    let proof_path = dir.join(&proof_name);
+    trace.as_file().sync_all().map_err(io_error)?;
+    if options.gzip_proof {
+        let mut source = trace.reopen().map_err(io_error)?;
+        write_atomically(&proof_path, |w| io::copy(&mut source, w).map(|_| ()))
+            .map_err(io_error)?;
+    } else {
+        #[cfg(unix)]
+        {
+            use std::os::unix::fs::PermissionsExt;
+            trace
+                .as_file()
+                .set_permissions(std::fs::Permissions::from_mode(0o644))
+                .map_err(io_error)?;
+        }
+        trace.persist(&proof_path).map_err(|e| io_error(e.error))?;
+    }
+    let formula_path = dir.join(FORMULA_FILE);
+    write_encoding_to(encoding, &formula_path).map_err(io_error)?;
+    let proof_format = match (options.text_proof, options.gzip_proof) {
+        (false, false) => "binary DRAT",
+        (false, true) => "binary DRAT, gzip",
+        (true, false) => "text DRAT",
+        (true, true) => "text DRAT, gzip",
+    };
+    let files = vec![
+        FileRecord::of(dir, FORMULA_FILE, "formula", "DIMACS CNF, gzip").map_err(io_error)?,
+        FileRecord::of(dir, &proof_name, "drat-proof", proof_format).map_err(io_error)?,
+    ];
+    let manifest = Manifest::new(encoding, files, solve_seconds, None);
+    let mut written = vec![formula_path, proof_path];
+    written.extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
+    Ok((written, manifest))
 }
 
 /// The directory a premise's bundle goes to inside a bundle: `premises/R3-4-9`.
@@ -211,7 +217,7 @@ pub fn certify_premises(
         let instance = Instance::new(spec, premise.upper_bound)
             .map_err(|e| RefuteError::Premise(premise.statement.clone(), e.to_string()))?;
         let encoding =
-            CliqueEncoding::with_symmetry(&instance, symmetry, &EncodingLimits::default())
+            RamseyEncoding::with_symmetry(&instance, symmetry, &EncodingLimits::default())
                 .map_err(|e| RefuteError::Premise(premise.statement.clone(), e.to_string()))?;
         let report = refute(&encoding, &sub_dir, options, stop, &AtomicU64::new(0))?;
         match report.result {
@@ -224,12 +230,12 @@ pub fn certify_premises(
                     options,
                     stop,
                 )?);
-                crate::certify::bundle::write_guide(&sub_dir, &manifest).map_err(|source| {
-                    RefuteError::Io {
+                crate::certify::referee_guide::write_guide(&sub_dir, &manifest).map_err(
+                    |source| RefuteError::Io {
                         dir: sub_dir.clone(),
                         source,
-                    }
-                })?;
+                    },
+                )?;
             }
             _ => {
                 return Err(RefuteError::Premise(

@@ -5,15 +5,15 @@ use std::path::PathBuf;
 
 use anyhow::{Context, Result};
 use clap::Args;
-use serde::Serialize;
 
 use super::record::print_record;
 use ramsift_checker::Claim;
-use ramsift_driver::bounds::certified::{certificates, Certificate};
+use ramsift_driver::bounds::certified::certificates;
 use ramsift_driver::bounds::probabilistic::{deletion_lower, erdos_lower, spencer_lower};
 use ramsift_driver::bounds::published::{exact, published};
 use ramsift_driver::bounds::recursion::{erdos_szekeres, recursive_upper};
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::records::{BoundsRecord, BoundsRow};
 use ramsift_encoder::RamseySpec;
 
 /// Orders searched by the probabilistic bounds.
@@ -33,26 +33,9 @@ pub struct BoundsArgs {
     pub json: bool,
 }
 
-#[derive(Serialize)]
-struct Row {
-    bound: &'static str,
-    /// "R > n" or "R <= n".
-    kind: &'static str,
-    /// A number (a decimal string only beyond 2^64); a published range is [lower, upper].
-    value: Option<serde_json::Value>,
-    source: String,
-}
-
 /// A big integer as a JSON number, or as a decimal string beyond 2^64.
 fn number(value: &num_bigint::BigUint) -> serde_json::Value {
     u64::try_from(value).map_or_else(|_| value.to_string().into(), Into::into)
-}
-
-#[derive(Serialize)]
-struct Report {
-    spec: String,
-    rows: Vec<Row>,
-    certified: Vec<Certificate>,
 }
 
 pub fn run(args: &BoundsArgs) -> Result<u8> {
@@ -60,70 +43,9 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         .spec
         .parse()
         .with_context(|| format!("specification {:?}", args.spec))?;
-    let sizes = spec.clique_sizes_if_cliques().ok_or_else(|| {
+    let sizes = spec.clique_sizes().ok_or_else(|| {
         anyhow::anyhow!("bounds: the probabilistic and recursive bounds are for cliques; {spec} forbids other graphs")
     })?;
-    let r = sizes.len();
-    let mut rows = vec![
-        Row {
-            bound: "first moment",
-            kind: "R >",
-            value: Some(erdos_lower(&sizes, SEARCH_LIMIT).into()),
-            source: format!("Erdős 1947: largest n with Σ C(n,k_c)·{r}^(−C(k_c,2)) < 1"),
-        },
-        Row {
-            bound: "deletion",
-            kind: "R >",
-            value: Some(deletion_lower(&sizes, SEARCH_LIMIT).into()),
-            source: "alteration: max over n of n − ⌊E(n)⌋ (Alon & Spencer ch. 3)".into(),
-        },
-        Row {
-            bound: "local lemma",
-            kind: "R >",
-            value: spencer_lower(&sizes, SEARCH_LIMIT).map(Into::into),
-            source:
-                "Spencer 1975: e·(C(k,2)·C(n−2,k−2)+1)·2^(1−C(k,2)) < 1 (two equal colours only)"
-                    .into(),
-        },
-        Row {
-            bound: "recursion",
-            kind: "R <=",
-            value: Some(number(&recursive_upper(&sizes, &|_| None))),
-            source: "R(s,t) ≤ R(s−1,t)+R(s,t−1), one less if both even; from R(s,2) = s".into(),
-        },
-        Row {
-            bound: "recursion on published values",
-            kind: "R <=",
-            value: Some(number(&recursive_upper(&sizes, &exact))),
-            source: "the same recursion, starting from the exact values of the table".into(),
-        },
-        Row {
-            bound: "Erdős–Szekeres",
-            kind: "R <=",
-            value: erdos_szekeres(&sizes).map(|v| number(&v)),
-            source: "C(s+t−2, s−1) (two colours only)".into(),
-        },
-    ];
-    match published(&sizes) {
-        Some(p) if p.lower == p.upper => rows.push(Row {
-            bound: "published value",
-            kind: "R =",
-            value: Some(p.lower.into()),
-            source: format!("{}; Radziszowski DS1", p.source),
-        }),
-        Some(p) => rows.push(Row {
-            bound: "published range",
-            kind: "R in",
-            value: Some(serde_json::json!([p.lower, p.upper])),
-            source: format!("{}; Radziszowski DS1", p.source),
-        }),
-        None => rows.push(Row {
-            bound: "published range",
-            kind: "R in",
-            value: None,
-            source: "not in the embedded table (Radziszowski DS1 revision 17)".into(),
-        }),
-    }
     let certified = match &args.bundles {
         Some(dir) => {
             let claim = Claim::parse(&spec.to_string()).map_err(|e| anyhow::anyhow!(e))?;
@@ -131,15 +53,88 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
         }
         None => Vec::new(),
     };
-    let report = Report {
+    let report = BoundsRecord {
         spec: spec.to_string(),
-        rows,
+        rows: bound_rows(&sizes),
         certified,
     };
     if args.json {
         print_record(&report, "done", exit_codes::SUCCESS)?;
-        return Ok(exit_codes::SUCCESS);
+    } else {
+        print_report(&report, args.bundles.as_deref());
     }
+    Ok(exit_codes::SUCCESS)
+}
+
+/// The theoretical and published bounds for the clique sizes.
+fn bound_rows(sizes: &[usize]) -> Vec<BoundsRow> {
+    let r = sizes.len();
+    let mut rows = vec![
+        BoundsRow {
+            bound: "first moment",
+            kind: "R >",
+            value: Some(erdos_lower(sizes, SEARCH_LIMIT).into()),
+            source: format!("Erdős 1947: largest n with Σ C(n,k_c)·{r}^(−C(k_c,2)) < 1"),
+        },
+        BoundsRow {
+            bound: "deletion",
+            kind: "R >",
+            value: Some(deletion_lower(sizes, SEARCH_LIMIT).into()),
+            source: "alteration: max over n of n − ⌊E(n)⌋ (Alon & Spencer ch. 3)".into(),
+        },
+        BoundsRow {
+            bound: "local lemma",
+            kind: "R >",
+            value: spencer_lower(sizes, SEARCH_LIMIT).map(Into::into),
+            source:
+                "Spencer 1975: e·(C(k,2)·C(n−2,k−2)+1)·2^(1−C(k,2)) < 1 (two equal colours only)"
+                    .into(),
+        },
+        BoundsRow {
+            bound: "recursion",
+            kind: "R <=",
+            value: Some(number(&recursive_upper(sizes, &|_| None))),
+            source: "R(s,t) ≤ R(s−1,t)+R(s,t−1), one less if both even; from R(s,2) = s".into(),
+        },
+        BoundsRow {
+            bound: "recursion on published values",
+            kind: "R <=",
+            value: Some(number(&recursive_upper(sizes, &exact))),
+            source: "the same recursion, starting from the exact values of the table".into(),
+        },
+        BoundsRow {
+            bound: "Erdős–Szekeres",
+            kind: "R <=",
+            value: erdos_szekeres(sizes).map(|v| number(&v)),
+            source: "C(s+t−2, s−1) (two colours only)".into(),
+        },
+    ];
+    match published(sizes) {
+        Some(p) if p.lower == p.upper => rows.push(BoundsRow {
+            bound: "published value",
+            kind: "R =",
+            value: Some(p.lower.into()),
+            source: format!("{}; Radziszowski DS1", p.source),
+        }),
+        Some(p) => rows.push(BoundsRow {
+            bound: "published range",
+            kind: "R in",
+            value: Some(serde_json::json!([p.lower, p.upper])),
+            source: format!("{}; Radziszowski DS1", p.source),
+        }),
+        None => rows.push(BoundsRow {
+            bound: "published range",
+            kind: "R in",
+            value: None,
+            source: "not in the embedded table (Radziszowski DS1 revision 17)".into(),
+        }),
+    }
+    rows
+}
+
+/// The report as text on stdout.
+fn print_report(report: &BoundsRecord, bundles: Option<&std::path::Path>) {
+    let spec = &report.spec;
     println!("Bounds for R({spec}):");
     let width = report
         .rows
@@ -160,7 +155,7 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
             width = width
         );
     }
-    if let Some(dir) = &args.bundles {
+    if let Some(dir) = bundles {
         if report.certified.is_empty() {
             println!("certified below {}: nothing for R({spec})", dir.display());
         } else {
@@ -171,5 +166,4 @@ pub fn run(args: &BoundsArgs) -> Result<u8> {
             }
         }
     }
-    Ok(exit_codes::SUCCESS)
 }

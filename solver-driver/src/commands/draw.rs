@@ -3,10 +3,11 @@
 use std::path::PathBuf;
 
 use anyhow::{Context, Result};
-use clap::Args;
+use clap::{Args, ValueEnum};
 
 use ramsift_driver::draw::{svg, tikz, Figure, Layout};
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::records::DrawRecord;
 use ramsift_encoder::atomic_file::write_atomically;
 
 #[derive(Args, Debug)]
@@ -21,8 +22,8 @@ pub struct DrawArgs {
     pub out: PathBuf,
     /// circle (vertices on a circle, edges in their colour's style) or matrix
     /// (adjacency matrix, cells in their colour's fill).
-    #[arg(long, default_value = "circle", value_parser = ["circle", "matrix"])]
-    pub layout: String,
+    #[arg(long, value_enum, default_value_t = LayoutChoice::Circle)]
+    pub layout: LayoutChoice,
     /// Colours drawn in the circle layout, comma separated (default: all).
     #[arg(long, value_name = "LIST")]
     pub colours: Option<String>,
@@ -34,12 +35,21 @@ pub struct DrawArgs {
     pub json: bool,
 }
 
-pub fn run(args: &DrawArgs) -> Result<u8> {
+/// The layouts of `--layout`.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum LayoutChoice {
+    Circle,
+    Matrix,
+}
+
+/// The figure of the first colouring in the file, with its title.
+fn figure_of(args: &DrawArgs) -> Result<Figure> {
     let read = super::input::read_first_colouring(&args.file)?;
     let matrix = read.matrix;
+    let n = matrix.order();
     let (colours, title) = match &read.claim {
         Some(claim) => {
-            let mut title = format!("a ({claim};{}) colouring", matrix.order());
+            let mut title = format!("a ({claim};{n}) colouring");
             if read.in_file > 1 {
                 // A stream (enumerate's output with three or more colours): the first one.
                 title.push_str(&format!(", the first of {} in the file", read.in_file));
@@ -48,19 +58,13 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
         }
         None => (
             2,
-            format!(
-                "a 2-colouring of K_{} (graph6: edges colour 1)",
-                matrix.order()
-            ),
+            format!("a 2-colouring of K_{n} (graph6: edges colour 1)"),
         ),
     };
-    let n = matrix.order();
     let mut cells = vec![0u8; n * n];
     for i in 0..n {
-        for j in 0..n {
-            if i != j {
-                cells[i * n + j] = matrix.colour(i, j);
-            }
+        for j in (0..n).filter(|&j| j != i) {
+            cells[i * n + j] = matrix.colour(i, j);
         }
     }
     let shown: Vec<u8> = match &args.colours {
@@ -80,17 +84,20 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
             })
             .collect::<Result<_>>()?,
     };
-    let figure = Figure {
+    Ok(Figure {
         order: n,
         colours,
         cells,
         shown,
-        title: Some(title.clone()),
-    };
-    let layout = if args.layout == "matrix" {
-        Layout::Matrix
-    } else {
-        Layout::Circle
+        title: Some(title),
+    })
+}
+
+/// The figure as SVG or TikZ, by the name of `--out` (`-`: SVG).
+fn render(args: &DrawArgs, figure: &Figure) -> Result<String> {
+    let layout = match args.layout {
+        LayoutChoice::Matrix => Layout::Matrix,
+        LayoutChoice::Circle => Layout::Circle,
     };
     let extension = args
         .out
@@ -99,7 +106,7 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
         .unwrap_or("")
         .to_ascii_lowercase();
     let to_stdout = args.out.as_os_str() == "-";
-    let text = match extension.as_str() {
+    match extension.as_str() {
         _ if to_stdout && args.json => {
             anyhow::bail!("--out - and --json both want standard output; give --out a file")
         }
@@ -109,7 +116,7 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
                 (50.0..=20_000.0).contains(&size),
                 "--size {size}: expected 50 to 20000 pixels"
             );
-            svg::render(&figure, layout, size)
+            Ok(svg::render(figure, layout, size))
         }
         "tex" => {
             let size = args.size.unwrap_or(8.0);
@@ -117,22 +124,31 @@ pub fn run(args: &DrawArgs) -> Result<u8> {
                 (1.0..=100.0).contains(&size),
                 "--size {size}: expected 1 to 100 centimetres"
             );
-            tikz::render(&figure, layout, size)
+            Ok(tikz::render(figure, layout, size))
         }
         _ => anyhow::bail!(
             "--out {}: expected a name ending in .svg (SVG) or .tex (TikZ)",
             args.out.display()
         ),
-    };
-    if to_stdout {
+    }
+}
+
+pub fn run(args: &DrawArgs) -> Result<u8> {
+    let figure = figure_of(args)?;
+    let text = render(args, &figure)?;
+    if args.out.as_os_str() == "-" {
         print!("{text}");
         return Ok(exit_codes::SUCCESS);
     }
     write_atomically(&args.out, |w| w.write_all(text.as_bytes()))
         .with_context(|| format!("writing {}", args.out.display()))?;
     if args.json {
-        let record =
-            serde_json::json!({"figure": args.out, "order": n, "colours": colours, "title": title});
+        let record = DrawRecord {
+            figure: args.out.clone(),
+            order: figure.order,
+            colours: figure.colours,
+            title: figure.title.unwrap_or_default(),
+        };
         super::record::print_record(record, "written", exit_codes::SUCCESS)?;
     } else {
         println!("wrote {}", args.out.display());

@@ -5,7 +5,9 @@ use std::time::Instant;
 
 use anyhow::{Context, Result};
 use clap::Args;
-use serde::Serialize;
+use ramsift_encoder::SymmetryChoice;
+
+use ramsift_driver::output::records::EncodeRecord;
 
 use ramsift_driver::exit_codes;
 use ramsift_encoder::dimacs::write_encoding_to;
@@ -22,20 +24,10 @@ pub struct EncodeArgs {
     pub out: PathBuf,
     /// Symmetry breaking: none, or a comma list of colour-swap, lex-leader, degree-bounds.
     #[arg(long, default_value = "none", value_name = "SCHEMES")]
-    pub symmetry: String,
+    pub symmetry: SymmetryChoice,
     /// Print what was written as JSON on stdout.
     #[arg(long)]
     pub json: bool,
-}
-
-#[derive(Serialize)]
-struct EncodeSummary {
-    instance: String,
-    file: PathBuf,
-    variables: usize,
-    clauses: u64,
-    bytes_uncompressed: u64,
-    seconds: f64,
 }
 
 pub fn run(args: &EncodeArgs) -> Result<u8> {
@@ -53,7 +45,7 @@ pub fn run(args: &EncodeArgs) -> Result<u8> {
         write_encoding_to(&encoding, &args.out)
             .with_context(|| format!("writing {}", args.out.display()))?
     };
-    let summary = EncodeSummary {
+    let summary = EncodeRecord {
         instance: encoding.instance().to_string(),
         file: args.out.clone(),
         variables: encoding.variable_count(),

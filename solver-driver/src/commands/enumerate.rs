@@ -11,11 +11,13 @@ use std::sync::atomic::AtomicBool;
 
 use anyhow::{Context, Result};
 use clap::Args;
-use serde::Serialize;
+use ramsift_encoder::{SymmetryChoice, SymmetrySet};
 
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::exit_codes;
-use ramsift_driver::output::witness::{colour_one_graph6, colouring_text};
+use ramsift_driver::output::graph6::colour_one_graph6;
+use ramsift_driver::output::records::{colouring_rows, EnumerateRecord};
+use ramsift_driver::output::witness::colouring_text;
 use ramsift_encoder::atomic_file::write_atomically;
 
 use super::instance_args::{timeout_of, InstanceArgs};
@@ -45,20 +47,6 @@ pub struct EnumerateArgs {
     pub quiet: bool,
 }
 
-#[derive(Serialize)]
-struct Summary {
-    instance: String,
-    classes: usize,
-    labelled_models_enumerated: u64,
-    up_to: &'static str,
-    symmetry: String,
-    seconds: f64,
-    complete: bool,
-    file: Option<PathBuf>,
-    /// Every class's colouring, as matrix rows (0 on the diagonal).
-    colourings: Vec<Vec<Vec<u8>>>,
-}
-
 pub fn run(args: &EnumerateArgs) -> Result<u8> {
     let instance = args.instance.instance()?;
     let to_stdout = args.out.as_os_str() == "-";
@@ -67,8 +55,13 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         "--out - and --json both want standard output; give --out a file"
     );
     // The search holds the whole formula (with lex-leader, a small addition).
-    args.instance
-        .fits(&args.instance.encoding("none")?, &instance.to_string(), 1)?;
+    args.instance.fits(
+        &args
+            .instance
+            .encoding(&SymmetryChoice::Schemes(SymmetrySet::none()))?,
+        &instance.to_string(),
+        1,
+    )?;
     let timeout = timeout_of(args.timeout)?;
     let line = ProgressLine::new(args.quiet);
     let stop = AtomicBool::new(false);
@@ -95,7 +88,7 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
     } else {
         "vertex relabelling"
     };
-    let mut summary = Summary {
+    let mut summary = EnumerateRecord {
         instance: instance.to_string(),
         classes: result.classes.len(),
         labelled_models_enumerated: result.models,
@@ -104,11 +97,7 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         seconds: result.elapsed.as_secs_f64(),
         complete: result.complete,
         file: None,
-        colourings: result
-            .classes
-            .iter()
-            .map(ramsift_driver::output::witness::colouring_rows)
-            .collect(),
+        colourings: result.classes.iter().map(colouring_rows).collect(),
     };
     if result.complete {
         // Two colours: graph6, one graph a line (it has no comment lines). More

@@ -1,26 +1,27 @@
 //! `ramsift find SPEC N`: the witness search, by the method chosen with `--method`.
 
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicBool, Ordering};
 use std::time::Instant;
 
 use anyhow::{Context, Result};
-use clap::Args;
+use clap::{Args, ValueEnum};
 
+use ramsift_driver::certify::witness_check::verify_witness;
 use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
-use ramsift_driver::output::witness::{
-    colouring_text, write_summary, write_witness_files, FindSummary,
-};
-use ramsift_driver::search::extension::{extend, Extension};
+use ramsift_driver::output::records::{FindResult, FindSummary};
+use ramsift_driver::output::summary::{write_summary, SUMMARY_FILE};
+use ramsift_driver::output::witness::{colouring_text, write_witness_files};
+use ramsift_driver::search::extension::{extend_chain, Chain};
 use ramsift_driver::search::formula::Formula;
 use ramsift_driver::search::hybrid::auto_search;
-use ramsift_driver::search::portfolio::{
-    search, SearchOptions, SearchProgress, SearchReport, SearchResult,
-};
+use ramsift_driver::search::job::{SearchJob, SearchOptions, SearchReport, SearchResult};
+use ramsift_driver::search::portfolio::search;
 use ramsift_driver::search::repair::{repair, Repair};
-use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice};
+use ramsift_driver::structured::{search_order, AbelianGroup, FamilyChoice, ScanVerdict};
 use ramsift_encoder::atomic_file::write_atomically;
+use ramsift_encoder::{Colouring, Instance, RamseyEncoding, SymmetryChoice, SymmetrySet};
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
@@ -34,8 +35,8 @@ pub struct FindArgs {
     /// a complete SAT worker throughout; sat: the SAT portfolio alone; circulant,
     /// cayley, block-circulant, structured: exhaustive within those families; local:
     /// local search alone (tabu search, or annealing with --rule anneal).
-    #[arg(long, default_value = "auto", value_parser = ["auto", "sat", "circulant", "cayley", "block-circulant", "structured", "local"])]
-    pub method: String,
+    #[arg(long, value_enum, default_value_t = Method::Auto)]
+    pub method: Method,
     /// Shorthand for --method circulant.
     #[arg(long, conflicts_with = "method")]
     pub circulant: bool,
@@ -46,8 +47,8 @@ pub struct FindArgs {
     #[arg(long, value_name = "COUNT")]
     pub blocks: Option<usize>,
     /// With --method local: tabu (default) or anneal.
-    #[arg(long, default_value = "tabu", value_parser = ["tabu", "anneal"])]
-    pub rule: String,
+    #[arg(long, value_enum, default_value_t = Rule::Tabu)]
+    pub rule: Rule,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
     /// (a ramsift colouring file, or graph6 for two colours; - reads standard
     /// input). "None extends" concerns this colouring only.
@@ -77,11 +78,11 @@ pub struct FindArgs {
     /// lex-leader, degree-bounds. None is the default for searches (it slows
     /// satisfiable searches down).
     #[arg(long, default_value = "none", value_name = "SCHEMES")]
-    pub symmetry: String,
+    pub symmetry: SymmetryChoice,
     /// Solver backend: varisat (pure Rust, default) or cadical (needs a build with
     /// `--features ramsift-driver/cadical`; implies --method sat).
-    #[arg(long, default_value = "varisat", value_parser = ["varisat", "cadical"])]
-    pub solver: String,
+    #[arg(long, value_enum, default_value_t = SolverChoice::Varisat)]
+    pub solver: SolverChoice,
     /// Print the summary as JSON on stdout instead of text.
     #[arg(long)]
     pub json: bool,
@@ -90,48 +91,85 @@ pub struct FindArgs {
     pub quiet: bool,
 }
 
+/// The search methods of `find`.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum Method {
+    Auto,
+    Sat,
+    Circulant,
+    Cayley,
+    BlockCirculant,
+    Structured,
+    Local,
+}
+
+impl Method {
+    /// The name on the command line and in summaries.
+    fn name(self) -> String {
+        self.to_possible_value()
+            .map_or_else(String::new, |v| v.get_name().to_string())
+    }
+}
+
+/// The move rules of `--method local`.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum Rule {
+    Tabu,
+    Anneal,
+}
+
+/// The solver backends.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum SolverChoice {
+    Varisat,
+    Cadical,
+}
+
 impl FindArgs {
-    fn method(&self) -> &str {
+    fn method(&self) -> Method {
         if self.circulant {
-            "circulant"
-        } else if self.solver == "cadical" {
-            "sat"
+            Method::Circulant
+        } else if self.solver == SolverChoice::Cadical {
+            Method::Sat
         } else {
-            &self.method
+            self.method
         }
     }
 
     fn family_choice(&self) -> Result<Option<FamilyChoice>> {
         anyhow::ensure!(
-            self.group.is_none() || self.method() == "cayley",
+            self.group.is_none() || self.method() == Method::Cayley,
             "--group goes with --method cayley"
         );
         anyhow::ensure!(
-            self.blocks.is_none() || self.method() == "block-circulant",
+            self.blocks.is_none() || self.method() == Method::BlockCirculant,
             "--blocks goes with --method block-circulant"
         );
         Ok(match self.method() {
-            "circulant" => Some(FamilyChoice::Circulant),
-            "cayley" => Some(FamilyChoice::Cayley(
+            Method::Circulant => Some(FamilyChoice::Circulant),
+            Method::Cayley => Some(FamilyChoice::Cayley(
                 self.group
                     .as_deref()
                     .map(|g| g.parse::<AbelianGroup>())
                     .transpose()
                     .context("--group")?,
             )),
-            "block-circulant" => Some(FamilyChoice::BlockCirculant(self.blocks)),
-            "structured" => Some(FamilyChoice::All),
+            Method::BlockCirculant => Some(FamilyChoice::BlockCirculant(self.blocks)),
+            Method::Structured => Some(FamilyChoice::All),
             _ => None,
         })
+    }
+
+    /// The symmetry breaking of the SAT workers.
+    fn symmetry(&self, instance: &Instance) -> SymmetrySet {
+        self.symmetry
+            .resolve(|| SymmetrySet::for_refutation(instance.spec()))
     }
 }
 
 /// A colouring named on the command line (a colouring file, or graph6 for two
 /// colours; - reads standard input), in the instance's colours.
-fn read_colouring_arg(
-    from: &std::path::Path,
-    instance: &ramsift_encoder::Instance,
-) -> Result<ramsift_encoder::Colouring> {
+fn read_colouring_arg(from: &Path, instance: &Instance) -> Result<Colouring> {
     let read = super::input::read_first_colouring(from)?;
     anyhow::ensure!(
         read.in_file == 1,
@@ -146,74 +184,66 @@ fn read_colouring_arg(
         instance.colours()
     );
     let matrix = read.matrix;
-    Ok(ramsift_encoder::Colouring::from_fn(
+    Ok(Colouring::from_fn(
         matrix.order(),
         instance.colours(),
         |i, j| matrix.colour(i, j),
     ))
 }
 
+/// What a method returns: the report, and a note when it proved something
+/// narrower than the question (a family is empty; a given colouring does not extend).
+type Found = (SearchReport, Option<String>);
+
 /// `find --repair FILE`: repairs a near-solution of K_N by SAT around its
 /// remaining monochromatic cliques (see `ramsift_driver::search::repair`).
-fn find_by_repair(
-    args: &FindArgs,
-    from: &std::path::Path,
-    instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
-) -> Result<SearchReport> {
+fn find_by_repair(args: &FindArgs, near_file: &Path, job: &SearchJob) -> Result<Found> {
     anyhow::ensure!(
-        args.symmetry == "none",
+        job.symmetry.is_empty(),
         "--repair keeps most edges of a colouring: --symmetry must be none"
     );
     anyhow::ensure!(
-        instance.spec().is_cliques(),
+        job.spec().is_cliques(),
         "--repair is for clique specifications"
     );
-    let near = read_colouring_arg(from, instance)?;
+    let instance = &job.instance;
+    let near = read_colouring_arg(near_file, instance)?;
     anyhow::ensure!(
         near.order() == instance.order(),
         "{} colours K_{}: --repair takes a (near-)colouring of K_{}",
-        from.display(),
+        near_file.display(),
         near.order(),
         instance.order()
     );
-    let encoding = args.instance.encoding("none")?;
+    let encoding = args
+        .instance
+        .encoding(&SymmetryChoice::Schemes(SymmetrySet::none()))?;
     args.instance.fits(&encoding, &instance.to_string(), 1)?;
     let formula = Formula::from_encoding(&encoding);
     let started = Instant::now();
-    let deadline = options.timeout.map(|t| started + t);
     let result = match repair(
         &formula,
-        instance.spec(),
         &near,
         &AtomicBool::new(false),
-        deadline,
+        job.deadline_from(started),
     )? {
         Repair::Repaired(result, _) => result,
         // The last radius is the whole plain formula: none exists at all.
         Repair::None => SearchResult::NoneExists,
         Repair::Stopped => SearchResult::Unknown,
     };
-    Ok(SearchReport {
-        result,
-        attempts: 1,
-        elapsed: started.elapsed(),
-        threads: 1,
-    })
+    job.count_attempt(0);
+    Ok((job.report(result, started), None))
 }
 
-/// `find --from FILE`: extends the given colouring of K_(N-1) by one vertex.
-fn find_by_extension(
-    args: &FindArgs,
-    from: &std::path::Path,
-    instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
-) -> Result<(SearchReport, Option<String>)> {
+/// `find --from FILE`: extends the given colouring of a smaller K_m to K_N, one
+/// vertex at a time.
+fn find_by_extension(args: &FindArgs, from: &Path, job: &SearchJob) -> Result<Found> {
     anyhow::ensure!(
-        args.symmetry == "none",
+        job.symmetry.is_empty(),
         "--from extends a given colouring: symmetry breaking could exclude its extensions, so --symmetry must be none"
     );
-    let name = from.display().to_string();
+    let (instance, name) = (&job.instance, from.display().to_string());
     let base = read_colouring_arg(from, instance)?;
     anyhow::ensure!(
         base.order() < instance.order(),
@@ -221,65 +251,41 @@ fn find_by_extension(
         base.order(),
         instance.order()
     );
-    let verdict = ramsift_driver::certify::witness_check::verify_witness(instance.spec(), &base);
+    let verdict = verify_witness(instance.spec(), &base);
     anyhow::ensure!(
         verdict.is_valid(),
         "{name} is not a good colouring of K_{} for {}: {verdict}",
         base.order(),
         instance.spec()
     );
-    // One vertex at a time: K_m -> K_(m+1) -> ... -> K_N (a chain of extensions).
     let started = Instant::now();
-    let deadline = options.timeout.map(|t| started + t);
-    let mut current = base.clone();
-    let mut outcome = Extension::Stopped;
-    for order in base.order() + 1..=instance.order() {
-        let step = ramsift_encoder::Instance::new(instance.spec().clone(), order)?;
-        let encoding = ramsift_encoder::CliqueEncoding::new(
-            &step,
-            &ramsift_encoder::EncodingLimits::default(),
-        )?;
-        args.instance.fits(&encoding, &step.to_string(), 1)?;
-        let formula = Formula::from_encoding(&encoding);
-        outcome = extend(
-            &formula,
-            instance.spec(),
-            &current,
-            &AtomicBool::new(false),
-            deadline,
-        )?;
-        match &outcome {
-            Extension::Extended(SearchResult::Found { colouring, .. }) => {
-                current = colouring.clone()
-            }
-            _ => break,
-        }
-    }
-    let (result, note) = match outcome {
-        Extension::Extended(SearchResult::Found { colouring, found_by }) if colouring.order() == instance.order() => {
-            let steps = instance.order() - base.order();
-            (SearchResult::Found { colouring, found_by: format!("{found_by}; {steps} extension step(s) from K_{}", base.order()) }, None)
-        }
-        Extension::Extended(_) | Extension::Stopped => (SearchResult::Unknown, None),
-        Extension::None => (
+    let admit = |encoding: &RamseyEncoding| -> Result<()> {
+        Ok(args
+            .instance
+            .fits(encoding, &encoding.instance().to_string(), 1)?)
+    };
+    let chain = extend_chain(
+        instance,
+        &base,
+        &AtomicBool::new(false),
+        job.deadline_from(started),
+        admit,
+    )?;
+    job.count_attempt(0);
+    let (result, note) = match chain {
+        Chain::Reached { colouring, found_by } => (SearchResult::Found { colouring, found_by }, None),
+        Chain::Stopped => (SearchResult::Unknown, None),
+        Chain::StuckAt(last) => (
             SearchResult::Unknown,
             Some(format!(
                 "the chain of extensions from the colouring of K_{} in {name} stops at K_{}: no colouring of K_{} extends it",
                 base.order(),
-                current.order(),
-                current.order() + 1
+                last.order(),
+                last.order() + 1
             )),
         ),
     };
-    Ok((
-        SearchReport {
-            result,
-            attempts: 1,
-            elapsed: started.elapsed(),
-            threads: 1,
-        },
-        note,
-    ))
+    Ok((job.report(result, started), note))
 }
 
 /// Where `find --method local --out DIR` keeps its best near-solution.
@@ -290,156 +296,58 @@ fn count(n: u64, noun: &str) -> String {
     format!("{n} {noun}{}", if n == 1 { "" } else { "s" })
 }
 
-pub fn run(args: &FindArgs) -> Result<u8> {
+/// The search job of a `find` run: the instance, the SAT workers' symmetry
+/// breaking, and the options from the flags.
+fn job_of(args: &FindArgs) -> Result<SearchJob> {
     let instance = args.instance.instance()?;
-    if let Some(dir) = &args.out {
-        ramsift_driver::output::dir::prepare(dir, args.force)?;
-    }
-    let timeout = timeout_of(args.timeout)?;
     let mut options = SearchOptions {
         seed: args.seed,
-        timeout,
+        timeout: timeout_of(args.timeout)?,
         ..SearchOptions::default()
     };
     if let Some(threads) = args.threads {
         anyhow::ensure!(threads >= 1, "--threads 0: at least one worker is needed");
         options.threads = threads;
     }
-    let line = ProgressLine::new(args.quiet);
-    let method = args.method().to_string();
+    let symmetry = args.symmetry(&instance);
+    Ok(SearchJob::new(instance, symmetry, options))
+}
 
-    let mut family_note = None;
-    let report = if let Some(near) = &args.repair {
-        find_by_repair(args, near, &instance, &options)?
+pub fn run(args: &FindArgs) -> Result<u8> {
+    let job = job_of(args)?;
+    if let Some(dir) = &args.out {
+        ramsift_driver::output::dir::prepare(dir, args.force)?;
+    }
+    let line = ProgressLine::new(args.quiet);
+    let (report, note) = if let Some(near) = &args.repair {
+        find_by_repair(args, near, &job)?
     } else if let Some(from) = &args.from {
-        let (report, note) = find_by_extension(args, from, &instance, &options)?;
-        family_note = note;
-        report
+        find_by_extension(args, from, &job)?
     } else if let Some(choice) = args.family_choice()? {
-        let (report, note) = find_in_family(&choice, &instance, &options, &line)?;
-        family_note = note;
-        report
-    } else if method == "local" {
-        find_by_local_search(args, &instance, &options, &line)?
+        find_in_family(&choice, &job, &line)?
+    } else if args.method() == Method::Local {
+        (find_by_local_search(args, &job, &line)?, None)
     } else {
-        // The encoding only counts its clauses here (refusing instances over the
-        // limits); the formula itself is built when a method needs it.
-        let encoding = args.instance.encoding(&args.symmetry)?;
-        let progress = SearchProgress::default();
-        let tick = |elapsed| {
-            line.update(|| {
-                format!(
-                    "{instance}: {method}, {}, {} elapsed, {} MiB of proof steps",
-                    count(progress.attempts.load(Ordering::Relaxed), "attempt"),
-                    seconds(elapsed),
-                    progress.proof_bytes.load(Ordering::Relaxed) >> 20
-                )
-            })
-        };
-        let solvers = options.threads.max(1);
-        if args.solver == "cadical" {
-            args.instance.fits(&encoding, &format!("{instance}"), 1)?;
-            search_with_cadical(&Formula::from_encoding(&encoding), &instance, &options)?
-        } else if method == "sat" {
-            args.instance
-                .fits(&encoding, &format!("{instance}"), solvers)?;
-            let formula = Formula::from_encoding(&encoding);
-            search(&formula, instance.spec(), &options, &progress, tick)?
-        } else {
-            auto_search(
-                instance.spec(),
-                instance.order(),
-                &options,
-                &progress,
-                tick,
-                || {
-                    // Too large for memory: the structured and local searches still run.
-                    let fits = args
-                        .instance
-                        .fits(&encoding, &format!("{instance}"), solvers);
-                    Ok(fits.is_ok().then(|| Formula::from_encoding(&encoding)))
-                },
-            )?
-        }
+        (find_by_sat(args, &job, &line)?, None)
     };
     line.finish();
 
-    let mut summary = FindSummary::of_search(&instance, &report, args.seed);
-    summary.method = method.clone();
-    if args.solver == "cadical" {
+    let mut summary = FindSummary::of_search(&job.instance, &report, args.seed);
+    summary.method = args.method().name();
+    if args.solver == SolverChoice::Cadical {
         summary.solver = "CaDiCaL (rustsat-cadical 0.7.5)".to_string();
     }
-    if let Some(note) = &family_note {
-        summary.result = "none-in-family".to_string();
+    if let Some(note) = &note {
+        summary.result = FindResult::NoneInFamily;
         summary.proves = Some(note.clone());
     }
     if let Some(dir) = &args.out {
-        if let SearchResult::Found {
-            colouring,
-            found_by,
-        } = &report.result
-        {
-            let comments = vec![
-                format!(
-                    "ramsift {} witness for {}: proves R({}) > {}",
-                    env!("CARGO_PKG_VERSION"),
-                    instance,
-                    instance.spec(),
-                    instance.order()
-                ),
-                format!(
-                    "found by {found_by}; method {method}; seed {}; checked by ramsift-checker before writing",
-                    args.seed
-                ),
-            ];
-            summary.files = write_witness_files(dir, &instance, colouring, &comments)
-                .with_context(|| format!("writing the witness into {}", dir.display()))?;
-        }
-        let path = dir.join(ramsift_driver::output::witness::SUMMARY_FILE);
-        summary.files.push(path);
-        write_summary(dir, &summary)
-            .with_context(|| format!("writing the summary into {}", dir.display()))?;
+        write_find_outputs(args, dir, &job.instance, &report, &mut summary)?;
     }
-
     if args.json {
-        print_record(&summary, &summary.result, summary.exit_code)?;
+        print_record(&summary, summary.result.word(), summary.exit_code)?;
     } else {
-        match &report.result {
-            SearchResult::Found { colouring, found_by } => {
-                let found = format!(
-                    "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({}) > {} ({:.2}s, {}, {found_by})",
-                    instance.spec(),
-                    instance.order(),
-                    report.elapsed.as_secs_f64(),
-                    count(report.attempts, "attempt")
-                );
-                if args.out.is_some() {
-                    println!("{found}");
-                } else {
-                    // The account as a comment line: the output is a colouring file
-                    // that `ramsift-check colouring -` reads as it is.
-                    print!("{}", colouring_text(&instance, colouring, &[found]));
-                }
-            }
-            SearchResult::NoneExists => println!(
-                "NONE {instance}: no such colouring exists, so R({}) <= {} ({:.2}s; uncertified: `ramsift refute` gives a checkable proof)",
-                instance.spec(),
-                instance.order(),
-                report.elapsed.as_secs_f64()
-            ),
-            SearchResult::Unknown => match &family_note {
-                Some(note) => println!(
-                    "NONE-IN-FAMILY {instance}: {note} ({:.2}s); this says nothing about other colourings",
-                    report.elapsed.as_secs_f64()
-                ),
-                None => println!(
-                    "UNKNOWN {instance}: no answer {} ({:.2}s, {})",
-                    ramsift_driver::search::interrupt::stopped_because(),
-                    report.elapsed.as_secs_f64(),
-                    count(report.attempts, "attempt")
-                ),
-            },
-        }
+        print_find_text(args, &job.instance, &report, note.as_deref());
         for file in &summary.files {
             println!("wrote {}", file.display());
         }
@@ -447,21 +355,135 @@ pub fn run(args: &FindArgs) -> Result<u8> {
     Ok(summary.exit_code)
 }
 
+/// The SAT methods: `sat` (the portfolio, or CaDiCaL) and `auto` (the hybrid).
+fn find_by_sat(args: &FindArgs, job: &SearchJob, line: &ProgressLine) -> Result<SearchReport> {
+    // The encoding only counts its clauses here (refusing instances over the
+    // limits); the formula itself is built when a method needs it.
+    let encoding = args.instance.encoding(&args.symmetry)?;
+    let instance = &job.instance;
+    let method = args.method().name();
+    let tick = |elapsed| {
+        line.update(|| {
+            format!(
+                "{instance}: {method}, {}, {} elapsed, {} MiB of proof steps",
+                count(job.progress.attempts.load(Ordering::Relaxed), "attempt"),
+                seconds(elapsed),
+                job.progress.proof_bytes.load(Ordering::Relaxed) >> 20
+            )
+        })
+    };
+    let what = instance.to_string();
+    if args.solver == SolverChoice::Cadical {
+        args.instance.fits(&encoding, &what, 1)?;
+        search_with_cadical(job, &Formula::from_encoding(&encoding))
+    } else if args.method() == Method::Sat {
+        args.instance.fits(&encoding, &what, job.threads())?;
+        Ok(search(job, &Formula::from_encoding(&encoding), tick)?)
+    } else {
+        Ok(auto_search(job, tick, || {
+            // Too large for memory: the structured and local searches still run.
+            let fits = args.instance.fits(&encoding, &what, job.threads());
+            Ok(fits.is_ok().then(|| Formula::from_encoding(&encoding)))
+        })?)
+    }
+}
+
+/// Writes the witness files (when found) and summary.json into `dir`, and lists
+/// them in the summary.
+fn write_find_outputs(
+    args: &FindArgs,
+    dir: &Path,
+    instance: &Instance,
+    report: &SearchReport,
+    summary: &mut FindSummary,
+) -> Result<()> {
+    if let SearchResult::Found {
+        colouring,
+        found_by,
+    } = &report.result
+    {
+        let comments = vec![
+            format!(
+                "ramsift {} witness for {}: proves R({}) > {}",
+                env!("CARGO_PKG_VERSION"),
+                instance,
+                instance.spec(),
+                instance.order()
+            ),
+            format!(
+                "found by {found_by}; method {}; seed {}; checked by ramsift-checker before writing",
+                args.method().name(),
+                args.seed
+            ),
+        ];
+        summary.files = write_witness_files(dir, instance, colouring, &comments)
+            .with_context(|| format!("writing the witness into {}", dir.display()))?;
+    }
+    summary.files.push(dir.join(SUMMARY_FILE));
+    write_summary(dir, summary)
+        .with_context(|| format!("writing the summary into {}", dir.display()))?;
+    Ok(())
+}
+
+/// The text account of a `find` run on stdout.
+fn print_find_text(
+    args: &FindArgs,
+    instance: &Instance,
+    report: &SearchReport,
+    note: Option<&str>,
+) {
+    let (spec, n, secs) = (
+        instance.spec(),
+        instance.order(),
+        report.elapsed.as_secs_f64(),
+    );
+    match &report.result {
+        SearchResult::Found { colouring, found_by } => {
+            let found = format!(
+                "FOUND {instance}: a colouring with no monochromatic forbidden graph, so R({spec}) > {n} ({secs:.2}s, {}, {found_by})",
+                count(report.attempts, "attempt")
+            );
+            if args.out.is_some() {
+                println!("{found}");
+            } else {
+                // The account as a comment line: the output is a colouring file
+                // that `ramsift-check colouring -` reads as it is.
+                print!("{}", colouring_text(instance, colouring, &[found]));
+            }
+        }
+        SearchResult::NoneExists => println!(
+            "NONE {instance}: no such colouring exists, so R({spec}) <= {n} ({secs:.2}s; uncertified: `ramsift refute` gives a checkable proof)"
+        ),
+        SearchResult::Unknown => match note {
+            Some(note) => {
+                println!("NONE-IN-FAMILY {instance}: {note} ({secs:.2}s); this says nothing about other colourings")
+            }
+            None => println!(
+                "UNKNOWN {instance}: no answer {} ({secs:.2}s, {})",
+                ramsift_driver::search::interrupt::stopped_because(),
+                count(report.attempts, "attempt")
+            ),
+        },
+    }
+}
+
 /// An exhaustive search within families. A proof that the family is empty is
 /// returned as `Unknown` with a note saying so (exit code 1: nothing was found, and
 /// other colourings may still exist).
-fn find_in_family(
-    choice: &FamilyChoice,
-    instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
-    line: &ProgressLine,
-) -> Result<(SearchReport, Option<String>)> {
+fn find_in_family(choice: &FamilyChoice, job: &SearchJob, line: &ProgressLine) -> Result<Found> {
     let started = Instant::now();
-    let stop = AtomicBool::new(false);
-    let deadline = options.timeout.map(|t| started + t);
+    let instance = &job.instance;
     line.update(|| format!("{instance}: {choice} search"));
-    let order_report = search_order(choice, instance.spec(), instance.order(), &stop, deadline)?;
-    let attempts = order_report.families.len() as u64;
+    let order_report = search_order(
+        choice,
+        instance.spec(),
+        instance.order(),
+        &AtomicBool::new(false),
+        job.deadline_from(started),
+    )?;
+    job.progress
+        .attempts
+        .fetch_add(order_report.families.len() as u64, Ordering::Relaxed);
     let (result, note) = match order_report.found() {
         Some(found) => (
             SearchResult::Found {
@@ -470,54 +492,47 @@ fn find_in_family(
             },
             None,
         ),
-        None if order_report.verdict() == "none" => {
+        None if order_report.verdict() == ScanVerdict::None => {
             let families: Vec<&str> = order_report
                 .families
                 .iter()
                 .map(|f| f.family.as_str())
                 .collect();
-            (
-                SearchResult::Unknown,
-                Some(format!(
-                    "no colouring of these families exists at this order: {}",
-                    families.join(", ")
-                )),
-            )
+            let note = format!(
+                "no colouring of these families exists at this order: {}",
+                families.join(", ")
+            );
+            (SearchResult::Unknown, Some(note))
         }
         None => (SearchResult::Unknown, None),
     };
-    Ok((
-        SearchReport {
-            result,
-            attempts,
-            elapsed: started.elapsed(),
-            threads: 1,
-        },
-        note,
-    ))
+    let mut report = job.report(result, started);
+    report.threads = 1;
+    Ok((report, note))
 }
 
 fn find_by_local_search(
     args: &FindArgs,
-    instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
+    job: &SearchJob,
     line: &ProgressLine,
 ) -> Result<SearchReport> {
     let local_options = LocalOptions {
-        method: if args.rule == "anneal" {
-            LocalMethod::Anneal
-        } else {
-            LocalMethod::Tabu
+        method: match args.rule {
+            Rule::Anneal => LocalMethod::Anneal,
+            Rule::Tabu => LocalMethod::Tabu,
         },
-        threads: options.threads,
-        seed: options.seed,
-        timeout: options.timeout,
+        threads: job.threads(),
+        seed: job.options.seed,
+        timeout: job.options.timeout,
         ..LocalOptions::default()
     };
-    let stop = AtomicBool::new(false);
-    let progress = LocalProgress::default();
+    let (instance, stop, progress) = (
+        &job.instance,
+        AtomicBool::new(false),
+        LocalProgress::default(),
+    );
     let report = line.run_while(
-        || local_search(instance.spec(), instance.order(), &local_options, &stop, &progress),
+        || local_search(instance, &local_options, &stop, &progress),
         |elapsed| {
             let best = progress.best_cost.load(Ordering::Relaxed);
             format!(
@@ -552,38 +567,32 @@ fn find_by_local_search(
             );
         }
     }
-    Ok(SearchReport {
-        result: match report.found {
-            Some((colouring, found_by)) => SearchResult::Found {
-                colouring,
-                found_by,
-            },
-            None => SearchResult::Unknown,
+    job.progress
+        .attempts
+        .fetch_add(report.restarts, Ordering::Relaxed);
+    let result = match report.found {
+        Some((colouring, found_by)) => SearchResult::Found {
+            colouring,
+            found_by,
         },
+        None => SearchResult::Unknown,
+    };
+    Ok(SearchReport {
+        result,
         attempts: report.restarts,
         elapsed: report.elapsed,
-        threads: options.threads,
+        threads: job.threads(),
     })
 }
 
 #[cfg(feature = "cadical")]
-fn search_with_cadical(
-    formula: &Formula,
-    instance: &ramsift_encoder::Instance,
-    options: &SearchOptions,
-) -> Result<SearchReport> {
+fn search_with_cadical(job: &SearchJob, formula: &Formula) -> Result<SearchReport> {
     Ok(ramsift_driver::search::backends::cadical::search_cadical(
-        formula,
-        instance.spec(),
-        options,
+        job, formula,
     )?)
 }
 
 #[cfg(not(feature = "cadical"))]
-fn search_with_cadical(
-    _: &Formula,
-    _: &ramsift_encoder::Instance,
-    _: &SearchOptions,
-) -> Result<SearchReport> {
+fn search_with_cadical(_: &SearchJob, _: &Formula) -> Result<SearchReport> {
     anyhow::bail!("--solver cadical: this ramsift was built without CaDiCaL; rebuild with `cargo build --release --features ramsift-driver/cadical` (needs a C++ compiler and libclang)")
 }

@@ -5,7 +5,9 @@ use clap::Args;
 
 use ramsift_driver::search::memory;
 use ramsift_encoder::clauses::DEFAULT_MAX_CLAUSES;
-use ramsift_encoder::{CliqueEncoding, EncodingLimits, Instance, RamseySpec, SymmetrySet};
+use ramsift_encoder::{
+    EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetryChoice, SymmetrySet,
+};
 
 #[derive(Args, Clone, Debug)]
 pub struct InstanceArgs {
@@ -34,20 +36,15 @@ impl InstanceArgs {
         Ok(Instance::new(spec, self.order)?)
     }
 
-    /// The encoding with the symmetry schemes named by `symmetry` (`none`, a comma
-    /// list, or `default`: every scheme that applies to the specification).
-    pub fn encoding(&self, symmetry: &str) -> Result<CliqueEncoding> {
+    /// The encoding with the symmetry schemes chosen by `symmetry` (`default`: every
+    /// scheme that applies to the specification, [`SymmetrySet::for_refutation`]).
+    pub fn encoding(&self, symmetry: &SymmetryChoice) -> Result<RamseyEncoding> {
         let instance = self.instance()?;
-        let symmetry = match symmetry {
-            "default" if instance.spec().is_cliques() => "colour-swap,lex-leader,degree-bounds",
-            "default" => "colour-swap,lex-leader",
-            other => other,
-        };
-        let symmetry: SymmetrySet = symmetry.parse().context("--symmetry")?;
+        let symmetry = symmetry.resolve(|| SymmetrySet::for_refutation(instance.spec()));
         let limits = EncodingLimits {
             max_clauses: self.max_clauses,
         };
-        Ok(CliqueEncoding::with_symmetry(
+        Ok(RamseyEncoding::with_symmetry(
             &instance, &symmetry, &limits,
         )?)
     }
@@ -62,7 +59,7 @@ impl InstanceArgs {
     /// Whether `solvers` solvers can hold the encoding's formula within the limit.
     pub fn fits(
         &self,
-        encoding: &CliqueEncoding,
+        encoding: &RamseyEncoding,
         what: &str,
         solvers: usize,
     ) -> Result<(), memory::OverMemory> {

@@ -5,21 +5,19 @@ use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 
 use anyhow::{Context, Result};
 use clap::Args;
-use serde_json::json;
+use ramsift_encoder::{Colouring, Instance, SymmetryChoice};
 
+use ramsift_driver::certify::bundle::Manifest;
 use ramsift_driver::certify::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::records::{
+    colouring_rows, RefuteFoundRecord, RefutedRecord, UnknownRecord,
+};
 use ramsift_driver::output::witness::{colouring_text, write_witness_files};
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
 use super::record::print_record;
-
-/// The default symmetry breaking of `refute` (see BENCHMARKS.md for the measurements):
-/// `default` means colour-swap, lex-leader and degree-bounds when every colour forbids
-/// a clique, and colour-swap and lex-leader otherwise (degree bounds rest on clique
-/// Ramsey numbers).
-pub const DEFAULT_REFUTE_SYMMETRY: &str = "default";
 
 #[derive(Args, Debug)]
 pub struct RefuteArgs {
@@ -32,10 +30,11 @@ pub struct RefuteArgs {
     #[arg(long)]
     pub force: bool,
     /// Symmetry breaking: default (all three for cliques; colour-swap and lex-leader
-    /// for other graphs), none, or a comma list of colour-swap, lex-leader,
-    /// degree-bounds.
-    #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
-    pub symmetry: String,
+    /// for other graphs, as degree bounds rest on clique Ramsey numbers; see
+    /// BENCHMARKS.md for the measurements), none, or a comma list of colour-swap,
+    /// lex-leader, degree-bounds.
+    #[arg(long, default_value = "default", value_name = "SCHEMES")]
+    pub symmetry: SymmetryChoice,
     /// Write the DRAT trace as text instead of binary.
     #[arg(long)]
     pub text: bool,
@@ -85,8 +84,6 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
         },
     )?;
 
-    let spec = instance.spec();
-    let n = instance.order();
     match &report.result {
         RefuteResult::Refuted {
             files,
@@ -102,61 +99,28 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                     &options,
                     &stop,
                 )?);
-                ramsift_driver::certify::bundle::write_guide(&args.out, manifest)?;
+                ramsift_driver::certify::referee_guide::write_guide(&args.out, manifest)?;
             }
-            if args.json {
-                let record = json!({
-                    "instance": instance.to_string(),
-                    "proves": manifest.claim.statement,
-                    "bundle": args.out,
-                    "symmetry": manifest.encoding.symmetry,
-                    "premises": manifest.premises.iter().map(|p| &p.statement).collect::<Vec<_>>(),
-                    "seconds": report.solve_seconds,
-                    "proof_bytes": proof_bytes,
-                    "files": files,
-                });
-                print_record(record, "refuted", exit_codes::NONE_EXISTS)?;
-            } else {
-                println!(
-                    "REFUTED {instance}: no colouring exists, so R({spec}) <= {n}; DRAT trace of {proof_bytes} bytes in {:.2}s",
-                    report.solve_seconds
-                );
-                for p in &manifest.premises {
-                    println!("premise: {} ({})", p.statement, p.source);
-                }
-                for f in files {
-                    println!("wrote {}", f.display());
-                }
-                println!("check with: ramsift-check bundle {}", args.out.display());
-            }
+            print_refuted(
+                args,
+                &instance,
+                manifest,
+                *proof_bytes,
+                report.solve_seconds,
+                files,
+            )?;
             Ok(exit_codes::NONE_EXISTS)
         }
         RefuteResult::Found(colouring) => {
-            let comments = vec![format!("ramsift refute found a colouring: R({spec}) > {n}")];
-            let files = write_witness_files(&args.out, &instance, colouring, &comments)
-                .with_context(|| format!("writing the witness into {}", args.out.display()))?;
-            if args.json {
-                let record = json!({
-                    "instance": instance.to_string(), "proves": format!("R({spec}) > {n}"),
-                    "colouring": ramsift_driver::output::witness::colouring_rows(colouring),
-                    "files": files, "seconds": report.solve_seconds,
-                });
-                print_record(record, "found", exit_codes::FOUND)?;
-            } else {
-                println!(
-                    "FOUND {instance}: a colouring exists, so R({spec}) > {n}; nothing to refute"
-                );
-                print!("{}", colouring_text(&instance, colouring, &[]));
-                for f in files {
-                    println!("wrote {}", f.display());
-                }
-            }
+            print_found(args, &instance, colouring, report.solve_seconds)?;
             Ok(exit_codes::FOUND)
         }
         RefuteResult::Unknown => {
             if args.json {
-                let record =
-                    json!({"instance": instance.to_string(), "seconds": report.solve_seconds});
+                let record = UnknownRecord {
+                    instance: instance.to_string(),
+                    seconds: report.solve_seconds,
+                };
                 print_record(record, "unknown", exit_codes::UNKNOWN)?;
             } else {
                 println!(
@@ -168,4 +132,73 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
             Ok(exit_codes::UNKNOWN)
         }
     }
+}
+
+/// The account of a refutation.
+fn print_refuted(
+    args: &RefuteArgs,
+    instance: &Instance,
+    manifest: &Manifest,
+    proof_bytes: u64,
+    seconds: f64,
+    files: Vec<PathBuf>,
+) -> Result<()> {
+    if args.json {
+        let record = RefutedRecord {
+            instance: instance.to_string(),
+            proves: manifest.claim.statement.clone(),
+            bundle: args.out.clone(),
+            symmetry: manifest.encoding.symmetry.clone(),
+            premises: manifest
+                .premises
+                .iter()
+                .map(|p| p.statement.clone())
+                .collect(),
+            seconds,
+            proof_bytes,
+            files,
+        };
+        return print_record(record, "refuted", exit_codes::NONE_EXISTS);
+    }
+    let (spec, n) = (instance.spec(), instance.order());
+    println!(
+        "REFUTED {instance}: no colouring exists, so R({spec}) <= {n}; DRAT trace of {proof_bytes} bytes in {seconds:.2}s"
+    );
+    for p in &manifest.premises {
+        println!("premise: {} ({})", p.statement, p.source);
+    }
+    for f in files {
+        println!("wrote {}", f.display());
+    }
+    Ok(())
+}
+
+/// The account of a colouring found instead of a refutation (written into the
+/// output directory).
+fn print_found(
+    args: &RefuteArgs,
+    instance: &Instance,
+    colouring: &Colouring,
+    seconds: f64,
+) -> Result<()> {
+    let (spec, n) = (instance.spec(), instance.order());
+    let comments = vec![format!("ramsift refute found a colouring: R({spec}) > {n}")];
+    let files = write_witness_files(&args.out, instance, colouring, &comments)
+        .with_context(|| format!("writing the witness into {}", args.out.display()))?;
+    if args.json {
+        let record = RefuteFoundRecord {
+            instance: instance.to_string(),
+            proves: format!("R({spec}) > {n}"),
+            colouring: colouring_rows(colouring),
+            files,
+            seconds,
+        };
+        return print_record(record, "found", exit_codes::FOUND);
+    }
+    println!("FOUND {instance}: a colouring exists, so R({spec}) > {n}; nothing to refute");
+    print!("{}", colouring_text(instance, colouring, &[]));
+    for f in files {
+        println!("wrote {}", f.display());
+    }
+    Ok(())
 }

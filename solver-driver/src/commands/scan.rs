@@ -1,22 +1,27 @@
 //! `ramsift scan SPEC --from A --to B`: a structured family at every order of a
 //! range, each found / none / unknown, and the largest order found.
 
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 use std::time::Duration;
 
 use anyhow::{Context, Result};
 use clap::Args;
-use serde::Serialize;
 
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::records::{colouring_rows, ScanFamilyRow, ScanOrderRow, ScanSummary};
 use ramsift_driver::output::witness::write_witness_files;
-use ramsift_driver::structured::scan::scan;
-use ramsift_driver::structured::{FamilyChoice, FamilyOutcome, OrderReport};
+use ramsift_driver::structured::scan::{scan, ScanReport};
+use ramsift_driver::structured::{FamilyChoice, FamilyOutcome, OrderReport, ScanVerdict};
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::{Instance, RamseySpec};
 
 use super::progress::ProgressLine;
 use super::record::print_record;
+
+/// `--family`: a family name (see `FamilyChoice`).
+fn parse_family(text: &str) -> Result<FamilyChoice, String> {
+    text.parse()
+}
 
 #[derive(Args, Debug)]
 pub struct ScanArgs {
@@ -30,8 +35,8 @@ pub struct ScanArgs {
     #[arg(long, value_name = "N")]
     pub to: usize,
     /// Family: circulant (default), cayley, block-circulant or structured (all three).
-    #[arg(long, default_value = "circulant")]
-    pub family: String,
+    #[arg(long, default_value = "circulant", value_parser = parse_family)]
+    pub family: FamilyChoice,
     /// Shorthand for --family circulant.
     #[arg(long, conflicts_with = "family")]
     pub circulant: bool,
@@ -55,42 +60,9 @@ pub struct ScanArgs {
     pub quiet: bool,
 }
 
-#[derive(Serialize)]
-struct FamilyRow {
-    family: String,
-    result: &'static str,
-    orbits: usize,
-    clauses: usize,
-    seconds: f64,
-    /// How the family describes its colouring (distances, differences).
-    description: Option<String>,
-    /// The colouring found, as matrix rows (0 on the diagonal).
-    colouring: Option<Vec<Vec<u8>>>,
-}
-
-#[derive(Serialize)]
-struct OrderRow {
-    order: usize,
-    result: &'static str,
-    seconds: f64,
-    families: Vec<FamilyRow>,
-}
-
-#[derive(Serialize)]
-struct ScanSummary {
-    spec: String,
-    family: String,
-    from: usize,
-    to: usize,
-    orders: Vec<OrderRow>,
-    largest_found: Option<usize>,
-    proves: Option<String>,
-    seconds: f64,
-    files: Vec<PathBuf>,
-}
-
-fn row(report: &OrderReport) -> OrderRow {
-    OrderRow {
+/// The report's row for one order.
+fn row(report: &OrderReport) -> ScanOrderRow {
+    ScanOrderRow {
         order: report.order,
         result: report.verdict(),
         seconds: report
@@ -108,14 +80,14 @@ fn row(report: &OrderReport) -> OrderRow {
                         colouring,
                         ..
                     } => (
-                        "found",
+                        ScanVerdict::Found,
                         Some(description.clone()),
-                        Some(ramsift_driver::output::witness::colouring_rows(colouring)),
+                        Some(colouring_rows(colouring)),
                     ),
-                    FamilyOutcome::NoneInFamily => ("none", None, None),
-                    FamilyOutcome::Unknown => ("unknown", None, None),
+                    FamilyOutcome::NoneInFamily => (ScanVerdict::None, None, None),
+                    FamilyOutcome::Unknown => (ScanVerdict::Unknown, None, None),
                 };
-                FamilyRow {
+                ScanFamilyRow {
                     family: f.family.clone(),
                     result,
                     orbits: f.orbits,
@@ -129,14 +101,8 @@ fn row(report: &OrderReport) -> OrderRow {
     }
 }
 
-pub fn run(args: &ScanArgs) -> Result<u8> {
-    let spec: RamseySpec = args
-        .spec
-        .parse()
-        .with_context(|| format!("specification {:?}", args.spec))?;
-    if let Some(dir) = &args.out {
-        ramsift_driver::output::dir::prepare(dir, args.force)?;
-    }
+/// The family, the time per order and the thread count, checked.
+fn settings(args: &ScanArgs) -> Result<(FamilyChoice, Option<Duration>, usize)> {
     anyhow::ensure!(
         args.from >= 2 && args.from <= args.to,
         "--from {} --to {}: expected 2 <= FROM <= TO",
@@ -149,12 +115,10 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         args.from,
         args.to
     );
-    let choice: FamilyChoice = if args.circulant {
+    let choice = if args.circulant {
         FamilyChoice::Circulant
     } else {
-        args.family
-            .parse()
-            .map_err(|e: String| anyhow::anyhow!("--family: {e}"))?
+        args.family.clone()
     };
     let per_order = match args.per_order {
         Some(t) if !(t.is_finite() && t > 0.0) => {
@@ -167,7 +131,18 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         Some(t) => t,
         None => std::thread::available_parallelism().map_or(1, |n| n.get()),
     };
+    Ok((choice, per_order, threads))
+}
 
+pub fn run(args: &ScanArgs) -> Result<u8> {
+    let spec: RamseySpec = args
+        .spec
+        .parse()
+        .with_context(|| format!("specification {:?}", args.spec))?;
+    if let Some(dir) = &args.out {
+        ramsift_driver::output::dir::prepare(dir, args.force)?;
+    }
+    let (choice, per_order, threads) = settings(args)?;
     let line = ProgressLine::new(args.quiet);
     let mut done = 0usize;
     let total = args.to - args.from + 1;
@@ -203,79 +178,96 @@ pub fn run(args: &ScanArgs) -> Result<u8> {
         seconds: report.elapsed.as_secs_f64(),
         files: Vec::new(),
     };
-
     if let Some(dir) = &args.out {
-        ensure_dir(dir).with_context(|| format!("creating {}", dir.display()))?;
-        for order in &report.orders {
-            let Some(found) = order.found() else { continue };
-            let instance = Instance::new(spec.clone(), order.order)?;
-            let comments = vec![
-                format!(
-                    "ramsift {} witness for {instance}: proves R({spec}) > {}",
-                    env!("CARGO_PKG_VERSION"),
-                    order.order
-                ),
-                format!(
-                    "{} ({}); checked by ramsift-checker before writing",
-                    found.family, found.description
-                ),
-            ];
-            let sub = dir.join(format!("order-{}", order.order));
-            summary.files.extend(
-                write_witness_files(&sub, &instance, found.colouring, &comments)
-                    .with_context(|| format!("writing the witness into {}", sub.display()))?,
-            );
-        }
-        let path = dir.join("scan.json");
-        summary.files.push(path.clone());
-        let json = serde_json::to_string_pretty(&summary)?;
-        write_atomically(&path, |w| {
-            w.write_all(json.as_bytes())
-                .and_then(|_| w.write_all(b"\n"))
-        })
-        .with_context(|| format!("writing {}", path.display()))?;
+        write_scan_outputs(dir, &spec, &report, &mut summary)?;
     }
-
     if args.json {
         print_record(&summary, "done", exit_codes::SUCCESS)?;
     } else {
-        println!(
-            "{choice} colourings for R({spec}), orders {} to {}:",
-            args.from, args.to
-        );
-        println!(
-            "{:>6}  {:<8}  {:>8}  family and colouring",
-            "order", "result", "seconds"
-        );
-        for order in &summary.orders {
-            let detail = order
-                .families
-                .iter()
-                .find(|f| f.result == "found")
-                .map(|f| format!("{}: {}", f.family, f.description.as_deref().unwrap_or("")))
-                .unwrap_or_else(|| {
-                    order
-                        .families
-                        .iter()
-                        .map(|f| format!("{} {}", f.family, f.result))
-                        .collect::<Vec<_>>()
-                        .join(", ")
-                });
-            println!(
-                "{:>6}  {:<8}  {:>8.2}  {detail}",
-                order.order, order.result, order.seconds
-            );
-        }
-        match largest {
-            Some(n) => println!("largest order with a {choice} colouring: {n}, so R({spec}) > {n}"),
-            None => println!(
-                "no {choice} colouring at any order from {} to {}",
-                args.from, args.to
-            ),
-        }
-        for file in &summary.files {
-            println!("wrote {}", file.display());
-        }
+        print_scan_text(&summary, &choice);
     }
     Ok(exit_codes::SUCCESS)
+}
+
+/// Every colouring found into DIR/order-N/, and the report into DIR/scan.json.
+fn write_scan_outputs(
+    dir: &Path,
+    spec: &RamseySpec,
+    report: &ScanReport,
+    summary: &mut ScanSummary,
+) -> Result<()> {
+    ensure_dir(dir).with_context(|| format!("creating {}", dir.display()))?;
+    for order in &report.orders {
+        let Some(found) = order.found() else { continue };
+        let instance = Instance::new(spec.clone(), order.order)?;
+        let comments = vec![
+            format!(
+                "ramsift {} witness for {instance}: proves R({spec}) > {}",
+                env!("CARGO_PKG_VERSION"),
+                order.order
+            ),
+            format!(
+                "{} ({}); checked by ramsift-checker before writing",
+                found.family, found.description
+            ),
+        ];
+        let sub = dir.join(format!("order-{}", order.order));
+        summary.files.extend(
+            write_witness_files(&sub, &instance, found.colouring, &comments)
+                .with_context(|| format!("writing the witness into {}", sub.display()))?,
+        );
+    }
+    let path = dir.join("scan.json");
+    summary.files.push(path.clone());
+    let json = serde_json::to_string_pretty(&summary)?;
+    write_atomically(&path, |w| {
+        w.write_all(json.as_bytes())
+            .and_then(|_| w.write_all(b"\n"))
+    })
+    .with_context(|| format!("writing {}", path.display()))?;
+    Ok(())
+}
+
+/// The report as a table on stdout.
+fn print_scan_text(summary: &ScanSummary, choice: &FamilyChoice) {
+    let spec = &summary.spec;
+    println!(
+        "{choice} colourings for R({spec}), orders {} to {}:",
+        summary.from, summary.to
+    );
+    println!(
+        "{:>6}  {:<8}  {:>8}  family and colouring",
+        "order", "result", "seconds"
+    );
+    for order in &summary.orders {
+        let detail = order
+            .families
+            .iter()
+            .find(|f| f.result == ScanVerdict::Found)
+            .map(|f| format!("{}: {}", f.family, f.description.as_deref().unwrap_or("")))
+            .unwrap_or_else(|| {
+                let each: Vec<String> = order
+                    .families
+                    .iter()
+                    .map(|f| format!("{} {}", f.family, f.result))
+                    .collect();
+                each.join(", ")
+            });
+        println!(
+            "{:>6}  {:<8}  {:>8.2}  {detail}",
+            order.order,
+            order.result.word(),
+            order.seconds
+        );
+    }
+    match summary.largest_found {
+        Some(n) => println!("largest order with a {choice} colouring: {n}, so R({spec}) > {n}"),
+        None => println!(
+            "no {choice} colouring at any order from {} to {}",
+            summary.from, summary.to
+        ),
+    }
+    for file in &summary.files {
+        println!("wrote {}", file.display());
+    }
 }

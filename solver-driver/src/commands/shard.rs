@@ -6,22 +6,26 @@ use std::sync::atomic::{AtomicBool, Ordering};
 
 use anyhow::{bail, Context, Result};
 use clap::{Args, Subcommand};
+use ramsift_encoder::SymmetryChoice;
 use rayon::prelude::*;
 
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::records::{
+    ShardLocalRecord, ShardMergeRecord, ShardPlanRecord, ShardRunRecord, ShardStatusRecord,
+};
 use ramsift_driver::shard::merge::merge_counted;
 use ramsift_driver::shard::plan::plan_cubes_counted;
-use ramsift_driver::shard::run::{read_plan, run_shard, ShardOutcome};
+use ramsift_driver::shard::result::witness_path;
+use ramsift_driver::shard::run::{run_shard, ShardOutcome};
 use ramsift_driver::shard::slurm::{batch_scripts, SlurmOptions};
 use ramsift_driver::shard::status::{array_list, plan_status};
-use ramsift_driver::shard::PLAN_FILE;
+use ramsift_driver::shard::{Plan, ShardError};
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::instance_args::{timeout_of, InstanceArgs};
 use super::progress::{seconds, ProgressLine};
 use super::record::print_record;
-use super::refute::DEFAULT_REFUTE_SYMMETRY;
 
 #[derive(Subcommand, Debug)]
 pub enum ShardCommand {
@@ -53,8 +57,8 @@ pub struct PlanArgs {
     #[arg(long)]
     pub force: bool,
     /// Symmetry breaking (as for refute).
-    #[arg(long, default_value = DEFAULT_REFUTE_SYMMETRY, value_name = "SCHEMES")]
-    pub symmetry: String,
+    #[arg(long, default_value = "default", value_name = "SCHEMES")]
+    pub symmetry: SymmetryChoice,
     /// Print the result as one JSON record on stdout.
     #[arg(long)]
     pub json: bool,
@@ -151,7 +155,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
             ramsift_driver::output::dir::prepare(&args.out, args.force)?;
             let copied = std::sync::atomic::AtomicUsize::new(0);
             let line = ProgressLine::new(args.json);
-            let shards = read_plan(&args.plan)?.cubes.len();
+            let shards = Plan::read(&args.plan)?.cubes.len();
             let report = line.run_while(
                 || {
                     merge_counted(
@@ -171,12 +175,15 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                 },
             )?;
             if args.json {
-                let plan = read_plan(&args.plan)?;
-                let record = serde_json::json!({
-                    "proves": format!("R({}) <= {}", plan.spec, plan.order), "bundle": args.out,
-                    "seconds": report.shard_seconds, "trace_bytes": report.trace_bytes,
-                    "composed_trace": report.composed_trace, "files": report.files,
-                });
+                let plan = Plan::read(&args.plan)?;
+                let record = ShardMergeRecord {
+                    proves: format!("R({}) <= {}", plan.spec, plan.order),
+                    bundle: args.out.clone(),
+                    seconds: report.shard_seconds,
+                    trace_bytes: report.trace_bytes,
+                    composed_trace: report.composed_trace,
+                    files: report.files,
+                };
                 print_record(record, "refuted", exit_codes::NONE_EXISTS)?;
                 return Ok(exit_codes::NONE_EXISTS);
             }
@@ -219,13 +226,15 @@ fn plan(args: &PlanArgs) -> Result<u8> {
             )
         },
     );
-    let json = serde_json::to_string_pretty(&plan)?;
-    write_atomically(&args.out.join(PLAN_FILE), |w| w.write_all(json.as_bytes()))?;
+    plan.write(&args.out)?;
     if args.json {
-        let record = serde_json::json!({
-            "instance": encoding.instance().to_string(), "plan": args.out, "shards": plan.cubes.len(),
-            "symmetry": encoding.symmetry().to_string(), "cubes": plan.cubes,
-        });
+        let record = ShardPlanRecord {
+            instance: encoding.instance().to_string(),
+            plan: args.out.clone(),
+            shards: plan.cubes.len(),
+            symmetry: encoding.symmetry().to_string(),
+            cubes: plan.cubes,
+        };
         print_record(record, "planned", exit_codes::SUCCESS)?;
         return Ok(exit_codes::SUCCESS);
     }
@@ -272,7 +281,7 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         timeout_of(args.timeout)?,
         &AtomicBool::new(false),
     )?;
-    let plan = read_plan(&args.plan)?;
+    let plan = Plan::read(&args.plan)?;
     let code = match outcome {
         // 0, not 20: a Slurm array task that exits non-zero counts as failed.
         ShardOutcome::AlreadyDone | ShardOutcome::Refuted => exit_codes::SUCCESS,
@@ -283,18 +292,17 @@ fn run_one(args: &RunArgs) -> Result<u8> {
         let (word, witness) = match outcome {
             ShardOutcome::AlreadyDone => ("already-done", None),
             ShardOutcome::Refuted => ("refuted", None),
-            ShardOutcome::Found => (
-                "found",
-                Some(ramsift_driver::shard::run::witness_path(&args.plan, index)),
-            ),
+            ShardOutcome::Found => ("found", Some(witness_path(&args.plan, index))),
             ShardOutcome::Unknown => ("unknown", None),
         };
-        print_record(
-            serde_json::json!({"shard": index, "witness": witness,
-                "colouring": witness.as_ref().and_then(|_| witness_rows(&args.plan, index))}),
-            word,
-            code,
-        )?;
+        let record = ShardRunRecord {
+            shard: index,
+            colouring: witness
+                .as_ref()
+                .and_then(|_| witness_rows(&args.plan, index)),
+            witness,
+        };
+        print_record(record, word, code)?;
         return Ok(code);
     }
     match outcome {
@@ -311,7 +319,7 @@ fn run_one(args: &RunArgs) -> Result<u8> {
 /// A shard's witness as matrix rows (0 on the diagonal), read back with the
 /// checker's own parser.
 fn witness_rows(plan_dir: &std::path::Path, index: usize) -> Option<Vec<Vec<u8>>> {
-    let path = ramsift_driver::shard::run::witness_path(plan_dir, index);
+    let path = witness_path(plan_dir, index);
     let text = std::fs::read_to_string(&path).ok()?;
     let file =
         ramsift_checker::colouring_file::parse_colouring_file(&path.display().to_string(), &text)
@@ -336,12 +344,12 @@ fn claim_false(
         plan.order,
         plan.spec,
         plan.order,
-        ramsift_driver::shard::run::witness_path(plan_dir, index).display()
+        witness_path(plan_dir, index).display()
     )
 }
 
 fn local(args: &LocalArgs) -> Result<u8> {
-    let plan = read_plan(&args.plan)?;
+    let plan = Plan::read(&args.plan)?;
     let pending = plan_status(&args.plan, plan.cubes.len()).to_resubmit();
     let threads = args
         .threads
@@ -362,7 +370,7 @@ fn local(args: &LocalArgs) -> Result<u8> {
             pending
                 .par_iter()
                 .map(run)
-                .collect::<Vec<Result<ShardOutcome>>>()
+                .collect::<Vec<Result<ShardOutcome, ShardError>>>()
         })
     };
     let outcomes = line.run_while(run_all, |elapsed| {
@@ -392,15 +400,18 @@ fn local(args: &LocalArgs) -> Result<u8> {
         exit_codes::FOUND
     };
     if args.json {
-        let witnesses: Vec<_> = found
-            .iter()
-            .map(|&i| ramsift_driver::shard::run::witness_path(&args.plan, i))
-            .collect();
-        let record = serde_json::json!({
-            "ran": pending.len(), "already_done": plan.cubes.len() - pending.len(), "threads": threads,
-            "found": found, "witnesses": witnesses,
-            "colourings": found.iter().filter_map(|&i| witness_rows(&args.plan, i)).collect::<Vec<_>>(),
-        });
+        let witnesses: Vec<_> = found.iter().map(|&i| witness_path(&args.plan, i)).collect();
+        let record = ShardLocalRecord {
+            ran: pending.len(),
+            already_done: plan.cubes.len() - pending.len(),
+            threads,
+            colourings: found
+                .iter()
+                .filter_map(|&i| witness_rows(&args.plan, i))
+                .collect(),
+            found: found.clone(),
+            witnesses,
+        };
         print_record(
             record,
             if found.is_empty() { "refuted" } else { "found" },
@@ -417,7 +428,7 @@ fn local(args: &LocalArgs) -> Result<u8> {
 }
 
 fn slurm(args: &SlurmArgs) -> Result<u8> {
-    let plan = read_plan(&args.plan)?;
+    let plan = Plan::read(&args.plan)?;
     let plan_dir = std::fs::canonicalize(&args.plan)?;
     let ramsift = std::env::current_exe().context("locating the ramsift binary")?;
     let options = SlurmOptions {
@@ -443,7 +454,7 @@ fn slurm(args: &SlurmArgs) -> Result<u8> {
 }
 
 fn status(args: &StatusArgs) -> Result<u8> {
-    let plan = read_plan(&args.plan)?;
+    let plan = Plan::read(&args.plan)?;
     let s = plan_status(&args.plan, plan.cubes.len());
     let resubmit = s.to_resubmit();
     let code = if resubmit.is_empty() && s.found.is_empty() {
@@ -452,10 +463,15 @@ fn status(args: &StatusArgs) -> Result<u8> {
         exit_codes::UNKNOWN
     };
     if args.json {
-        let record = serde_json::json!({
-            "shards": plan.cubes.len(), "done": s.done.len(), "found": s.found,
-            "damaged": s.damaged, "missing": s.missing, "partial": s.partial, "resubmit_array": array_list(&resubmit),
-        });
+        let record = ShardStatusRecord {
+            shards: plan.cubes.len(),
+            done: s.done.len(),
+            found: s.found.clone(),
+            damaged: s.damaged.clone(),
+            missing: s.missing.clone(),
+            partial: s.partial.clone(),
+            resubmit_array: array_list(&resubmit),
+        };
         let word = if !s.found.is_empty() {
             "found"
         } else if resubmit.is_empty() {

@@ -1,6 +1,8 @@
 //! graph6 output (B. D. McKay's published format): N(n), then the upper triangle
 //! column by column, six bits to a byte, each byte 63 plus its bits. The checker
-//! has its own reader; this writer is the driver's.
+//! has its own reader; this is the driver's one writer.
+
+use ramsift_encoder::Colouring;
 
 /// Encodes the graph on `order` vertices whose edges are those with `is_edge(i, j)` (i < j).
 pub fn encode_graph6(order: usize, mut is_edge: impl FnMut(usize, usize) -> bool) -> String {
@@ -32,6 +34,11 @@ pub fn encode_graph6(order: usize, mut is_edge: impl FnMut(usize, usize) -> bool
         out.push(63 + (current << (6 - filled)));
     }
     String::from_utf8(out).expect("graph6 bytes are ASCII")
+}
+
+/// The graph of colour-1 edges in graph6.
+pub fn colour_one_graph6(colouring: &Colouring) -> String {
+    encode_graph6(colouring.order(), |i, j| colouring.colour(i, j) == 1)
 }
 
 #[cfg(test)]

@@ -9,24 +9,24 @@
 //! children's clauses ¬(P ∧ v) and ¬(P ∧ ¬v); the root's is the empty clause.
 //! Deletions of the shard traces are left out (keeping clauses is always sound).
 
-use std::io::{self, Write};
+use std::io::{BufWriter, Write};
 use std::path::{Path, PathBuf};
-use std::sync::atomic::{AtomicUsize, Ordering};
-
-use anyhow::{bail, Context, Result};
+use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 use ramsift_checker::drat_parse::{parse_drat, StepKind};
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
-use super::plan::{Plan, PlanTree};
-use super::run::{complete_result, plan_encoding, plan_sha256, read_plan};
-use super::status::{array_list, plan_status};
-use super::{shard_dir, PLAN_FILE};
+use super::error::ShardError;
+use super::plan::{plan_sha256, Cube, Plan, PlanTree};
+use super::result::{recorded_result, witness_path, ShardResult, ShardStatus};
+use super::status::array_list;
+use super::{shard_dir, PLAN_FILE, RESULT_FILE, SHARD_PROOF_FILE};
 use crate::certify::bundle::{
-    claim_of, encoding_record, premise_records, write_guide, write_manifest_and_guide, FileRecord,
-    Manifest, ShardingRecord, BUNDLE_FORMAT, FORMULA_FILE,
+    sha256_hex, write_manifest_and_guide, FileRecord, Manifest, ShardingRecord, FORMULA_FILE,
 };
+use crate::certify::drat_write::write_addition;
+use crate::certify::referee_guide::write_guide;
 use crate::certify::refute::{certify_premises, RefuteOptions};
 
 /// What the merge wrote.
@@ -38,28 +38,8 @@ pub struct MergeReport {
     pub composed_trace: Option<PathBuf>,
 }
 
-/// Binary DRAT encoding of one addition.
-fn write_binary_lemma(out: &mut dyn Write, literals: &[i32]) -> io::Result<()> {
-    let mut bytes = vec![b'a'];
-    for &l in literals {
-        let mut u = if l > 0 {
-            2 * l as u64
-        } else {
-            2 * (-(l as i64)) as u64 + 1
-        };
-        loop {
-            let low = (u & 0x7f) as u8;
-            u >>= 7;
-            if u == 0 {
-                bytes.push(low);
-                break;
-            }
-            bytes.push(low | 0x80);
-        }
-    }
-    bytes.push(0);
-    out.write_all(&bytes)
-}
+/// The name of the composed trace in a sharded bundle.
+const COMPOSED_FILE: &str = "proof.drat";
 
 fn with_negated_cube(lemma: &[i32], cube: &[i32]) -> Vec<i32> {
     let mut clause = lemma.to_vec();
@@ -71,34 +51,38 @@ fn with_negated_cube(lemma: &[i32], cube: &[i32]) -> Vec<i32> {
     clause
 }
 
-fn compose(plan: &Plan, plan_dir: &Path, out: &mut dyn Write) -> Result<()> {
-    for cube in &plan.cubes {
-        let path = shard_dir(plan_dir, cube.index).join(super::SHARD_PROOF_FILE);
-        let bytes = std::fs::read(&path).with_context(|| format!("reading {}", path.display()))?;
-        let steps = parse_drat(&path.display().to_string(), &bytes)?;
-        for step in steps.iter().filter(|s| s.kind == StepKind::Add) {
-            write_binary_lemma(out, &with_negated_cube(&step.literals, &cube.literals))?;
+/// Appends shard `cube`'s part of the composed trace: each added lemma with the
+/// cube negated, then the negated cube itself.
+fn compose_shard(cube: &Cube, trace: &[u8], out: &mut dyn Write) -> Result<(), ShardError> {
+    let steps = parse_drat(&format!("shard {}", cube.index), trace).map_err(|e| {
+        ShardError::TraceUnreadable {
+            index: cube.index,
+            message: e.to_string(),
         }
-        write_binary_lemma(out, &with_negated_cube(&[], &cube.literals))?;
+    })?;
+    let io = |e| ShardError::io(COMPOSED_FILE)(e);
+    for step in steps.iter().filter(|s| s.kind == StepKind::Add) {
+        write_addition(out, &with_negated_cube(&step.literals, &cube.literals)).map_err(io)?;
     }
-    fn internal(tree: &PlanTree, path: &mut Vec<i32>, out: &mut dyn Write) -> io::Result<()> {
-        if let PlanTree::Split {
-            split,
-            positive,
-            negative,
-        } = tree
-        {
-            path.push(*split);
-            internal(positive, path, out)?;
-            path.pop();
-            path.push(-split);
-            internal(negative, path, out)?;
-            path.pop();
-            write_binary_lemma(out, &with_negated_cube(&[], path))?;
-        }
-        Ok(())
+    write_addition(out, &with_negated_cube(&[], &cube.literals)).map_err(io)
+}
+
+/// Appends the coverage tree's lemmas, leaves up: ¬P for each split node with path P.
+fn compose_tree(tree: &PlanTree, path: &mut Vec<i32>, out: &mut dyn Write) -> std::io::Result<()> {
+    if let PlanTree::Split {
+        split,
+        positive,
+        negative,
+    } = tree
+    {
+        path.push(*split);
+        compose_tree(positive, path, out)?;
+        path.pop();
+        path.push(-split);
+        compose_tree(negative, path, out)?;
+        path.pop();
+        write_addition(out, &with_negated_cube(&[], path))?;
     }
-    internal(&plan.tree, &mut Vec::new(), out)?;
     Ok(())
 }
 
@@ -108,7 +92,7 @@ pub fn merge(
     out_dir: &Path,
     single_trace: bool,
     certify: bool,
-) -> Result<MergeReport> {
+) -> Result<MergeReport, ShardError> {
     merge_counted(
         plan_dir,
         out_dir,
@@ -118,126 +102,154 @@ pub fn merge(
     )
 }
 
+/// Every shard's result record, once all are there and refuted: a shard that
+/// found a colouring makes the claim false, and missing or damaged records are
+/// listed for resubmission.
+fn finished_results(
+    plan_dir: &Path,
+    plan: &Plan,
+    plan_sha256: &str,
+) -> Result<Vec<ShardResult>, ShardError> {
+    let (mut results, mut damaged, mut missing) = (Vec::new(), Vec::new(), Vec::new());
+    for cube in &plan.cubes {
+        match recorded_result(plan_dir, cube.index, plan_sha256) {
+            Some(r) if r.status == ShardStatus::Found => {
+                return Err(ShardError::ClaimFalse {
+                    index: cube.index,
+                    order: plan.order,
+                    spec: plan.spec.clone(),
+                    witness: witness_path(plan_dir, cube.index),
+                })
+            }
+            Some(r) => results.push(r),
+            None if shard_dir(plan_dir, cube.index).join(RESULT_FILE).exists() => {
+                damaged.push(cube.index)
+            }
+            None => missing.push(cube.index),
+        }
+    }
+    if damaged.is_empty() && missing.is_empty() {
+        return Ok(results);
+    }
+    let mut pending: Vec<usize> = damaged.iter().chain(&missing).copied().collect();
+    pending.sort_unstable();
+    Err(ShardError::NotDone {
+        pending: pending.len(),
+        shards: plan.cubes.len(),
+        damaged: damaged.len(),
+        missing: missing.len(),
+        array: array_list(&pending),
+        plan_dir: plan_dir.to_path_buf(),
+    })
+}
+
 /// [`merge`], counting in `shards_copied` the shard traces taken in (for progress).
+/// Each trace is read once: hashed against its result record, copied into the
+/// bundle, and (with `single_trace`) composed.
 pub fn merge_counted(
     plan_dir: &Path,
     out_dir: &Path,
     single_trace: bool,
     certify: bool,
     shards_copied: &AtomicUsize,
-) -> Result<MergeReport> {
-    let plan = read_plan(plan_dir)?;
-    let status = plan_status(plan_dir, plan.cubes.len());
-    if let Some(&i) = status.found.first() {
-        bail!(
-            "shard {i} found a colouring of K_{} with no monochromatic forbidden graph, so the claim R({}) <= {} is FALSE; witness: {}",
-            plan.order,
-            plan.spec,
-            plan.order,
-            super::run::witness_path(plan_dir, i).display()
-        );
-    }
-    let pending = status.to_resubmit();
-    if !pending.is_empty() {
-        bail!(
-            "{} of {} shards are not done ({} damaged, {} missing); run them first, e.g. sbatch --array={} {}/submit.sbatch",
-            pending.len(),
-            plan.cubes.len(),
-            status.damaged.len(),
-            status.missing.len(),
-            array_list(&pending),
-            plan_dir.display()
-        );
-    }
-    let encoding = plan_encoding(&plan)?;
-    let plan_sha256 = plan_sha256(plan_dir).context("hashing the plan")?;
-    ensure_dir(out_dir)?;
-    let shards_out = out_dir.join("shards");
-    ensure_dir(&shards_out)?;
+) -> Result<MergeReport, ShardError> {
+    let plan = Plan::read(plan_dir)?;
+    let plan_path = plan_dir.join(PLAN_FILE);
+    let plan_sha256 = plan_sha256(plan_dir).ok_or_else(|| ShardError::NotAPlan {
+        path: plan_path.clone(),
+        message: "it cannot be read to be hashed".into(),
+    })?;
+    let results = finished_results(plan_dir, &plan, &plan_sha256)?;
+    let encoding = plan.encoding()?;
+    ensure_dir(&out_dir.join("shards")).map_err(ShardError::io(out_dir))?;
     let formula_path = out_dir.join(FORMULA_FILE);
-    write_encoding_to(&encoding, &formula_path)?;
-    let mut files = vec![FileRecord::of(
-        out_dir,
-        FORMULA_FILE,
-        "formula",
-        "DIMACS CNF, gzip",
-    )?];
+    write_encoding_to(&encoding, &formula_path).map_err(ShardError::io(&formula_path))?;
+    let mut files = vec![
+        FileRecord::of(out_dir, FORMULA_FILE, "formula", "DIMACS CNF, gzip")
+            .map_err(ShardError::io(&formula_path))?,
+    ];
     let mut written = vec![formula_path];
-    let mut shard_seconds = 0.0;
-    let mut trace_bytes = 0;
-    for cube in &plan.cubes {
-        let result = complete_result(plan_dir, cube.index, &plan_sha256)
-            .context("a shard result changed during the merge")?;
+    let composed_path = out_dir.join(COMPOSED_FILE);
+    let composed = match single_trace {
+        true => Some(
+            tempfile::Builder::new()
+                .prefix(".proof.")
+                .suffix(".tmp")
+                .tempfile_in(out_dir)
+                .map_err(ShardError::io(out_dir))?,
+        ),
+        false => None,
+    };
+    let mut composer = match &composed {
+        Some(f) => Some(BufWriter::with_capacity(
+            1 << 20,
+            f.as_file().try_clone().map_err(ShardError::io(out_dir))?,
+        )),
+        None => None,
+    };
+    let (mut shard_seconds, mut trace_bytes) = (0.0, 0);
+    for (cube, result) in plan.cubes.iter().zip(&results) {
         shard_seconds += result.seconds;
-        let name = format!("shards/{:05}.drat", cube.index);
-        let source = shard_dir(plan_dir, cube.index).join(super::SHARD_PROOF_FILE);
-        let content = std::fs::read(&source)?;
-        write_atomically(&out_dir.join(&name), |w| w.write_all(&content))?;
-        let mut record = FileRecord::of(
+        let record = take_in_shard(
+            plan_dir,
             out_dir,
-            &name,
-            "shard-proof",
-            "binary DRAT of formula and cube",
+            cube,
+            result,
+            composer.as_mut().map(|w| w as &mut dyn Write),
         )?;
-        if Some(&record.sha256) != result.proof_sha256.as_ref() {
-            bail!("shard {}: the trace changed during the merge", cube.index);
-        }
         trace_bytes += record.bytes;
-        record.shard = Some(cube.index);
-        record.cube = Some(cube.literals.clone());
+        written.push(out_dir.join(&record.name));
         files.push(record);
-        written.push(out_dir.join(&name));
         shards_copied.fetch_add(1, Ordering::Relaxed);
     }
-    let plan_copy = std::fs::read(plan_dir.join(PLAN_FILE))?;
-    write_atomically(&out_dir.join(PLAN_FILE), |w| w.write_all(&plan_copy))?;
-    files.push(FileRecord::of(
-        out_dir,
+    let plan_copy = std::fs::read(&plan_path).map_err(ShardError::io(&plan_path))?;
+    let plan_out = out_dir.join(PLAN_FILE);
+    write_atomically(&plan_out, |w| w.write_all(&plan_copy)).map_err(ShardError::io(&plan_out))?;
+    files.push(FileRecord::of_bytes(
         PLAN_FILE,
         "plan",
         "ramsift plan (JSON)",
-    )?);
-    written.push(out_dir.join(PLAN_FILE));
+        &plan_copy,
+    ));
+    written.push(plan_out);
     let mut composed_trace = None;
-    if single_trace {
-        let path = out_dir.join("proof.drat");
-        write_atomically(&path, |w| {
-            compose(&plan, plan_dir, w).map_err(io::Error::other)
-        })?;
-        files.push(FileRecord::of(
+    if let (Some(mut w), Some(file)) = (composer, composed) {
+        compose_tree(&plan.tree, &mut Vec::new(), &mut w)
+            .map_err(ShardError::io(&composed_path))?;
+        w.flush().map_err(ShardError::io(&composed_path))?;
+        w.get_ref()
+            .sync_all()
+            .map_err(ShardError::io(&composed_path))?;
+        drop(w);
+        file.persist(&composed_path)
+            .map_err(|e| ShardError::io(&composed_path)(e.error))?;
+        let record = FileRecord::of(
             out_dir,
-            "proof.drat",
+            COMPOSED_FILE,
             "drat-proof",
             "binary DRAT, composed from the shards",
-        )?);
-        written.push(path.clone());
-        composed_trace = Some(path);
+        )
+        .map_err(ShardError::io(&composed_path))?;
+        files.push(record);
+        written.push(composed_path.clone());
+        composed_trace = Some(composed_path);
     }
-    let manifest = Manifest {
-        bundle_format: BUNDLE_FORMAT.to_string(),
-        claim: claim_of(&encoding),
-        encoding: encoding_record(&encoding),
-        premises: premise_records(&encoding),
-        tool: format!("ramsift {}", env!("CARGO_PKG_VERSION")),
-        solver: crate::SOLVER_NAME.to_string(),
-        solve_seconds: shard_seconds,
-        files,
-        sharding: Some(ShardingRecord {
-            shards: plan.cubes.len(),
-            tree: plan.tree.clone(),
-        }),
+    let sharding = ShardingRecord {
+        shards: plan.cubes.len(),
+        tree: plan.tree.clone(),
     };
-    written.extend(write_manifest_and_guide(out_dir, &manifest)?);
+    let manifest = Manifest::new(&encoding, files, shard_seconds, Some(sharding));
+    written.extend(write_manifest_and_guide(out_dir, &manifest).map_err(ShardError::io(out_dir))?);
     if certify {
-        let stop = std::sync::atomic::AtomicBool::new(false);
+        let options = RefuteOptions::default();
         written.extend(certify_premises(
             &manifest.premises,
             encoding.symmetry(),
             out_dir,
-            &RefuteOptions::default(),
-            &stop,
+            &options,
+            &AtomicBool::new(false),
         )?);
-        write_guide(out_dir, &manifest)?;
+        write_guide(out_dir, &manifest).map_err(ShardError::io(out_dir))?;
     }
     Ok(MergeReport {
         files: written,
@@ -245,4 +257,36 @@ pub fn merge_counted(
         trace_bytes,
         composed_trace,
     })
+}
+
+/// Reads shard `cube`'s trace once: checks it against its result record, copies
+/// it into the bundle and, when composing, appends its part of the single trace.
+fn take_in_shard(
+    plan_dir: &Path,
+    out_dir: &Path,
+    cube: &Cube,
+    result: &ShardResult,
+    composer: Option<&mut dyn Write>,
+) -> Result<FileRecord, ShardError> {
+    let source = shard_dir(plan_dir, cube.index)
+        .join(result.proof_file.as_deref().unwrap_or(SHARD_PROOF_FILE));
+    let content = std::fs::read(&source).map_err(ShardError::io(&source))?;
+    if Some(sha256_hex(&content)) != result.proof_sha256 {
+        return Err(ShardError::TraceChanged { index: cube.index });
+    }
+    let name = format!("shards/{:05}.drat", cube.index);
+    let target = out_dir.join(&name);
+    write_atomically(&target, |w| w.write_all(&content)).map_err(ShardError::io(&target))?;
+    if let Some(out) = composer {
+        compose_shard(cube, &content, out)?;
+    }
+    let mut record = FileRecord::of_bytes(
+        &name,
+        "shard-proof",
+        "binary DRAT of formula and cube",
+        &content,
+    );
+    record.shard = Some(cube.index);
+    record.cube = Some(cube.literals.clone());
+    Ok(record)
 }

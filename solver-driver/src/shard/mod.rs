@@ -2,21 +2,27 @@
 //! (partial assignments whose disjunction is a tautology), each refuted on its own
 //! (as a Slurm array task or on a local core), and merged into one certificate.
 //!
-//! * [`plan`] chooses the cubes with a lookahead decision tree and writes the plan.
+//! * [`plan`] chooses the cubes with a lookahead decision tree, and reads and
+//!   writes the plan.
 //! * [`propagate`] is the unit propagation the lookahead uses.
-//! * [`run`] refutes one shard, resumably, with an atomic result record.
+//! * [`run`] refutes one shard, resumably; [`result`] reads and writes the
+//!   atomic result record it leaves.
 //! * [`status`] tells which shards are done, failed or missing.
 //! * [`slurm`] writes the batch script for a job array.
 //! * [`merge`] checks every shard result and writes the sharded bundle, optionally
-//!   with one composed DRAT trace of the whole formula.
+//!   with one composed DRAT trace of the whole formula, reading each trace once.
+//! * [`error`] is what can go wrong with any of them.
 
+pub mod error;
 pub mod merge;
 pub mod plan;
 pub mod propagate;
+pub mod result;
 pub mod run;
 pub mod slurm;
 pub mod status;
 
+pub use error::ShardError;
 pub use plan::{Plan, PlanTree};
 
 /// Layout of a plan directory.

@@ -7,11 +7,17 @@
 //! Since every split has both polarities as children, the leaves' cubes cover every
 //! assignment exactly once: their disjunction is a tautology.
 
+use std::path::Path;
+
 use serde::{Deserialize, Serialize};
 
-use ramsift_encoder::CliqueEncoding;
+use ramsift_encoder::atomic_file::write_atomically;
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 
+use super::error::ShardError;
 use super::propagate::{Propagation, Propagator};
+use super::PLAN_FILE;
+use crate::certify::bundle::hash_file;
 use crate::search::formula::Formula;
 
 /// The identifier of the plan layout.
@@ -49,7 +55,10 @@ pub struct Cube {
 pub struct Plan {
     pub plan_format: String,
     pub spec: String,
-    pub clique_sizes: Vec<usize>,
+    /// The vertex count of each colour's forbidden graph (plans before this
+    /// name called it `clique_sizes`).
+    #[serde(alias = "clique_sizes")]
+    pub vertex_counts: Vec<usize>,
     pub order: usize,
     pub symmetry: Vec<String>,
     pub variables: usize,
@@ -57,6 +66,60 @@ pub struct Plan {
     pub formula_sha256: String,
     pub cubes: Vec<Cube>,
     pub tree: PlanTree,
+}
+
+impl Plan {
+    /// Reads the plan of a plan directory.
+    pub fn read(plan_dir: &Path) -> Result<Plan, ShardError> {
+        let path = plan_dir.join(PLAN_FILE);
+        let text = std::fs::read_to_string(&path).map_err(ShardError::io(&path))?;
+        let plan: Plan = serde_json::from_str(&text).map_err(|e| ShardError::NotAPlan {
+            path: path.clone(),
+            message: e.to_string(),
+        })?;
+        if plan.plan_format != PLAN_FORMAT {
+            return Err(ShardError::PlanFormat {
+                path,
+                found: plan.plan_format,
+                expected: PLAN_FORMAT,
+            });
+        }
+        Ok(plan)
+    }
+
+    /// Writes the plan into a plan directory, atomically.
+    pub fn write(&self, plan_dir: &Path) -> Result<(), ShardError> {
+        let path = plan_dir.join(PLAN_FILE);
+        let json = serde_json::to_string_pretty(self)
+            .map_err(|e| ShardError::io(&path)(std::io::Error::other(e)))?;
+        write_atomically(&path, |w| w.write_all(json.as_bytes())).map_err(ShardError::io(&path))
+    }
+
+    /// Rebuilds the plan's encoding and checks it matches what the plan recorded.
+    pub fn encoding(&self) -> Result<RamseyEncoding, ShardError> {
+        let instance_error = |e: &dyn std::fmt::Display| ShardError::PlanInstance(e.to_string());
+        let spec: RamseySpec = self.spec.parse().map_err(|e| instance_error(&e))?;
+        let instance = Instance::new(spec, self.order).map_err(|e| instance_error(&e))?;
+        let symmetry: SymmetrySet = self
+            .symmetry
+            .join(",")
+            .parse()
+            .map_err(|e| instance_error(&e))?;
+        let encoding =
+            RamseyEncoding::with_symmetry(&instance, &symmetry, &EncodingLimits::default())
+                .map_err(|e| instance_error(&e))?;
+        if encoding.variable_count() != self.variables || encoding.clause_count() != self.clauses {
+            return Err(ShardError::PlanEncodingChanged);
+        }
+        Ok(encoding)
+    }
+}
+
+/// SHA-256 of the plan directory's plan.json (None if it cannot be read).
+pub fn plan_sha256(plan_dir: &Path) -> Option<String> {
+    hash_file(&plan_dir.join(PLAN_FILE))
+        .ok()
+        .map(|(sha, _)| sha)
 }
 
 enum Node {
@@ -98,8 +161,113 @@ fn measure(propagator: &Propagator, cube: &[i32], colour_variables: usize) -> Me
     }
 }
 
+/// The lookahead split of the leaf `cube`: of a sample of about `sample` free
+/// colour variables, the one with the best product of the two branches' gains.
+/// None when no colour variable is free.
+fn best_split(
+    propagator: &Propagator,
+    cube: &[i32],
+    colour_variables: usize,
+    sample: usize,
+) -> Option<Lookahead> {
+    let assigned: Vec<i32> = match propagator.propagate(cube) {
+        Propagation::Assigned(a) => a,
+        Propagation::Conflict => Vec::new(),
+    };
+    let candidates: Vec<i32> = (1..=colour_variables as i32)
+        .filter(|v| !assigned.iter().any(|l| l.abs() == *v))
+        .collect();
+    let free_now = colour_variables
+        - assigned
+            .iter()
+            .filter(|l| l.unsigned_abs() as usize <= colour_variables)
+            .count();
+    let gain = |m: Measure| {
+        if m.1 {
+            free_now as u64
+        } else {
+            free_now.saturating_sub(m.0) as u64
+        }
+    };
+    let step = (candidates.len() / sample).max(1);
+    let mut best: Option<Lookahead> = None;
+    for &v in candidates.iter().step_by(step) {
+        let mut with = cube.to_vec();
+        with.push(v);
+        let positive = measure(propagator, &with, colour_variables);
+        *with.last_mut().expect("pushed") = -v;
+        let negative = measure(propagator, &with, colour_variables);
+        let score = (gain(positive) + 1) * (gain(negative) + 1);
+        if best.as_ref().is_none_or(|b| score > b.score) {
+            best = Some(Lookahead {
+                score,
+                var: v,
+                positive,
+                negative,
+            });
+        }
+    }
+    best
+}
+
+/// Numbers the leaves below `at` depth first into `cubes` and builds the
+/// serialisable tree.
+fn numbered_tree(nodes: &[Node], at: usize, cubes: &mut Vec<Cube>) -> PlanTree {
+    match &nodes[at] {
+        Node::Leaf {
+            cube,
+            free,
+            refuted,
+        } => {
+            let index = cubes.len();
+            cubes.push(Cube {
+                index,
+                literals: cube.clone(),
+                free_variables: *free,
+                refuted_by_propagation: *refuted,
+                estimated_share_percent: 0.0,
+            });
+            PlanTree::Leaf { leaf: index }
+        }
+        Node::Split {
+            var,
+            positive,
+            negative,
+        } => PlanTree::Split {
+            split: *var,
+            positive: Box::new(numbered_tree(nodes, *positive, cubes)),
+            negative: Box::new(numbered_tree(nodes, *negative, cubes)),
+        },
+    }
+}
+
+/// Shares of 2^(free/10) of the cubes not refuted by propagation, computed
+/// relative to the largest so they stay finite.
+fn set_estimated_shares(cubes: &mut [Cube]) {
+    let top = cubes
+        .iter()
+        .filter(|c| !c.refuted_by_propagation)
+        .map(|c| c.free_variables)
+        .max()
+        .unwrap_or(0);
+    let weights: Vec<f64> = cubes
+        .iter()
+        .map(|c| {
+            if c.refuted_by_propagation {
+                0.0
+            } else {
+                2f64.powf((c.free_variables as f64 - top as f64) / 10.0)
+            }
+        })
+        .collect();
+    let total: f64 = weights.iter().sum();
+    for (cube, w) in cubes.iter_mut().zip(weights) {
+        cube.estimated_share_percent = if total > 0.0 { 100.0 * w / total } else { 0.0 };
+    }
+}
+
 /// Plans `shards` cubes for the encoding (fewer if the tree cannot grow further).
-pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: String) -> Plan {
+pub fn plan_cubes(encoding: &RamseyEncoding, shards: usize, formula_sha256: String) -> Plan {
     plan_cubes_counted(
         encoding,
         shards,
@@ -110,7 +278,7 @@ pub fn plan_cubes(encoding: &CliqueEncoding, shards: usize, formula_sha256: Stri
 
 /// [`plan_cubes`], keeping `leaves` at the number of cubes so far (for progress).
 pub fn plan_cubes_counted(
-    encoding: &CliqueEncoding,
+    encoding: &RamseyEncoding,
     shards: usize,
     formula_sha256: String,
     leaves_so_far: &std::sync::atomic::AtomicUsize,
@@ -141,58 +309,21 @@ pub fn plan_cubes_counted(
             unreachable!()
         };
         let cube = cube.clone();
-        let assigned: Vec<i32> = match propagator.propagate(&cube) {
-            Propagation::Assigned(a) => a,
-            Propagation::Conflict => Vec::new(),
-        };
-        let candidates: Vec<i32> = (1..=colour_variables as i32)
-            .filter(|v| !assigned.iter().any(|l| l.abs() == *v))
-            .collect();
-        if candidates.is_empty() {
-            break;
-        }
         // Lookahead costs two propagations per candidate: sample fewer on large formulas.
         let sample = if formula.clause_count() > 20_000 {
             12
         } else {
             48
         };
-        let step = (candidates.len() / sample).max(1);
-        let mut best: Option<Lookahead> = None;
-        for &v in candidates.iter().step_by(step) {
-            let mut with = cube.clone();
-            with.push(v);
-            let pos = measure(&propagator, &with, colour_variables);
-            *with.last_mut().expect("pushed") = -v;
-            let neg = measure(&propagator, &with, colour_variables);
-            let free_now = colour_variables
-                - assigned
-                    .iter()
-                    .filter(|l| l.unsigned_abs() as usize <= colour_variables)
-                    .count();
-            let gain = |m: Measure| {
-                if m.1 {
-                    free_now as u64
-                } else {
-                    free_now.saturating_sub(m.0) as u64
-                }
-            };
-            let score = (gain(pos) + 1) * (gain(neg) + 1);
-            if best.as_ref().is_none_or(|b| score > b.score) {
-                best = Some(Lookahead {
-                    score,
-                    var: v,
-                    positive: pos,
-                    negative: neg,
-                });
-            }
-        }
+        let Some(best) = best_split(&propagator, &cube, colour_variables, sample) else {
+            break;
+        };
         let Lookahead {
             var,
             positive: pos,
             negative: neg,
             ..
-        } = best.expect("at least one candidate");
+        } = best;
         let mut positive_cube = cube.clone();
         positive_cube.push(var);
         let mut negative_cube = cube;
@@ -217,63 +348,14 @@ pub fn plan_cubes_counted(
         leaves += 1;
     }
 
-    // Number the leaves depth first and build the serialisable tree.
     let mut cubes = Vec::new();
-    fn build(nodes: &[Node], at: usize, cubes: &mut Vec<Cube>) -> PlanTree {
-        match &nodes[at] {
-            Node::Leaf {
-                cube,
-                free,
-                refuted,
-            } => {
-                let index = cubes.len();
-                cubes.push(Cube {
-                    index,
-                    literals: cube.clone(),
-                    free_variables: *free,
-                    refuted_by_propagation: *refuted,
-                    estimated_share_percent: 0.0,
-                });
-                PlanTree::Leaf { leaf: index }
-            }
-            Node::Split {
-                var,
-                positive,
-                negative,
-            } => PlanTree::Split {
-                split: *var,
-                positive: Box::new(build(nodes, *positive, cubes)),
-                negative: Box::new(build(nodes, *negative, cubes)),
-            },
-        }
-    }
-    let tree = build(&nodes, 0, &mut cubes);
-    // Shares of 2^(free/10), computed relative to the largest so they stay finite.
-    let top = cubes
-        .iter()
-        .filter(|c| !c.refuted_by_propagation)
-        .map(|c| c.free_variables)
-        .max()
-        .unwrap_or(0);
-    let weights: Vec<f64> = cubes
-        .iter()
-        .map(|c| {
-            if c.refuted_by_propagation {
-                0.0
-            } else {
-                2f64.powf((c.free_variables as f64 - top as f64) / 10.0)
-            }
-        })
-        .collect();
-    let total: f64 = weights.iter().sum();
-    for (cube, w) in cubes.iter_mut().zip(weights) {
-        cube.estimated_share_percent = if total > 0.0 { 100.0 * w / total } else { 0.0 };
-    }
+    let tree = numbered_tree(&nodes, 0, &mut cubes);
+    set_estimated_shares(&mut cubes);
     let instance = encoding.instance();
     Plan {
         plan_format: PLAN_FORMAT.to_string(),
         spec: instance.spec().to_string(),
-        clique_sizes: instance.spec().clique_sizes(),
+        vertex_counts: instance.spec().vertex_counts(),
         order: instance.order(),
         symmetry: encoding
             .symmetry()
@@ -323,7 +405,7 @@ mod tests {
         let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 18).unwrap();
         let set: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
         let encoding =
-            CliqueEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+            RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
         let plan = plan_cubes(&encoding, 16, String::new());
         assert_eq!(plan.cubes.len(), 16);
         assert_eq!(

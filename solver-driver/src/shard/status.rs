@@ -4,7 +4,8 @@
 
 use std::path::Path;
 
-use super::run::{complete_result, plan_sha256};
+use super::plan::plan_sha256;
+use super::result::{complete_result, ShardStatus};
 use super::{shard_dir, RESULT_FILE};
 
 /// The state of every shard.
@@ -39,7 +40,7 @@ pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
             .as_deref()
             .and_then(|sha| complete_result(plan_dir, index, sha))
         {
-            Some(r) if r.status == "refuted" => status.done.push(index),
+            Some(r) if r.status == ShardStatus::Refuted => status.done.push(index),
             Some(_) => status.found.push(index),
             None if shard_dir(plan_dir, index).join(RESULT_FILE).exists() => {
                 status.damaged.push(index)
