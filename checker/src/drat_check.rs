@@ -371,33 +371,23 @@ impl Checker {
     }
 }
 
-/// Checks a DRAT refutation of `cnf`. With `emit_lrat`, also returns an LRAT proof.
-pub fn check_drat(
-    cnf: &Cnf,
-    steps: &[DratStep],
-    emit_lrat: bool,
-) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
-    let mut vars = DenseVars::new(&cnf.clauses);
-    steps.iter().flat_map(|s| s.literals.iter()).for_each(|&l| vars.add(l));
-    let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
-    if cnf.clauses.iter().any(|c| c.is_empty()) {
-        report.formula_has_empty_clause = true;
-        return Ok((report, emit_lrat.then(Vec::new)));
-    }
-    let mut checker = Checker::new(vars.max_var());
-    let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
-    let key = |lits: &[i32]| {
-        let mut k: Vec<Lit> = lits.iter().map(|&l| code(l)).collect();
-        k.sort_unstable();
-        k.dedup();
-        k
-    };
-    for clause in &cnf.clauses {
-        let id = checker.add_clause(clause, None);
-        by_content.entry(key(clause)).or_default().push(id);
-    }
+/// A clause's literals as a lookup key (sorted, without repeats).
+fn key(lits: &[i32]) -> Vec<Lit> {
+    let mut k: Vec<Lit> = lits.iter().map(|&l| code(l)).collect();
+    k.sort_unstable();
+    k.dedup();
+    k
+}
 
-    // Forward pass.
+/// Adds the lemmas and applies the deletions in proof order, up to the first empty
+/// lemma (or an implicit one at the end); returns the steps to undo backwards.
+fn forward_pass(
+    checker: &mut Checker,
+    by_content: &mut HashMap<Vec<Lit>, Vec<u32>>,
+    steps: &[DratStep],
+    vars: &DenseVars,
+    report: &mut DratReport,
+) -> Vec<(Record, usize)> {
     let mut records: Vec<(Record, usize)> = Vec::new();
     let mut empty_lemma: Option<u32> = None;
     for (index, step) in steps.iter().enumerate() {
@@ -434,14 +424,25 @@ pub fn check_drat(
             }
         }
     }
+
     let final_id = empty_lemma.unwrap_or_else(|| {
         report.implicit_empty_clause = true;
         records.push((Record::Add(checker.clauses.len() as u32), usize::MAX));
         checker.add_clause(&[], None)
     });
     checker.mark_core(final_id);
+    records
+}
 
-    // Backward pass.
+/// Checks the core lemmas from the last back (RUP, else RAT), undoing deletions;
+/// returns each checked lemma's justification when LRAT is wanted.
+fn backward_pass(
+    checker: &mut Checker,
+    records: &[(Record, usize)],
+    steps: &[DratStep],
+    emit_lrat: bool,
+    report: &mut DratReport,
+) -> Result<Vec<(u32, Justification)>, DratFailure> {
     let mut justified: Vec<(u32, Justification)> = Vec::new();
     for (record, index) in records.iter().rev() {
         match *record {
@@ -478,6 +479,31 @@ pub fn check_drat(
             }
         }
     }
+    Ok(justified)
+}
+
+/// Checks a DRAT refutation of `cnf`. With `emit_lrat`, also returns an LRAT proof.
+pub fn check_drat(
+    cnf: &Cnf,
+    steps: &[DratStep],
+    emit_lrat: bool,
+) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
+    let mut vars = DenseVars::new(&cnf.clauses);
+    steps.iter().flat_map(|s| s.literals.iter()).for_each(|&l| vars.add(l));
+    let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
+    if cnf.clauses.iter().any(|c| c.is_empty()) {
+        report.formula_has_empty_clause = true;
+        return Ok((report, emit_lrat.then(Vec::new)));
+    }
+    let mut checker = Checker::new(vars.max_var());
+    let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
+    for clause in &cnf.clauses {
+        let id = checker.add_clause(clause, None);
+        by_content.entry(key(clause)).or_default().push(id);
+    }
+
+    let records = forward_pass(&mut checker, &mut by_content, steps, &vars, &mut report);
+    let mut justified = backward_pass(&mut checker, &records, steps, emit_lrat, &mut report)?;
     report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 

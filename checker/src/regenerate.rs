@@ -109,8 +109,7 @@ fn elementary_or_premise(smaller: &[usize], premises: &[PremiseBound]) -> Option
 /// formula of more than `max_clauses` clauses (generation stops there, so a
 /// claim's size cannot exhaust memory or time beyond the formula it is compared with).
 pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerated, String> {
-    let n = statement.order;
-    let r = statement.forbidden.len();
+    let (n, r) = (statement.order, statement.forbidden.len());
     for name in &statement.symmetry {
         if !["colour-swap", "lex-leader", "degree-bounds"].contains(&name.as_str()) {
             return Err(format!("unknown symmetry scheme {name:?}"));
@@ -119,16 +118,55 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
     let has = |name: &str| statement.symmetry.iter().any(|s| s == name);
     let edges = n * n.saturating_sub(1) / 2;
     let mut variables = if r == 2 { edges } else { edges * r };
-    let mut clauses: Vec<Vec<i32>> = Vec::new();
-
-    if r > 2 {
-        for j in 0..n {
-            for i in 0..j {
-                clauses.push((1..=r).map(|c| lit(r, i, j, c)).collect());
+    let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
+    let mut clauses = forbidden_clauses(statement, max_clauses).ok_or_else(too_many)?;
+    if has("colour-swap") && n >= 2 {
+        colour_swap_clauses(statement, has("lex-leader"), &mut clauses);
+    }
+    if has("lex-leader") && n >= 3 {
+        variables += lex_leader_clauses(n, r, variables, &mut clauses);
+    }
+    let mut used_premises = Vec::new();
+    if has("degree-bounds") {
+        let cliques = statement.forbidden.iter().map(|g| match g {
+            ClaimGraph::Clique(k) => Ok(*k),
+            ClaimGraph::Graph { token, .. } => {
+                Err(format!("degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"))
+            }
+        });
+        let cliques: Vec<usize> = cliques.collect::<Result<_, _>>()?;
+        for colour in 1..=r {
+            let mut smaller: Vec<usize> = cliques.clone();
+            smaller[colour - 1] -= 1;
+            let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises) else { continue };
+            let Some(k) = bound.checked_sub(1).filter(|&k| k < n - 1) else { continue };
+            if let Some(p) = premise.filter(|p| !used_premises.contains(p)) {
+                used_premises.push(p);
+            }
+            for v in 0..n {
+                variables += at_most_k_clauses(n, r, v, colour, k, variables, &mut clauses);
+                if clauses.len() > max_clauses {
+                    return Err(too_many());
+                }
             }
         }
     }
-    let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
+    if clauses.len() > max_clauses {
+        return Err(too_many());
+    }
+    Ok(Regenerated { variables, clauses, used_premises })
+}
+
+/// The at-least-one-colour clauses (three or more colours) and one clause per
+/// forbidden copy in each colour; None past `max_clauses`.
+fn forbidden_clauses(statement: &Statement, max_clauses: usize) -> Option<Vec<Vec<i32>>> {
+    let (n, r) = (statement.order, statement.forbidden.len());
+    let mut clauses: Vec<Vec<i32>> = Vec::new();
+    if r > 2 {
+        for j in 0..n {
+            clauses.extend((0..j).map(|i| (1..=r).map(|c| lit(r, i, j, c)).collect()));
+        }
+    }
     for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
         let complete = match graph {
@@ -151,106 +189,91 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 complete
             }
         };
-        if !complete {
-            return Err(too_many());
-        }
+        complete.then_some(())?;
     }
+    Some(clauses)
+}
 
-    if has("colour-swap") && n >= 2 {
-        let mut seen: Vec<&ClaimGraph> = Vec::new();
-        for c in 1..=r {
-            let graph = &statement.forbidden[c - 1];
-            if seen.contains(&graph) {
-                continue;
-            }
-            seen.push(graph);
-            let mut class: Vec<usize> = (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
-            if has("lex-leader") && class[0] == 1 && r > 2 {
-                class.remove(0);
-            }
-            match class.as_slice() {
-                [_] | [] => {}
-                [first, ..] if r == 2 => clauses.push(vec![lit(r, 0, n - 1, *first)]),
-                [_, rest @ ..] => clauses.extend(rest.iter().map(|&d| vec![-lit(r, 0, n - 1, d)])),
-            }
+/// Colour swap: edge {0, n-1} takes the first colour of each class of colours
+/// with equal forbidden graphs (with lex-leader and more than two colours, the
+/// class of colour 1 is left to lex-leader).
+fn colour_swap_clauses(statement: &Statement, lex_leader: bool, clauses: &mut Vec<Vec<i32>>) {
+    let (n, r) = (statement.order, statement.forbidden.len());
+    let mut seen: Vec<&ClaimGraph> = Vec::new();
+    for c in 1..=r {
+        let graph = &statement.forbidden[c - 1];
+        if seen.contains(&graph) {
+            continue;
+        }
+        seen.push(graph);
+        let mut class: Vec<usize> = (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
+        if lex_leader && class[0] == 1 && r > 2 {
+            class.remove(0);
+        }
+        match class.as_slice() {
+            [_] | [] => {}
+            [first, ..] if r == 2 => clauses.push(vec![lit(r, 0, n - 1, *first)]),
+            [_, rest @ ..] => clauses.extend(rest.iter().map(|&d| vec![-lit(r, 0, n - 1, d)])),
         }
     }
+}
 
-    if has("lex-leader") && n >= 3 {
-        let per_pair = n - 3;
-        let first = variables + 1;
-        for i in 0..n - 1 {
-            let cols: Vec<usize> = (0..n).filter(|&k| k != i && k != i + 1).collect();
-            for (p, &k) in cols.iter().enumerate() {
-                let a = lit(r, i, k, 1);
-                let b = lit(r, i + 1, k, 1);
-                let equal_before = (p > 0).then(|| -((first + i * per_pair + p - 1) as i32));
-                let equal_here = (first + i * per_pair + p) as i32;
-                let guarded = |rest: &[i32]| equal_before.into_iter().chain(rest.iter().copied()).collect::<Vec<i32>>();
-                clauses.push(guarded(&[-a, b]));
-                if p + 1 < cols.len() {
-                    clauses.push(guarded(&[-a, equal_here]));
-                    clauses.push(guarded(&[b, equal_here]));
-                }
+/// Lex-leader on adjacent vertex swaps: row i of the colour-1 matrix is at least
+/// row i+1 (columns other than i, i+1), with equality chains as auxiliary
+/// variables after `variables`. Returns the auxiliaries used.
+fn lex_leader_clauses(n: usize, r: usize, variables: usize, clauses: &mut Vec<Vec<i32>>) -> usize {
+    let per_pair = n - 3;
+    let first = variables + 1;
+    for i in 0..n - 1 {
+        let cols: Vec<usize> = (0..n).filter(|&k| k != i && k != i + 1).collect();
+        for (p, &k) in cols.iter().enumerate() {
+            let (a, b) = (lit(r, i, k, 1), lit(r, i + 1, k, 1));
+            let equal_before = (p > 0).then(|| -((first + i * per_pair + p - 1) as i32));
+            let equal_here = (first + i * per_pair + p) as i32;
+            let guarded = |rest: &[i32]| equal_before.into_iter().chain(rest.iter().copied()).collect::<Vec<i32>>();
+            clauses.push(guarded(&[-a, b]));
+            if p + 1 < cols.len() {
+                clauses.push(guarded(&[-a, equal_here]));
+                clauses.push(guarded(&[b, equal_here]));
             }
         }
-        variables += (n - 1) * per_pair;
     }
+    (n - 1) * per_pair
+}
 
-    let mut used_premises = Vec::new();
-    if has("degree-bounds") {
-        let cliques = statement.forbidden.iter().map(|g| match g {
-            ClaimGraph::Clique(k) => Ok(*k),
-            ClaimGraph::Graph { token, .. } => {
-                Err(format!("degree-bounds rests on clique Ramsey numbers, but a colour forbids {token}"))
-            }
-        });
-        let cliques: Vec<usize> = cliques.collect::<Result<_, _>>()?;
-        for colour in 1..=r {
-            let mut smaller: Vec<usize> = cliques.clone();
-            smaller[colour - 1] -= 1;
-            let Some((bound, premise)) = elementary_or_premise(&smaller, &statement.premises) else {
-                continue;
-            };
-            let Some(k) = bound.checked_sub(1).filter(|&k| k < n - 1) else {
-                continue;
-            };
-            if let Some(p) = premise.filter(|p| !used_premises.contains(p)) {
-                used_premises.push(p);
-            }
-            for v in 0..n {
-                let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
-                if k == 0 {
-                    clauses.extend(xs.iter().map(|&x| vec![-x]));
-                    continue;
-                }
-                let base = variables + 1;
-                let s = |i: usize, j: usize| (base + (i - 1) * k + (j - 1)) as i32;
-                let m = xs.len();
-                clauses.push(vec![-xs[0], s(1, 1)]);
-                clauses.extend((2..=k).map(|j| vec![-s(1, j)]));
-                for i in 2..m {
-                    let x = xs[i - 1];
-                    clauses.push(vec![-x, s(i, 1)]);
-                    clauses.push(vec![-s(i - 1, 1), s(i, 1)]);
-                    for j in 2..=k {
-                        clauses.push(vec![-x, -s(i - 1, j - 1), s(i, j)]);
-                        clauses.push(vec![-s(i - 1, j), s(i, j)]);
-                    }
-                    clauses.push(vec![-x, -s(i - 1, k)]);
-                }
-                clauses.push(vec![-xs[m - 1], -s(m - 1, k)]);
-                variables += (m - 1) * k;
-                if clauses.len() > max_clauses {
-                    return Err(too_many());
-                }
-            }
+/// At most `k` edges of `colour` at vertex `v` (sequential counter, auxiliaries
+/// after `variables`). Returns the auxiliaries used.
+fn at_most_k_clauses(
+    n: usize,
+    r: usize,
+    v: usize,
+    colour: usize,
+    k: usize,
+    variables: usize,
+    clauses: &mut Vec<Vec<i32>>,
+) -> usize {
+    let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
+    if k == 0 {
+        clauses.extend(xs.iter().map(|&x| vec![-x]));
+        return 0;
+    }
+    let base = variables + 1;
+    let s = |i: usize, j: usize| (base + (i - 1) * k + (j - 1)) as i32;
+    let m = xs.len();
+    clauses.push(vec![-xs[0], s(1, 1)]);
+    clauses.extend((2..=k).map(|j| vec![-s(1, j)]));
+    for i in 2..m {
+        let x = xs[i - 1];
+        clauses.push(vec![-x, s(i, 1)]);
+        clauses.push(vec![-s(i - 1, 1), s(i, 1)]);
+        for j in 2..=k {
+            clauses.push(vec![-x, -s(i - 1, j - 1), s(i, j)]);
+            clauses.push(vec![-s(i - 1, j), s(i, j)]);
         }
+        clauses.push(vec![-x, -s(i - 1, k)]);
     }
-    if clauses.len() > max_clauses {
-        return Err(too_many());
-    }
-    Ok(Regenerated { variables, clauses, used_premises })
+    clauses.push(vec![-xs[m - 1], -s(m - 1, k)]);
+    (m - 1) * k
 }
 
 /// Clauses as a sorted multiset of sorted clauses (order and literal order free).

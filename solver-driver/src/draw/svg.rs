@@ -24,7 +24,6 @@ pub fn matrix_geometry(n: usize, size: f64) -> (f64, f64) {
 
 /// The SVG text of a figure of `size` × `size` pixels (plus a legend below).
 pub fn render(figure: &Figure, layout: Layout, size: f64) -> String {
-    let n = figure.order;
     let legend_height = 18.0 * figure.colours as f64 + 10.0;
     let mut out = String::new();
     let _ = writeln!(
@@ -35,20 +34,30 @@ pub fn render(figure: &Figure, layout: Layout, size: f64) -> String {
     if let Some(title) = &figure.title {
         let _ = writeln!(out, "<title>{}</title>", escape(title));
     }
+    write_fill_patterns(&mut out, figure.colours);
+    let _ = writeln!(out, r#"<rect width="100%" height="100%" fill="white"/>"#);
+    match layout {
+        Layout::Circle => write_circle(&mut out, figure, size),
+        Layout::Matrix => write_matrix(&mut out, figure, size),
+    }
+    write_legend(&mut out, figure.colours, size);
+    out.push_str("</svg>\n");
+    out
+}
+
+/// One fill pattern per colour (its base colour and a white mark), for the matrix
+/// cells and the legend.
+fn write_fill_patterns(out: &mut String, colours: usize) {
     out.push_str("<defs>\n");
-    for c in 1..=figure.colours as u8 {
+    for c in 1..=colours as u8 {
         let s = style_of(c);
         let mark = match s.fill {
-            "hatch" => r#"<path d="M0,6 L6,0" stroke="white" stroke-width="1.2"/>"#.to_string(),
-            "dots" => r#"<circle cx="3" cy="3" r="1.1" fill="white"/>"#.to_string(),
-            "cross" => {
-                r#"<path d="M0,6 L6,0 M0,0 L6,6" stroke="white" stroke-width="0.9"/>"#.to_string()
-            }
-            "backhatch" => r#"<path d="M0,0 L6,6" stroke="white" stroke-width="1.2"/>"#.to_string(),
-            "grid" => {
-                r#"<path d="M3,0 L3,6 M0,3 L6,3" stroke="white" stroke-width="0.9"/>"#.to_string()
-            }
-            _ => String::new(),
+            "hatch" => r#"<path d="M0,6 L6,0" stroke="white" stroke-width="1.2"/>"#,
+            "dots" => r#"<circle cx="3" cy="3" r="1.1" fill="white"/>"#,
+            "cross" => r#"<path d="M0,6 L6,0 M0,0 L6,6" stroke="white" stroke-width="0.9"/>"#,
+            "backhatch" => r#"<path d="M0,0 L6,6" stroke="white" stroke-width="1.2"/>"#,
+            "grid" => r#"<path d="M3,0 L3,6 M0,3 L6,3" stroke="white" stroke-width="0.9"/>"#,
+            _ => "",
         };
         let _ = writeln!(
             out,
@@ -57,65 +66,70 @@ pub fn render(figure: &Figure, layout: Layout, size: f64) -> String {
         );
     }
     out.push_str("</defs>\n");
-    let _ = writeln!(out, r#"<rect width="100%" height="100%" fill="white"/>"#);
-    match layout {
-        Layout::Circle => {
-            let positions = circle_positions(n, size / 2.0, size / 2.0, size / 2.0 - 24.0);
-            for c in &figure.shown {
-                let s = style_of(*c);
+}
+
+/// The circle layout: each shown colour's edges in its style, then the vertices.
+fn write_circle(out: &mut String, figure: &Figure, size: f64) {
+    let n = figure.order;
+    let positions = circle_positions(n, size / 2.0, size / 2.0, size / 2.0 - 24.0);
+    for c in &figure.shown {
+        let s = style_of(*c);
+        let _ = writeln!(
+            out,
+            r#"<g stroke="{}" stroke-width="{}" stroke-dasharray="{}" stroke-linecap="butt" fill="none" data-colour="{c}">"#,
+            s.hex,
+            s.width,
+            if s.dash.is_empty() { "none" } else { s.dash }
+        );
+        for j in 0..n {
+            for i in (0..j).filter(|&i| figure.colour(i, j) == *c) {
+                let ((x1, y1), (x2, y2)) = (positions[i], positions[j]);
                 let _ = writeln!(
                     out,
-                    r#"<g stroke="{}" stroke-width="{}" stroke-dasharray="{}" stroke-linecap="butt" fill="none" data-colour="{c}">"#,
-                    s.hex,
-                    s.width,
-                    if s.dash.is_empty() { "none" } else { s.dash }
-                );
-                for j in 0..n {
-                    for i in 0..j {
-                        if figure.colour(i, j) == *c {
-                            let ((x1, y1), (x2, y2)) = (positions[i], positions[j]);
-                            let _ = writeln!(
-                                out,
-                                r#"<line x1="{x1:.2}" y1="{y1:.2}" x2="{x2:.2}" y2="{y2:.2}"/>"#
-                            );
-                        }
-                    }
-                }
-                out.push_str("</g>\n");
-            }
-            for (v, (x, y)) in positions.iter().enumerate() {
-                let _ = writeln!(
-                    out,
-                    r#"<circle cx="{x:.2}" cy="{y:.2}" r="4" fill="black"/><text x="{:.2}" y="{:.2}" font-size="10" text-anchor="middle" font-family="sans-serif">{v}</text>"#,
-                    x + (x - size / 2.0) * 0.06,
-                    y + (y - size / 2.0) * 0.06 + 3.0
+                    r#"<line x1="{x1:.2}" y1="{y1:.2}" x2="{x2:.2}" y2="{y2:.2}"/>"#
                 );
             }
         }
-        Layout::Matrix => {
-            let (cell, origin) = matrix_geometry(n, size);
-            for i in 0..n {
-                for j in 0..n {
-                    let (x, y) = (origin + j as f64 * cell, origin + i as f64 * cell);
-                    let fill = if i == j {
-                        "white".to_string()
-                    } else {
-                        format!("url(#fill{})", figure.colour(i, j))
-                    };
-                    let _ = writeln!(
-                        out,
-                        r#"<rect x="{x:.2}" y="{y:.2}" width="{cell:.2}" height="{cell:.2}" fill="{fill}" stroke="white" stroke-width="0.5"/>"#
-                    );
-                }
-            }
+        out.push_str("</g>\n");
+    }
+    for (v, (x, y)) in positions.iter().enumerate() {
+        let _ = writeln!(
+            out,
+            r#"<circle cx="{x:.2}" cy="{y:.2}" r="4" fill="black"/><text x="{:.2}" y="{:.2}" font-size="10" text-anchor="middle" font-family="sans-serif">{v}</text>"#,
+            x + (x - size / 2.0) * 0.06,
+            y + (y - size / 2.0) * 0.06 + 3.0
+        );
+    }
+}
+
+/// The matrix layout: one cell per ordered pair, in its colour's fill.
+fn write_matrix(out: &mut String, figure: &Figure, size: f64) {
+    let n = figure.order;
+    let (cell, origin) = matrix_geometry(n, size);
+    for i in 0..n {
+        for j in 0..n {
+            let (x, y) = (origin + j as f64 * cell, origin + i as f64 * cell);
+            let fill = if i == j {
+                "white".to_string()
+            } else {
+                format!("url(#fill{})", figure.colour(i, j))
+            };
             let _ = writeln!(
                 out,
-                r#"<rect x="{origin}" y="{origin}" width="{w:.2}" height="{w:.2}" fill="none" stroke="black" stroke-width="1"/>"#,
-                w = cell * n as f64
+                r#"<rect x="{x:.2}" y="{y:.2}" width="{cell:.2}" height="{cell:.2}" fill="{fill}" stroke="white" stroke-width="0.5"/>"#
             );
         }
     }
-    for c in 1..=figure.colours as u8 {
+    let _ = writeln!(
+        out,
+        r#"<rect x="{origin}" y="{origin}" width="{w:.2}" height="{w:.2}" fill="none" stroke="black" stroke-width="1"/>"#,
+        w = cell * n as f64
+    );
+}
+
+/// The legend below the drawing: each colour's line style and fill.
+fn write_legend(out: &mut String, colours: usize, size: f64) {
+    for c in 1..=colours as u8 {
         let s = style_of(c);
         let y = size + 14.0 + 18.0 * (c as f64 - 1.0);
         let _ = writeln!(
@@ -129,8 +143,6 @@ pub fn render(figure: &Figure, layout: Layout, size: f64) -> String {
             s.name
         );
     }
-    out.push_str("</svg>\n");
-    out
 }
 
 fn escape(text: &str) -> String {
