@@ -91,6 +91,11 @@ enum Record {
     Delete(u32),
 }
 
+/// The forward pass's steps, each with its index in the proof.
+type Records = Vec<(Record, usize)>;
+/// Checked lemmas with their justifications, or why the proof fails.
+type Justified = Result<Vec<(u32, Justification)>, DratFailure>;
+
 /// Outcome of propagating the negation of a clause.
 enum Rup {
     /// The clause is a tautology.
@@ -369,6 +374,108 @@ impl Checker {
         }
         Some(proofs)
     }
+
+    /// Adds the lemmas and applies the deletions in proof order, up to the first empty
+    /// lemma (or an implicit one at the end); returns the steps to undo backwards.
+    fn forward_pass(&mut self, cnf: &Cnf, steps: &[DratStep], vars: &DenseVars, report: &mut DratReport) -> Records {
+        let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
+        for clause in &cnf.clauses {
+            let id = self.add_clause(clause, None);
+            by_content.entry(key(clause)).or_default().push(id);
+        }
+        let mut records: Records = Vec::new();
+        let mut empty_lemma: Option<u32> = None;
+        for (index, step) in steps.iter().enumerate() {
+            let literals: Vec<i32> = step.literals.iter().map(|&l| vars.dense(l)).collect();
+            match step.kind {
+                StepKind::Add => {
+                    report.lemmas += 1;
+                    let id = self.add_clause(&literals, literals.first().copied());
+                    by_content.entry(key(&literals)).or_default().push(id);
+                    records.push((Record::Add(id), index));
+                    if literals.is_empty() {
+                        empty_lemma = Some(id);
+                        break;
+                    }
+                }
+                StepKind::Delete => {
+                    report.deletions += 1;
+                    let k = key(&literals);
+                    let found = by_content.get_mut(&k).and_then(|ids| {
+                        let at = ids.iter().rposition(|&id| self.clauses[id as usize].active)?;
+                        Some(ids.remove(at))
+                    });
+                    match found {
+                        None => report.deletions_of_absent_clauses += 1,
+                        Some(id) if self.clauses[id as usize].lits.len() == 1 => {
+                            report.ignored_unit_deletions += 1;
+                            by_content.entry(k).or_default().push(id);
+                        }
+                        Some(id) => {
+                            self.clauses[id as usize].active = false;
+                            records.push((Record::Delete(id), index));
+                        }
+                    }
+                }
+            }
+        }
+
+        let final_id = empty_lemma.unwrap_or_else(|| {
+            report.implicit_empty_clause = true;
+            records.push((Record::Add(self.clauses.len() as u32), usize::MAX));
+            self.add_clause(&[], None)
+        });
+        self.mark_core(final_id);
+        records
+    }
+
+    /// Checks the core lemmas from the last back (RUP, else RAT), undoing deletions;
+    /// returns each checked lemma's justification when LRAT is wanted.
+    fn backward_pass(
+        &mut self,
+        records: &Records,
+        steps: &[DratStep],
+        lrat: bool,
+        report: &mut DratReport,
+    ) -> Justified {
+        let mut justified: Vec<(u32, Justification)> = Vec::new();
+        for (record, index) in records.iter().rev() {
+            match *record {
+                Record::Delete(id) => self.activate(id),
+                Record::Add(id) => {
+                    self.clauses[id as usize].active = false;
+                    if !self.clauses[id as usize].core {
+                        continue;
+                    }
+                    report.checked_lemmas += 1;
+                    CHECKED_LEMMAS.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
+                    let lits = self.clauses[id as usize].lits.clone();
+                    let justification = match self.rup(&lits) {
+                        Rup::Trivial => continue,
+                        Rup::Conflict(hints) => Justification::Rup(hints),
+                        Rup::NoConflict => match self.rat(id) {
+                            Some(proofs) => {
+                                report.rat_lemmas += 1;
+                                Justification::Rat(proofs)
+                            }
+                            None if *index == usize::MAX => return Err(DratFailure::NoRefutation),
+                            None => {
+                                return Err(DratFailure::LemmaFailed {
+                                    step: index + 1,
+                                    offset: steps[*index].offset,
+                                    lemma: steps[*index].literals.clone(),
+                                })
+                            }
+                        },
+                    };
+                    if lrat {
+                        justified.push((id, justification));
+                    }
+                }
+            }
+        }
+        Ok(justified)
+    }
 }
 
 /// A clause's literals as a lookup key (sorted, without repeats).
@@ -377,109 +484,6 @@ fn key(lits: &[i32]) -> Vec<Lit> {
     k.sort_unstable();
     k.dedup();
     k
-}
-
-/// Adds the lemmas and applies the deletions in proof order, up to the first empty
-/// lemma (or an implicit one at the end); returns the steps to undo backwards.
-fn forward_pass(
-    checker: &mut Checker,
-    by_content: &mut HashMap<Vec<Lit>, Vec<u32>>,
-    steps: &[DratStep],
-    vars: &DenseVars,
-    report: &mut DratReport,
-) -> Vec<(Record, usize)> {
-    let mut records: Vec<(Record, usize)> = Vec::new();
-    let mut empty_lemma: Option<u32> = None;
-    for (index, step) in steps.iter().enumerate() {
-        let literals: Vec<i32> = step.literals.iter().map(|&l| vars.dense(l)).collect();
-        match step.kind {
-            StepKind::Add => {
-                report.lemmas += 1;
-                let id = checker.add_clause(&literals, literals.first().copied());
-                by_content.entry(key(&literals)).or_default().push(id);
-                records.push((Record::Add(id), index));
-                if literals.is_empty() {
-                    empty_lemma = Some(id);
-                    break;
-                }
-            }
-            StepKind::Delete => {
-                report.deletions += 1;
-                let k = key(&literals);
-                let found = by_content.get_mut(&k).and_then(|ids| {
-                    let at = ids.iter().rposition(|&id| checker.clauses[id as usize].active)?;
-                    Some(ids.remove(at))
-                });
-                match found {
-                    None => report.deletions_of_absent_clauses += 1,
-                    Some(id) if checker.clauses[id as usize].lits.len() == 1 => {
-                        report.ignored_unit_deletions += 1;
-                        by_content.entry(k).or_default().push(id);
-                    }
-                    Some(id) => {
-                        checker.clauses[id as usize].active = false;
-                        records.push((Record::Delete(id), index));
-                    }
-                }
-            }
-        }
-    }
-
-    let final_id = empty_lemma.unwrap_or_else(|| {
-        report.implicit_empty_clause = true;
-        records.push((Record::Add(checker.clauses.len() as u32), usize::MAX));
-        checker.add_clause(&[], None)
-    });
-    checker.mark_core(final_id);
-    records
-}
-
-/// Checks the core lemmas from the last back (RUP, else RAT), undoing deletions;
-/// returns each checked lemma's justification when LRAT is wanted.
-fn backward_pass(
-    checker: &mut Checker,
-    records: &[(Record, usize)],
-    steps: &[DratStep],
-    emit_lrat: bool,
-    report: &mut DratReport,
-) -> Result<Vec<(u32, Justification)>, DratFailure> {
-    let mut justified: Vec<(u32, Justification)> = Vec::new();
-    for (record, index) in records.iter().rev() {
-        match *record {
-            Record::Delete(id) => checker.activate(id),
-            Record::Add(id) => {
-                checker.clauses[id as usize].active = false;
-                if !checker.clauses[id as usize].core {
-                    continue;
-                }
-                report.checked_lemmas += 1;
-                CHECKED_LEMMAS.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
-                let lits = checker.clauses[id as usize].lits.clone();
-                let justification = match checker.rup(&lits) {
-                    Rup::Trivial => continue,
-                    Rup::Conflict(hints) => Justification::Rup(hints),
-                    Rup::NoConflict => match checker.rat(id) {
-                        Some(proofs) => {
-                            report.rat_lemmas += 1;
-                            Justification::Rat(proofs)
-                        }
-                        None if *index == usize::MAX => return Err(DratFailure::NoRefutation),
-                        None => {
-                            return Err(DratFailure::LemmaFailed {
-                                step: index + 1,
-                                offset: steps[*index].offset,
-                                lemma: steps[*index].literals.clone(),
-                            })
-                        }
-                    },
-                };
-                if emit_lrat {
-                    justified.push((id, justification));
-                }
-            }
-        }
-    }
-    Ok(justified)
 }
 
 /// Checks a DRAT refutation of `cnf`. With `emit_lrat`, also returns an LRAT proof.
@@ -496,14 +500,8 @@ pub fn check_drat(
         return Ok((report, emit_lrat.then(Vec::new)));
     }
     let mut checker = Checker::new(vars.max_var());
-    let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
-    for clause in &cnf.clauses {
-        let id = checker.add_clause(clause, None);
-        by_content.entry(key(clause)).or_default().push(id);
-    }
-
-    let records = forward_pass(&mut checker, &mut by_content, steps, &vars, &mut report);
-    let mut justified = backward_pass(&mut checker, &records, steps, emit_lrat, &mut report)?;
+    let records = checker.forward_pass(cnf, steps, &vars, &mut report);
+    let mut justified = checker.backward_pass(&records, steps, emit_lrat, &mut report)?;
     report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 

@@ -120,8 +120,26 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
     let mut variables = if r == 2 { edges } else { edges * r };
     let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");
     let mut clauses = forbidden_clauses(statement, max_clauses).ok_or_else(too_many)?;
+    // Colour swap: edge {0, n-1} takes the first colour of each class of colours with equal
+    // forbidden graphs (with lex-leader and more than two colours, colour 1's class is left to it).
     if has("colour-swap") && n >= 2 {
-        colour_swap_clauses(statement, has("lex-leader"), &mut clauses);
+        let mut seen: Vec<&ClaimGraph> = Vec::new();
+        for c in 1..=r {
+            let graph = &statement.forbidden[c - 1];
+            if seen.contains(&graph) {
+                continue;
+            }
+            seen.push(graph);
+            let mut class: Vec<usize> = (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
+            if has("lex-leader") && class[0] == 1 && r > 2 {
+                class.remove(0);
+            }
+            match class.as_slice() {
+                [_] | [] => {}
+                [first, ..] if r == 2 => clauses.push(vec![lit(r, 0, n - 1, *first)]),
+                [_, rest @ ..] => clauses.extend(rest.iter().map(|&d| vec![-lit(r, 0, n - 1, d)])),
+            }
+        }
     }
     if has("lex-leader") && n >= 3 {
         variables += lex_leader_clauses(n, r, variables, &mut clauses);
@@ -144,7 +162,8 @@ pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerat
                 used_premises.push(p);
             }
             for v in 0..n {
-                variables += at_most_k_clauses(n, r, v, colour, k, variables, &mut clauses);
+                let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
+                variables += at_most_k_clauses(&xs, k, variables, &mut clauses);
                 if clauses.len() > max_clauses {
                     return Err(too_many());
                 }
@@ -194,30 +213,6 @@ fn forbidden_clauses(statement: &Statement, max_clauses: usize) -> Option<Vec<Ve
     Some(clauses)
 }
 
-/// Colour swap: edge {0, n-1} takes the first colour of each class of colours
-/// with equal forbidden graphs (with lex-leader and more than two colours, the
-/// class of colour 1 is left to lex-leader).
-fn colour_swap_clauses(statement: &Statement, lex_leader: bool, clauses: &mut Vec<Vec<i32>>) {
-    let (n, r) = (statement.order, statement.forbidden.len());
-    let mut seen: Vec<&ClaimGraph> = Vec::new();
-    for c in 1..=r {
-        let graph = &statement.forbidden[c - 1];
-        if seen.contains(&graph) {
-            continue;
-        }
-        seen.push(graph);
-        let mut class: Vec<usize> = (1..=r).filter(|&d| statement.forbidden[d - 1] == *graph).collect();
-        if lex_leader && class[0] == 1 && r > 2 {
-            class.remove(0);
-        }
-        match class.as_slice() {
-            [_] | [] => {}
-            [first, ..] if r == 2 => clauses.push(vec![lit(r, 0, n - 1, *first)]),
-            [_, rest @ ..] => clauses.extend(rest.iter().map(|&d| vec![-lit(r, 0, n - 1, d)])),
-        }
-    }
-}
-
 /// Lex-leader on adjacent vertex swaps: row i of the colour-1 matrix is at least
 /// row i+1 (columns other than i, i+1), with equality chains as auxiliary
 /// variables after `variables`. Returns the auxiliaries used.
@@ -241,18 +236,9 @@ fn lex_leader_clauses(n: usize, r: usize, variables: usize, clauses: &mut Vec<Ve
     (n - 1) * per_pair
 }
 
-/// At most `k` edges of `colour` at vertex `v` (sequential counter, auxiliaries
-/// after `variables`). Returns the auxiliaries used.
-fn at_most_k_clauses(
-    n: usize,
-    r: usize,
-    v: usize,
-    colour: usize,
-    k: usize,
-    variables: usize,
-    clauses: &mut Vec<Vec<i32>>,
-) -> usize {
-    let xs: Vec<i32> = (0..n).filter(|&u| u != v).map(|u| lit(r, v, u, colour)).collect();
+/// At most `k` of the literals `xs` true (sequential counter, auxiliaries after
+/// `variables`). Returns the auxiliaries used.
+fn at_most_k_clauses(xs: &[i32], k: usize, variables: usize, clauses: &mut Vec<Vec<i32>>) -> usize {
     if k == 0 {
         clauses.extend(xs.iter().map(|&x| vec![-x]));
         return 0;

@@ -6,12 +6,12 @@
 //! {0,n−1}, {1,2}, …), after comment lines starting with `#` that state the
 //! specification and the count.
 
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 use std::sync::atomic::AtomicBool;
 
 use anyhow::{Context, Result};
 use clap::Args;
-use ramsift_encoder::{SymmetryChoice, SymmetrySet};
+use ramsift_encoder::{Colouring, Instance, SymmetryChoice, SymmetrySet};
 
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::exit_codes;
@@ -55,13 +55,10 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         "--out - and --json both want standard output; give --out a file"
     );
     // The search holds the whole formula (with lex-leader, a small addition).
-    args.instance.fits(
-        &args
-            .instance
-            .encoding(&SymmetryChoice::Schemes(SymmetrySet::none()))?,
-        &instance.to_string(),
-        1,
-    )?;
+    let plain = args
+        .instance
+        .encoding(&SymmetryChoice::Schemes(SymmetrySet::none()))?;
+    args.instance.fits(&plain, &instance.to_string(), 1)?;
     let timeout = timeout_of(args.timeout)?;
     let line = ProgressLine::new(args.quiet);
     let stop = AtomicBool::new(false);
@@ -83,10 +80,9 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         },
     )?;
     line.finish();
-    let up_to = if args.swap_colours {
-        "vertex relabelling and permutation of equal colours"
-    } else {
-        "vertex relabelling"
+    let up_to = match args.swap_colours {
+        true => "vertex relabelling and permutation of equal colours",
+        false => "vertex relabelling",
     };
     let mut summary = EnumerateRecord {
         instance: instance.to_string(),
@@ -100,22 +96,7 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         colourings: result.classes.iter().map(colouring_rows).collect(),
     };
     if result.complete {
-        // Two colours: graph6, one graph a line (it has no comment lines). More
-        // colours: a stream of colouring files, which ramsift-check and draw read.
-        let mut text = String::new();
-        let total = result.classes.len();
-        for (k, colouring) in result.classes.iter().enumerate() {
-            if instance.colours() == 2 {
-                text.push_str(&colour_one_graph6(colouring));
-                text.push('\n');
-            } else {
-                let note = format!(
-                    "class {} of {total} colourings of {instance} up to {up_to}",
-                    k + 1
-                );
-                text.push_str(&colouring_text(&instance, colouring, &[note]));
-            }
-        }
+        let text = classes_text(&instance, &result.classes, up_to);
         if to_stdout {
             print!("{text}");
         } else {
@@ -124,12 +105,12 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
             summary.file = Some(args.out.clone());
         }
     }
+    let code = if result.complete {
+        exit_codes::SUCCESS
+    } else {
+        exit_codes::UNKNOWN
+    };
     if args.json {
-        let code = if result.complete {
-            exit_codes::SUCCESS
-        } else {
-            exit_codes::UNKNOWN
-        };
         print_record(
             &summary,
             if result.complete {
@@ -139,26 +120,51 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
             },
             code,
         )?;
-    } else if result.complete && to_stdout {
+    } else {
+        print_enumeration_text(&summary, &args.out, to_stdout);
+    }
+    Ok(code)
+}
+
+/// The classes as written: for two colours graph6, one graph a line (it has no
+/// comment lines); for more, a stream of colouring files, which ramsift-check and
+/// draw read.
+fn classes_text(instance: &Instance, classes: &[Colouring], up_to: &str) -> String {
+    let mut text = String::new();
+    for (k, colouring) in classes.iter().enumerate() {
+        if instance.colours() == 2 {
+            text.push_str(&colour_one_graph6(colouring));
+            text.push('\n');
+        } else {
+            let note = format!(
+                "class {} of {} colourings of {instance} up to {up_to}",
+                k + 1,
+                classes.len()
+            );
+            text.push_str(&colouring_text(instance, colouring, &[note]));
+        }
+    }
+    text
+}
+
+/// The account on stdout (or stderr, when the classes went to stdout).
+fn print_enumeration_text(summary: &EnumerateRecord, out: &Path, to_stdout: bool) {
+    let (instance, up_to) = (&summary.instance, summary.up_to);
+    if summary.complete && to_stdout {
         eprintln!(
             "{} colouring(s) of {instance} up to {up_to} written to standard output ({:.2}s)",
             summary.classes, summary.seconds
         );
-    } else if result.complete {
+    } else if summary.complete {
         println!(
             "{} colouring(s) of {instance} up to {up_to} ({} labelled colourings enumerated under {}, {:.2}s)",
             summary.classes, summary.labelled_models_enumerated, summary.symmetry, summary.seconds
         );
-        println!("wrote {}", args.out.display());
+        println!("wrote {}", out.display());
     } else {
         println!(
             "UNKNOWN {instance}: the time ran out after {} classes ({} colourings enumerated); nothing written",
             summary.classes, summary.labelled_models_enumerated
         );
     }
-    Ok(if result.complete {
-        exit_codes::SUCCESS
-    } else {
-        exit_codes::UNKNOWN
-    })
 }

@@ -16,10 +16,12 @@ use std::collections::HashMap;
 use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
-use varisat::{ExtendFormula, Lit};
+use varisat::{ExtendFormula, Lit, Solver};
 
 use ramsift_encoder::edges::edge_index;
-use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, Scheme, SymmetrySet};
+use ramsift_encoder::{
+    Colouring, EncodingLimits, Instance, RamseyEncoding, Scheme, SymmetrySet, VariableMap,
+};
 
 use crate::certify::witness_check::verify_witness;
 use crate::search::interrupt::{limited_solver, SinkReport};
@@ -49,6 +51,44 @@ pub struct Enumeration {
 }
 
 /// Enumerates the colourings of `instance` up to isomorphism; `progress(models,
+/// Gives every clause of the encoding to the solver.
+fn load_encoding(solver: &mut Solver<'_>, encoding: &RamseyEncoding) {
+    let mut buffer = Vec::new();
+    encoding
+        .for_each_clause::<()>(|clause| {
+            buffer.clear();
+            buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
+            solver.add_clause(&buffer);
+            Ok(())
+        })
+        .expect("adding clauses cannot fail");
+}
+
+/// The colouring of the solver's model, and a clause that blocks exactly it
+/// (some edge must take another colour) added to the solver.
+fn take_model(solver: &mut Solver<'_>, vars: &VariableMap) -> Colouring {
+    let colour_vars = vars.colour_variable_count();
+    let mut values = vec![false; colour_vars + 1];
+    for lit in solver.model().unwrap_or_default() {
+        let v = lit.var().to_dimacs() as usize;
+        if v <= colour_vars {
+            values[v] = lit.is_positive();
+        }
+    }
+    let colouring = vars.decode(|v| values[v]);
+    let n = vars.order();
+    let block: Vec<Lit> = (0..n)
+        .flat_map(|j| (0..j).map(move |i| (i, j)))
+        .map(|(i, j)| {
+            Lit::from_dimacs(
+                -(vars.colour_literal(edge_index(i, j), colouring.colour(i, j) as usize) as isize),
+            )
+        })
+        .collect();
+    solver.add_clause(&block);
+    colouring
+}
+
 /// classes)` is called after each model.
 pub fn enumerate(
     instance: &Instance,
@@ -62,21 +102,12 @@ pub fn enumerate(
     let encoding = RamseyEncoding::with_symmetry(instance, &symmetry, &EncodingLimits::default())?;
     debug_assert!(!symmetry.contains(Scheme::DegreeBounds));
     let vars = *encoding.variables();
-    let colour_vars = vars.colour_variable_count();
     let n = instance.order();
     let r = instance.colours();
 
     let report = SinkReport::default();
     let mut solver = limited_solver(stop, deadline, &report);
-    let mut buffer = Vec::new();
-    encoding
-        .for_each_clause::<()>(|clause| {
-            buffer.clear();
-            buffer.extend(clause.iter().map(|&l| Lit::from_dimacs(l as isize)));
-            solver.add_clause(&buffer);
-            Ok(())
-        })
-        .expect("adding clauses cannot fail");
+    load_encoding(&mut solver, &encoding);
 
     let classes_of: Vec<String> = instance
         .spec()
@@ -103,25 +134,8 @@ pub fn enumerate(
             Err(_) if report.reason.get().is_some() => break,
             Err(e) => return Err(SearchError::Backend(e.to_string())),
         }
-        let model = solver.model().unwrap_or_default();
-        let mut values = vec![false; colour_vars + 1];
-        for lit in &model {
-            let v = lit.var().to_dimacs() as usize;
-            if v <= colour_vars {
-                values[v] = lit.is_positive();
-            }
-        }
-        let colouring = vars.decode(|v| values[v]);
+        let colouring = take_model(&mut solver, &vars);
         models += 1;
-        // Block exactly this colouring: some edge must take another colour.
-        let mut block = Vec::new();
-        for j in 0..n {
-            for i in 0..j {
-                let lit = vars.colour_literal(edge_index(i, j), colouring.colour(i, j) as usize);
-                block.push(Lit::from_dimacs(-(lit as isize)));
-            }
-        }
-        solver.add_clause(&block);
         let table = ColourTable::from_fn(n, |i, j| colouring.colour(i, j));
         let form = canonical_form(&table, &maps);
         if let std::collections::hash_map::Entry::Vacant(slot) = seen.entry(form) {

@@ -154,9 +154,8 @@ pub fn merge_counted(
     shards_copied: &AtomicUsize,
 ) -> Result<MergeReport, ShardError> {
     let plan = Plan::read(plan_dir)?;
-    let plan_path = plan_dir.join(PLAN_FILE);
     let plan_sha256 = plan_sha256(plan_dir).ok_or_else(|| ShardError::NotAPlan {
-        path: plan_path.clone(),
+        path: plan_dir.join(PLAN_FILE),
         message: "it cannot be read to be hashed".into(),
     })?;
     let results = finished_results(plan_dir, &plan, &plan_sha256)?;
@@ -168,72 +167,22 @@ pub fn merge_counted(
         FileRecord::of(out_dir, FORMULA_FILE, "formula", "DIMACS CNF, gzip")
             .map_err(ShardError::io(&formula_path))?,
     ];
-    let mut written = vec![formula_path];
-    let composed_path = out_dir.join(COMPOSED_FILE);
-    let composed = match single_trace {
-        true => Some(
-            tempfile::Builder::new()
-                .prefix(".proof.")
-                .suffix(".tmp")
-                .tempfile_in(out_dir)
-                .map_err(ShardError::io(out_dir))?,
-        ),
-        false => None,
-    };
-    let mut composer = match &composed {
-        Some(f) => Some(BufWriter::with_capacity(
-            1 << 20,
-            f.as_file().try_clone().map_err(ShardError::io(out_dir))?,
-        )),
-        None => None,
-    };
+    let mut composer = single_trace.then(|| Composer::start(out_dir)).transpose()?;
     let (mut shard_seconds, mut trace_bytes) = (0.0, 0);
     for (cube, result) in plan.cubes.iter().zip(&results) {
         shard_seconds += result.seconds;
-        let record = take_in_shard(
-            plan_dir,
-            out_dir,
-            cube,
-            result,
-            composer.as_mut().map(|w| w as &mut dyn Write),
-        )?;
+        let out = composer.as_mut().map(|c| &mut c.writer as &mut dyn Write);
+        let record = take_in_shard(plan_dir, out_dir, cube, result, out)?;
         trace_bytes += record.bytes;
-        written.push(out_dir.join(&record.name));
         files.push(record);
         shards_copied.fetch_add(1, Ordering::Relaxed);
     }
-    let plan_copy = std::fs::read(&plan_path).map_err(ShardError::io(&plan_path))?;
-    let plan_out = out_dir.join(PLAN_FILE);
-    write_atomically(&plan_out, |w| w.write_all(&plan_copy)).map_err(ShardError::io(&plan_out))?;
-    files.push(FileRecord::of_bytes(
-        PLAN_FILE,
-        "plan",
-        "ramsift plan (JSON)",
-        &plan_copy,
-    ));
-    written.push(plan_out);
-    let mut composed_trace = None;
-    if let (Some(mut w), Some(file)) = (composer, composed) {
-        compose_tree(&plan.tree, &mut Vec::new(), &mut w)
-            .map_err(ShardError::io(&composed_path))?;
-        w.flush().map_err(ShardError::io(&composed_path))?;
-        w.get_ref()
-            .sync_all()
-            .map_err(ShardError::io(&composed_path))?;
-        drop(w);
-        file.persist(&composed_path)
-            .map_err(|e| ShardError::io(&composed_path)(e.error))?;
-        let record = FileRecord::of(
-            out_dir,
-            COMPOSED_FILE,
-            "drat-proof",
-            "binary DRAT, composed from the shards",
-        )
-        .map_err(ShardError::io(&composed_path))?;
-        files.push(record);
-        written.push(composed_path.clone());
-        composed_trace = Some(composed_path);
+    files.push(copy_plan(plan_dir, out_dir)?);
+    if let Some(composer) = composer {
+        files.push(composer.finish(&plan.tree, out_dir)?);
     }
+    let composed_trace = single_trace.then(|| out_dir.join(COMPOSED_FILE));
+    let mut written: Vec<PathBuf> = files.iter().map(|f| out_dir.join(&f.name)).collect();
     let sharding = ShardingRecord {
         shards: plan.cubes.len(),
         tree: plan.tree.clone(),
@@ -241,13 +190,13 @@ pub fn merge_counted(
     let manifest = Manifest::new(&encoding, files, shard_seconds, Some(sharding));
     written.extend(write_manifest_and_guide(out_dir, &manifest).map_err(ShardError::io(out_dir))?);
     if certify {
-        let options = RefuteOptions::default();
+        let (options, stop) = (RefuteOptions::default(), AtomicBool::new(false));
         written.extend(certify_premises(
             &manifest.premises,
             encoding.symmetry(),
             out_dir,
             &options,
-            &AtomicBool::new(false),
+            &stop,
         )?);
         write_guide(out_dir, &manifest).map_err(ShardError::io(out_dir))?;
     }
@@ -257,6 +206,67 @@ pub fn merge_counted(
         trace_bytes,
         composed_trace,
     })
+}
+
+/// Copies plan.json into the bundle.
+fn copy_plan(plan_dir: &Path, out_dir: &Path) -> Result<FileRecord, ShardError> {
+    let plan_path = plan_dir.join(PLAN_FILE);
+    let plan_copy = std::fs::read(&plan_path).map_err(ShardError::io(&plan_path))?;
+    let plan_out = out_dir.join(PLAN_FILE);
+    write_atomically(&plan_out, |w| w.write_all(&plan_copy)).map_err(ShardError::io(&plan_out))?;
+    Ok(FileRecord::of_bytes(
+        PLAN_FILE,
+        "plan",
+        "ramsift plan (JSON)",
+        &plan_copy,
+    ))
+}
+
+/// The composed single trace, written to a temporary file in the bundle while the
+/// shards are taken in, and renamed into place when complete.
+struct Composer {
+    file: tempfile::NamedTempFile,
+    writer: BufWriter<std::fs::File>,
+}
+
+impl Composer {
+    fn start(out_dir: &Path) -> Result<Composer, ShardError> {
+        let file = tempfile::Builder::new()
+            .prefix(".proof.")
+            .suffix(".tmp")
+            .tempfile_in(out_dir)
+            .map_err(ShardError::io(out_dir))?;
+        let handle = file
+            .as_file()
+            .try_clone()
+            .map_err(ShardError::io(out_dir))?;
+        Ok(Composer {
+            file,
+            writer: BufWriter::with_capacity(1 << 20, handle),
+        })
+    }
+
+    /// Appends the coverage tree's lemmas and puts the trace in place.
+    fn finish(mut self, tree: &PlanTree, out_dir: &Path) -> Result<FileRecord, ShardError> {
+        let path = out_dir.join(COMPOSED_FILE);
+        compose_tree(tree, &mut Vec::new(), &mut self.writer).map_err(ShardError::io(&path))?;
+        self.writer.flush().map_err(ShardError::io(&path))?;
+        self.writer
+            .get_ref()
+            .sync_all()
+            .map_err(ShardError::io(&path))?;
+        drop(self.writer);
+        self.file
+            .persist(&path)
+            .map_err(|e| ShardError::io(&path)(e.error))?;
+        FileRecord::of(
+            out_dir,
+            COMPOSED_FILE,
+            "drat-proof",
+            "binary DRAT, composed from the shards",
+        )
+        .map_err(ShardError::io(&path))
+    }
 }
 
 /// Reads shard `cube`'s trace once: checks it against its result record, copies

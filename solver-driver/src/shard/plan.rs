@@ -266,6 +266,32 @@ fn set_estimated_shares(cubes: &mut [Cube]) {
     }
 }
 
+/// Replaces leaf `target` (whose cube is `cube`) by a split on `best.var` with
+/// its two branches as new leaves.
+fn split_leaf(nodes: &mut Vec<Node>, target: usize, cube: Vec<i32>, best: Lookahead) {
+    let var = best.var;
+    let mut positive_cube = cube.clone();
+    positive_cube.push(var);
+    let mut negative_cube = cube;
+    negative_cube.push(-var);
+    let (positive, negative) = (nodes.len(), nodes.len() + 1);
+    for (cube, (free, refuted)) in [
+        (positive_cube, best.positive),
+        (negative_cube, best.negative),
+    ] {
+        nodes.push(Node::Leaf {
+            cube,
+            free,
+            refuted,
+        });
+    }
+    nodes[target] = Node::Split {
+        var,
+        positive,
+        negative,
+    };
+}
+
 /// Plans `shards` cubes for the encoding (fewer if the tree cannot grow further).
 pub fn plan_cubes(encoding: &RamseyEncoding, shards: usize, formula_sha256: String) -> Plan {
     plan_cubes_counted(
@@ -318,33 +344,7 @@ pub fn plan_cubes_counted(
         let Some(best) = best_split(&propagator, &cube, colour_variables, sample) else {
             break;
         };
-        let Lookahead {
-            var,
-            positive: pos,
-            negative: neg,
-            ..
-        } = best;
-        let mut positive_cube = cube.clone();
-        positive_cube.push(var);
-        let mut negative_cube = cube;
-        negative_cube.push(-var);
-        let positive = nodes.len();
-        nodes.push(Node::Leaf {
-            cube: positive_cube,
-            free: pos.0,
-            refuted: pos.1,
-        });
-        let negative = nodes.len();
-        nodes.push(Node::Leaf {
-            cube: negative_cube,
-            free: neg.0,
-            refuted: neg.1,
-        });
-        nodes[target] = Node::Split {
-            var,
-            positive,
-            negative,
-        };
+        split_leaf(&mut nodes, target, cube, best);
         leaves += 1;
     }
 

@@ -8,7 +8,7 @@
 //! else in its directory is a partial run and is redone from scratch.
 
 use std::io::BufWriter;
-use std::path::Path;
+use std::path::{Path, PathBuf};
 use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
@@ -55,11 +55,7 @@ pub fn run_shard(
     if complete_result(plan_dir, index, &plan_sha256).is_some() {
         return Ok(ShardOutcome::AlreadyDone);
     }
-    let dir = shard_dir(plan_dir, index);
-    if dir.exists() {
-        std::fs::remove_dir_all(&dir).map_err(ShardError::io(&dir))?;
-    }
-    std::fs::create_dir_all(&dir).map_err(ShardError::io(&dir))?;
+    let dir = fresh_shard_dir(plan_dir, index)?;
     let encoding = plan.encoding()?;
     let formula = Formula::from_encoding(&encoding);
     let trace = tempfile::Builder::new()
@@ -100,12 +96,7 @@ pub fn run_shard(
     match report.outcome {
         AttemptOutcome::Stopped(_) => return Ok(ShardOutcome::Unknown),
         AttemptOutcome::Unsatisfiable => {
-            trace.as_file().sync_all().map_err(ShardError::io(&dir))?;
-            let proof_path = dir.join(SHARD_PROOF_FILE);
-            trace
-                .persist(&proof_path)
-                .map_err(|e| ShardError::io(&proof_path)(e.error))?;
-            let (sha, bytes) = hash_file(&proof_path).map_err(ShardError::io(&proof_path))?;
+            let (sha, bytes) = persist_trace(trace, &dir)?;
             result.proof_file = Some(SHARD_PROOF_FILE.into());
             result.proof_sha256 = Some(sha);
             result.proof_bytes = Some(bytes);
@@ -120,6 +111,27 @@ pub fn run_shard(
         ShardStatus::Found => ShardOutcome::Found,
         ShardStatus::Refuted => ShardOutcome::Refuted,
     })
+}
+
+/// The shard's directory, emptied of any partial run.
+fn fresh_shard_dir(plan_dir: &Path, index: usize) -> Result<PathBuf, ShardError> {
+    let dir = shard_dir(plan_dir, index);
+    if dir.exists() {
+        std::fs::remove_dir_all(&dir).map_err(ShardError::io(&dir))?;
+    }
+    std::fs::create_dir_all(&dir).map_err(ShardError::io(&dir))?;
+    Ok(dir)
+}
+
+/// Flushes the finished trace to disk and renames it to `proof.drat`; returns its
+/// SHA-256 and size.
+fn persist_trace(trace: tempfile::NamedTempFile, dir: &Path) -> Result<(String, u64), ShardError> {
+    trace.as_file().sync_all().map_err(ShardError::io(dir))?;
+    let proof_path = dir.join(SHARD_PROOF_FILE);
+    trace
+        .persist(&proof_path)
+        .map_err(|e| ShardError::io(&proof_path)(e.error))?;
+    hash_file(&proof_path).map_err(ShardError::io(&proof_path))
 }
 
 /// Checks a colouring found under a cube (the counterexample to the claim) and
