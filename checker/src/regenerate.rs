@@ -236,8 +236,10 @@ fn lex_leader_clauses(n: usize, r: usize, variables: usize, clauses: &mut Vec<Ve
     (n - 1) * per_pair
 }
 
-/// At most `k` of the literals `xs` true (sequential counter, auxiliaries after
-/// `variables`). Returns the auxiliaries used.
+/// At most `k` of the literals `xs` true (Sinz's sequential counter, auxiliaries
+/// after `variables`). Returns the auxiliaries used. A deliberate copy of the
+/// encoder's counter (encoder/src/symmetry/degree_bounds.rs), written apart so
+/// that a bug in one is not shared by the other.
 fn at_most_k_clauses(xs: &[i32], k: usize, variables: usize, clauses: &mut Vec<Vec<i32>>) -> usize {
     if k == 0 {
         clauses.extend(xs.iter().map(|&x| vec![-x]));

@@ -10,6 +10,7 @@
 //!   have to be held in memory.
 //! * [`symmetry`] adds named, documented symmetry-breaking constraints.
 //! * [`dimacs`] writes the stream as DIMACS CNF, with a self-describing header.
+//! * [`published`] is the one table of published Ramsey values and ranges.
 
 pub mod atomic_file;
 pub mod clauses;
@@ -18,6 +19,7 @@ pub mod combinations;
 pub mod dimacs;
 pub mod edges;
 pub mod graphs;
+pub mod published;
 pub mod spec;
 pub mod symmetry;
 pub mod variables;

@@ -22,27 +22,18 @@ use varisat::{ExtendFormula, Lit, Solver};
 const DEFAULT_INSTANCES: &[&str] = &["4,4:17", "3,5:13", "3,6:17", "3,7:22", "3,3,3:16", "4,5:24"];
 
 fn main() {
-    let args: Vec<String> = std::env::args().skip(1).collect();
-    if args.first().map(String::as_str) == Some("plain") {
-        plain(&args[1], args[2].parse().unwrap());
+    let raw: Vec<String> = std::env::args().skip(1).collect();
+    if raw.first().map(String::as_str) == Some("plain") {
+        plain(&raw[1], raw[2].parse().unwrap());
         return;
     }
-    let mut repeats = 5;
-    let mut cap = 60.0;
-    let mut method = "sat".to_string();
-    let mut instances: Vec<String> = Vec::new();
-    let mut it = args.iter();
-    while let Some(a) = it.next() {
-        match a.as_str() {
-            "--repeats" => repeats = it.next().unwrap().parse().unwrap(),
-            "--cap" => cap = it.next().unwrap().parse().unwrap(),
-            "--method" => method = it.next().unwrap().clone(),
-            other => instances.push(other.to_string()),
-        }
-    }
-    if instances.is_empty() {
-        instances = DEFAULT_INSTANCES.iter().map(|s| s.to_string()).collect();
-    }
+    let args = bench_util::BenchArgs::read(60.0, 5, DEFAULT_INSTANCES);
+    let (cap, repeats, method) = (
+        args.cap,
+        args.repeats,
+        args.option("method").unwrap_or("sat").to_string(),
+    );
+    let instances = args.instances;
     let ramsift = bench_util::release_dir().join("ramsift");
     println!("| instance | find median (s) | find runs answered | plain varisat median (s) | plain answered | plain / find |");
     println!("|---|---|---|---|---|---|");

@@ -13,21 +13,12 @@ use std::process::Command;
 const DEFAULT_INSTANCES: &[&str] = &["4,5:24", "3,8:27", "3,9:35", "4,6:34", "5,5:41", "3,3,3:16"];
 
 fn main() {
-    let args: Vec<String> = std::env::args().skip(1).collect();
-    let mut repeats = 3;
-    let mut cap = 60.0;
-    let mut instances: Vec<String> = Vec::new();
-    let mut it = args.iter();
-    while let Some(a) = it.next() {
-        match a.as_str() {
-            "--repeats" => repeats = it.next().unwrap().parse().unwrap(),
-            "--cap" => cap = it.next().unwrap().parse().unwrap(),
-            other => instances.push(other.to_string()),
-        }
-    }
-    if instances.is_empty() {
-        instances = DEFAULT_INSTANCES.iter().map(|s| s.to_string()).collect();
-    }
+    let bench_util::BenchArgs {
+        cap,
+        repeats,
+        instances,
+        ..
+    } = bench_util::BenchArgs::read(60.0, 3, DEFAULT_INSTANCES);
     let release = bench_util::release_dir();
     let ramsift = release.join("ramsift");
     let bench_find = release.join("examples").join("bench_find");

@@ -18,28 +18,13 @@ const DEFAULT_INSTANCES: &[&str] = &[
 ];
 
 fn main() {
-    let args: Vec<String> = std::env::args().skip(1).collect();
-    let mut cap = 30.0;
-    let mut repeats = 3;
-    let mut instances: Vec<String> = Vec::new();
-    let mut it = args.iter();
-    while let Some(a) = it.next() {
-        match a.as_str() {
-            "--cap" => cap = it.next().unwrap().parse().unwrap(),
-            "--repeats" => repeats = it.next().unwrap().parse().unwrap(),
-            other => instances.push(other.to_string()),
-        }
-    }
-    if instances.is_empty() {
-        instances = DEFAULT_INSTANCES.iter().map(|s| s.to_string()).collect();
-    }
-    let bin = std::env::current_exe()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .to_path_buf();
+    let bench_util::BenchArgs {
+        cap,
+        repeats,
+        instances,
+        ..
+    } = bench_util::BenchArgs::read(30.0, 3, DEFAULT_INSTANCES);
+    let bin = bench_util::release_dir();
     let scratch = tempfile::tempdir().unwrap();
     println!("| instance | symmetry | refute median (s) | check median (s) | check / refute | trace (bytes) | plain varisat (s) |");
     println!("|---|---|---|---|---|---|---|");
@@ -57,20 +42,8 @@ fn main() {
             let mut trace_bytes = 0;
             for r in 0..repeats {
                 let out = scratch.path().join(format!("{spec}-{n}-{symmetry}-{r}"));
-                let mut cmd = Command::new(bin.join("ramsift"));
-                cmd.args([
-                    "refute",
-                    spec,
-                    n,
-                    "--symmetry",
-                    &symmetry,
-                    "--assume-premises",
-                    "-q",
-                    "--timeout",
-                    &cap.to_string(),
-                    "--out",
-                ]);
-                cmd.arg(&out);
+                let mut cmd = bench_util::refute_command(spec, n, &symmetry, &out);
+                cmd.args(["--timeout", &cap.to_string()]);
                 let (t, code) = bench_util::timed(cmd, cap + 10.0);
                 if code != Some(20) {
                     refute_times.clear();

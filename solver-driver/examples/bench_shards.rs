@@ -14,27 +14,13 @@ use std::time::Instant;
 const DEFAULT: &[&str] = &["4,4:18:16", "3,6:18:64", "3,7:23:64"];
 
 fn main() {
-    let args: Vec<String> = std::env::args().skip(1).collect();
-    let mut symmetry = "colour-swap,lex-leader".to_string();
-    let mut cases: Vec<String> = Vec::new();
-    let mut it = args.iter();
-    while let Some(a) = it.next() {
-        if a == "--symmetry" {
-            symmetry = it.next().unwrap().clone();
-        } else {
-            cases.push(a.clone());
-        }
-    }
-    if cases.is_empty() {
-        cases = DEFAULT.iter().map(|s| s.to_string()).collect();
-    }
-    let bin = std::env::current_exe()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .parent()
-        .unwrap()
-        .join("ramsift");
+    let args = bench_util::BenchArgs::read(0.0, 1, DEFAULT);
+    let symmetry = args
+        .option("symmetry")
+        .unwrap_or("colour-swap,lex-leader")
+        .to_string();
+    let cases = args.instances;
+    let bin = bench_util::release_dir().join("ramsift");
     let scratch = tempfile::tempdir().unwrap();
     println!("symmetry: {symmetry}\n");
     println!("| instance | shards | plan (s) | shard local wall (s) | shard times min / median / p90 / max (s) | sum of shard times (s) | unsharded refute (s) | speed-up (unsharded / local) | shard traces (bytes) | unsharded trace (bytes) |");
@@ -83,18 +69,7 @@ fn main() {
         let q = |f: f64| times[((times.len() - 1) as f64 * f).round() as usize];
         let single = scratch.path().join(format!("single-{spec}-{n}"));
         let t = Instant::now();
-        let o = Command::new(&bin)
-            .args([
-                "refute",
-                spec,
-                n,
-                "--symmetry",
-                &symmetry,
-                "--assume-premises",
-                "-q",
-                "--out",
-            ])
-            .arg(&single)
+        let o = bench_util::refute_command(spec, n, &symmetry, &single)
             .output()
             .unwrap();
         assert_eq!(

@@ -17,7 +17,7 @@
 //!               ¬x_m ∨ ¬s_{m-1,K}
 //! ```
 
-use super::known_values::{upper_bound, BoundReason};
+use crate::published::{upper_bound, BoundReason};
 use crate::spec::Instance;
 use crate::variables::VariableMap;
 

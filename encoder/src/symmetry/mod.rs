@@ -11,7 +11,6 @@
 
 pub mod colour_swap;
 pub mod degree_bounds;
-pub mod known_values;
 pub mod lex_leader;
 
 use std::fmt;

@@ -5,10 +5,10 @@
 //!   1975 local-lemma bound, decided exactly with big integers.
 //! * [`recursion`]: upper bounds from R(s,t) ≤ R(s−1,t) + R(s,t−1) (one less when
 //!   both are even) and its multicolour form, and Erdős–Szekeres.
-//! * [`published`]: the embedded table of published values and ranges.
+//! * the published values and ranges come from the encoder's one table
+//!   (`ramsift_encoder::published`), which degree bounds also use.
 //! * [`certified`]: bundles and witnesses found on disk, checked by the checker.
 
 pub mod certified;
 pub mod probabilistic;
-pub mod published;
 pub mod recursion;

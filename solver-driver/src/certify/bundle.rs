@@ -9,7 +9,7 @@ use std::path::{Path, PathBuf};
 use serde::Serialize;
 use sha2::{Digest, Sha256};
 
-use ramsift_encoder::atomic_file::write_atomically;
+use crate::output::json_file::write_json;
 use ramsift_encoder::RamseyEncoding;
 
 pub const MANIFEST_FILE: &str = "manifest.json";
@@ -248,11 +248,7 @@ pub fn premise_folder(premise: &PremiseRecord) -> String {
 /// Writes the manifest and the guide.
 pub fn write_manifest_and_guide(dir: &Path, manifest: &Manifest) -> io::Result<Vec<PathBuf>> {
     let manifest_path = dir.join(MANIFEST_FILE);
-    let json = serde_json::to_string_pretty(manifest).map_err(io::Error::other)?;
-    write_atomically(&manifest_path, |w| {
-        w.write_all(json.as_bytes())
-            .and_then(|_| w.write_all(b"\n"))
-    })?;
+    write_json(&manifest_path, manifest)?;
     Ok(vec![
         manifest_path,
         super::referee_guide::write_guide(dir, manifest)?,

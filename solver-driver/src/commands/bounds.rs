@@ -10,10 +10,10 @@ use super::record::print_record;
 use ramsift_checker::Claim;
 use ramsift_driver::bounds::certified::certificates;
 use ramsift_driver::bounds::probabilistic::{deletion_lower, erdos_lower, spencer_lower};
-use ramsift_driver::bounds::published::{exact, published};
 use ramsift_driver::bounds::recursion::{erdos_szekeres, recursive_upper};
 use ramsift_driver::exit_codes;
 use ramsift_driver::output::records::{BoundsRecord, BoundsRow};
+use ramsift_encoder::published::{exact, published};
 use ramsift_encoder::RamseySpec;
 
 /// Orders searched by the probabilistic bounds.

@@ -1,5 +1,7 @@
 //! The SPEC N arguments shared by the subcommands, and turning them into an encoding.
 
+use std::path::PathBuf;
+
 use anyhow::{Context, Result};
 use clap::Args;
 
@@ -71,6 +73,24 @@ impl InstanceArgs {
             solvers,
             limit,
         )
+    }
+}
+
+/// `--out DIR` and `--force`, shared by the commands that write a directory.
+#[derive(Args, Clone, Debug)]
+pub struct OutDirArgs {
+    /// The directory to write (created if needed): the bundle, or the plan.
+    #[arg(long, value_name = "DIR")]
+    pub out: PathBuf,
+    /// Clear the output directory first if it holds anything (otherwise it is refused).
+    #[arg(long)]
+    pub force: bool,
+}
+
+impl OutDirArgs {
+    /// Makes the directory ready to be written (see `output::dir::prepare`).
+    pub fn prepare(&self) -> Result<()> {
+        Ok(ramsift_driver::output::dir::prepare(&self.out, self.force)?)
     }
 }
 

@@ -15,7 +15,7 @@ use ramsift_driver::output::records::{
 };
 use ramsift_driver::output::witness::{colouring_text, write_witness_files};
 
-use super::instance_args::{timeout_of, InstanceArgs};
+use super::instance_args::{timeout_of, InstanceArgs, OutDirArgs};
 use super::progress::{seconds, ProgressLine};
 use super::record::print_record;
 
@@ -23,12 +23,8 @@ use super::record::print_record;
 pub struct RefuteArgs {
     #[command(flatten)]
     pub instance: InstanceArgs,
-    /// The bundle directory (created if needed).
-    #[arg(long, value_name = "DIR")]
-    pub out: PathBuf,
-    /// Clear the output directory first if it holds anything (otherwise it is refused).
-    #[arg(long)]
-    pub force: bool,
+    #[command(flatten)]
+    pub dir: OutDirArgs,
     /// Symmetry breaking: default (all three for cliques; colour-swap and lex-leader
     /// for other graphs, as degree bounds rest on clique Ramsey numbers; see
     /// BENCHMARKS.md for the measurements), none, or a comma list of colour-swap,
@@ -61,7 +57,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
-    ramsift_driver::output::dir::prepare(&args.out, args.force)?;
+    args.dir.prepare()?;
     let instance = encoding.instance().clone();
     let timeout = timeout_of(args.timeout)?;
     let options = RefuteOptions {
@@ -73,7 +69,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
     let bytes = AtomicU64::new(0);
     let line = ProgressLine::new(args.quiet);
     let report = line.run_while(
-        || refute(&encoding, &args.out, &options, &stop, &bytes),
+        || refute(&encoding, &args.dir.out, &options, &stop, &bytes),
         |elapsed| {
             format!(
                 "refuting {instance} [{}]: {} elapsed, {} MiB of DRAT trace",
@@ -95,11 +91,11 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                 files.extend(certify_premises(
                     &manifest.premises,
                     encoding.symmetry(),
-                    &args.out,
+                    &args.dir.out,
                     &options,
                     &stop,
                 )?);
-                ramsift_driver::certify::referee_guide::write_guide(&args.out, manifest)?;
+                ramsift_driver::certify::referee_guide::write_guide(&args.dir.out, manifest)?;
             }
             print_refuted(
                 args,
@@ -147,7 +143,7 @@ fn print_refuted(
         let record = RefutedRecord {
             instance: instance.to_string(),
             proves: manifest.claim.statement.clone(),
-            bundle: args.out.clone(),
+            bundle: args.dir.out.clone(),
             symmetry: manifest.encoding.symmetry.clone(),
             premises: manifest
                 .premises
@@ -183,8 +179,8 @@ fn print_found(
 ) -> Result<()> {
     let (spec, n) = (instance.spec(), instance.order());
     let comments = vec![format!("ramsift refute found a colouring: R({spec}) > {n}")];
-    let files = write_witness_files(&args.out, instance, colouring, &comments)
-        .with_context(|| format!("writing the witness into {}", args.out.display()))?;
+    let files = write_witness_files(&args.dir.out, instance, colouring, &comments)
+        .with_context(|| format!("writing the witness into {}", args.dir.out.display()))?;
     if args.json {
         let record = RefuteFoundRecord {
             instance: instance.to_string(),

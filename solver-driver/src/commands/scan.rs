@@ -8,11 +8,12 @@ use anyhow::{Context, Result};
 use clap::Args;
 
 use ramsift_driver::exit_codes;
+use ramsift_driver::output::json_file::write_json;
 use ramsift_driver::output::records::{colouring_rows, ScanFamilyRow, ScanOrderRow, ScanSummary};
 use ramsift_driver::output::witness::write_witness_files;
 use ramsift_driver::structured::scan::{scan, ScanReport};
 use ramsift_driver::structured::{FamilyChoice, FamilyOutcome, OrderReport, ScanVerdict};
-use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::atomic_file::ensure_dir;
 use ramsift_encoder::{Instance, RamseySpec};
 
 use super::progress::ProgressLine;
@@ -219,12 +220,7 @@ fn write_scan_outputs(
     }
     let path = dir.join("scan.json");
     summary.files.push(path.clone());
-    let json = serde_json::to_string_pretty(&summary)?;
-    write_atomically(&path, |w| {
-        w.write_all(json.as_bytes())
-            .and_then(|_| w.write_all(b"\n"))
-    })
-    .with_context(|| format!("writing {}", path.display()))?;
+    write_json(&path, &summary).with_context(|| format!("writing {}", path.display()))?;
     Ok(())
 }
 

@@ -23,7 +23,7 @@ use ramsift_driver::shard::{Plan, ShardError};
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
-use super::instance_args::{timeout_of, InstanceArgs};
+use super::instance_args::{timeout_of, InstanceArgs, OutDirArgs};
 use super::progress::{seconds, ProgressLine};
 use super::record::print_record;
 
@@ -50,12 +50,8 @@ pub struct PlanArgs {
     /// Number of shards (cubes).
     #[arg(long, default_value_t = 64)]
     pub shards: usize,
-    /// The plan directory.
-    #[arg(long, value_name = "DIR")]
-    pub out: PathBuf,
-    /// Clear the output directory first if it holds anything (otherwise it is refused).
-    #[arg(long)]
-    pub force: bool,
+    #[command(flatten)]
+    pub dir: OutDirArgs,
     /// Symmetry breaking (as for refute).
     #[arg(long, default_value = "default", value_name = "SCHEMES")]
     pub symmetry: SymmetryChoice,
@@ -127,12 +123,8 @@ pub struct StatusArgs {
 pub struct MergeArgs {
     /// The plan directory.
     pub plan: PathBuf,
-    /// The bundle directory to write.
-    #[arg(long, value_name = "DIR")]
-    pub out: PathBuf,
-    /// Clear the output directory first if it holds anything (otherwise it is refused).
-    #[arg(long)]
-    pub force: bool,
+    #[command(flatten)]
+    pub dir: OutDirArgs,
     /// Also compose one DRAT trace of the whole formula from the shard traces.
     #[arg(long)]
     pub single_trace: bool,
@@ -152,7 +144,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
         ShardCommand::Slurm(args) => slurm(args),
         ShardCommand::Status(args) => status(args),
         ShardCommand::Merge(args) => {
-            ramsift_driver::output::dir::prepare(&args.out, args.force)?;
+            args.dir.prepare()?;
             let copied = std::sync::atomic::AtomicUsize::new(0);
             let line = ProgressLine::new(args.json);
             let shards = Plan::read(&args.plan)?.cubes.len();
@@ -160,7 +152,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                 || {
                     merge_counted(
                         &args.plan,
-                        &args.out,
+                        &args.dir.out,
                         args.single_trace,
                         !args.assume_premises,
                         &copied,
@@ -178,7 +170,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                 let plan = Plan::read(&args.plan)?;
                 let record = ShardMergeRecord {
                     proves: format!("R({}) <= {}", plan.spec, plan.order),
-                    bundle: args.out.clone(),
+                    bundle: args.dir.out.clone(),
                     seconds: report.shard_seconds,
                     trace_bytes: report.trace_bytes,
                     composed_trace: report.composed_trace,
@@ -190,14 +182,17 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
             println!(
                 "merged {} into {}: shard time {:.2}s in all, {} bytes of shard traces",
                 args.plan.display(),
-                args.out.display(),
+                args.dir.out.display(),
                 report.shard_seconds,
                 report.trace_bytes
             );
             if let Some(t) = report.composed_trace {
                 println!("composed single trace {}", t.display());
             }
-            println!("check with: ramsift-check bundle {}", args.out.display());
+            println!(
+                "check with: ramsift-check bundle {}",
+                args.dir.out.display()
+            );
             Ok(exit_codes::NONE_EXISTS)
         }
     }
@@ -208,8 +203,8 @@ fn plan(args: &PlanArgs) -> Result<u8> {
     let encoding = args.instance.encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
-    ramsift_driver::output::dir::prepare(&args.out, args.force)?;
-    let formula_path = args.out.join("formula.cnf.gz");
+    args.dir.prepare()?;
+    let formula_path = args.dir.out.join("formula.cnf.gz");
     write_encoding_to(&encoding, &formula_path)?;
     let (sha, _) = ramsift_driver::certify::bundle::hash_file(&formula_path)?;
     let leaves = std::sync::atomic::AtomicUsize::new(0);
@@ -226,11 +221,11 @@ fn plan(args: &PlanArgs) -> Result<u8> {
             )
         },
     );
-    plan.write(&args.out)?;
+    plan.write(&args.dir.out)?;
     if args.json {
         let record = ShardPlanRecord {
             instance: encoding.instance().to_string(),
-            plan: args.out.clone(),
+            plan: args.dir.out.clone(),
             shards: plan.cubes.len(),
             symmetry: encoding.symmetry().to_string(),
             cubes: plan.cubes,
@@ -242,7 +237,7 @@ fn plan(args: &PlanArgs) -> Result<u8> {
         "planned {} as {} shards in {} [{}]",
         encoding.instance(),
         plan.cubes.len(),
-        args.out.display(),
+        args.dir.out.display(),
         encoding.symmetry()
     );
     println!(

@@ -4,7 +4,9 @@
 use std::io;
 use std::path::{Path, PathBuf};
 
-use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::atomic_file::ensure_dir;
+
+use super::json_file::write_json;
 
 use super::records::FindSummary;
 
@@ -15,10 +17,6 @@ pub const SUMMARY_FILE: &str = "summary.json";
 pub fn write_summary(dir: &Path, summary: &FindSummary) -> io::Result<PathBuf> {
     ensure_dir(dir)?;
     let path = dir.join(SUMMARY_FILE);
-    let json = serde_json::to_string_pretty(summary).map_err(io::Error::other)?;
-    write_atomically(&path, |w| {
-        w.write_all(json.as_bytes())
-            .and_then(|_| w.write_all(b"\n"))
-    })?;
+    write_json(&path, summary)?;
     Ok(path)
 }

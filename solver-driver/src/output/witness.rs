@@ -53,18 +53,6 @@ pub fn colouring_text(instance: &Instance, colouring: &Colouring, comments: &[St
     text
 }
 
-/// A colouring as matrix rows (0 on the diagonal), for JSON output.
-pub fn colouring_rows(colouring: &Colouring) -> Vec<Vec<u8>> {
-    let n = colouring.order();
-    (0..n)
-        .map(|i| {
-            (0..n)
-                .map(|j| if i == j { 0 } else { colouring.colour(i, j) })
-                .collect()
-        })
-        .collect()
-}
-
 /// Splits a stream of colouring files (as `enumerate` writes for three or more
 /// colours) into one text per colouring; each starts at its header line, and
 /// comment lines go with the colouring they precede.

@@ -11,13 +11,13 @@ use std::path::Path;
 
 use serde::{Deserialize, Serialize};
 
-use ramsift_encoder::atomic_file::write_atomically;
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
 
 use super::error::ShardError;
 use super::propagate::{Propagation, Propagator};
 use super::PLAN_FILE;
 use crate::certify::bundle::hash_file;
+use crate::output::json_file::write_json;
 use crate::search::formula::Formula;
 
 /// The identifier of the plan layout.
@@ -90,9 +90,7 @@ impl Plan {
     /// Writes the plan into a plan directory, atomically.
     pub fn write(&self, plan_dir: &Path) -> Result<(), ShardError> {
         let path = plan_dir.join(PLAN_FILE);
-        let json = serde_json::to_string_pretty(self)
-            .map_err(|e| ShardError::io(&path)(std::io::Error::other(e)))?;
-        write_atomically(&path, |w| w.write_all(json.as_bytes())).map_err(ShardError::io(&path))
+        write_json(&path, self).map_err(ShardError::io(&path))
     }
 
     /// Rebuilds the plan's encoding and checks it matches what the plan recorded.

@@ -7,11 +7,10 @@ use std::path::{Path, PathBuf};
 
 use serde::{Deserialize, Serialize};
 
-use ramsift_encoder::atomic_file::write_atomically;
-
 use super::error::ShardError;
 use super::{shard_dir, RESULT_FILE};
 use crate::certify::bundle::hash_file;
+use crate::output::json_file::write_json;
 
 /// The witness a shard writes when it finds a colouring (the claim is then false).
 pub const WITNESS_FILE: &str = "witness.colouring";
@@ -81,9 +80,5 @@ pub fn complete_result(plan_dir: &Path, index: usize, plan_sha256: &str) -> Opti
 /// Writes shard `result` into its directory, atomically.
 pub fn write_result(plan_dir: &Path, result: &ShardResult) -> Result<(), ShardError> {
     let path = shard_dir(plan_dir, result.index).join(RESULT_FILE);
-    let json = serde_json::to_string_pretty(result).map_err(|e| ShardError::Io {
-        path: path.clone(),
-        source: std::io::Error::other(e),
-    })?;
-    write_atomically(&path, |w| w.write_all(json.as_bytes())).map_err(ShardError::io(&path))
+    write_json(&path, result).map_err(ShardError::io(&path))
 }
