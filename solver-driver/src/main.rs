@@ -88,7 +88,9 @@ fn main() -> ExitCode {
             eprintln!("ramsift: error: {error:#}");
             // Under --json the error is JSON on stdout too, so scripts always get a record.
             if std::env::args().any(|a| a == "--json") {
-                let record = serde_json::json!({ "error": format!("{error:#}") });
+                let record = ramsift_driver::output::records::ErrorRecord {
+                    error: format!("{error:#}"),
+                };
                 let _ = commands::record::print_record(record, "error", exit_codes::BAD_INPUT);
             }
             ExitCode::from(exit_codes::BAD_INPUT)
