@@ -190,7 +190,13 @@ fn shards_of_a_graph_ramsey_refutation_merge_into_a_passing_bundle() {
         ]),
         0,
     );
-    assert!(out.contains("as 8 shards"), "{out}");
+    // The planner splits until 8 cubes are open or nothing is left to split: here
+    // lookahead settles every branch after two splits, so the plan is smaller.
+    let plan_json: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(plan.join("plan.json")).unwrap()).unwrap();
+    let cubes = plan_json["cubes"].as_array().unwrap().len();
+    assert!((2..=8).contains(&cubes), "{out}");
+    assert!(out.contains(&format!("as {cubes} shards")), "{out}");
     ok(&ramsift(&["shard", "local", s(&plan)]), 0);
     merge_and_check(&plan, &dir.path().join("bundle"), "R(C4,4) <= 10");
 }

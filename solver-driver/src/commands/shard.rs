@@ -47,7 +47,8 @@ pub enum ShardCommand {
 pub struct PlanArgs {
     #[command(flatten)]
     pub instance: InstanceArgs,
-    /// Number of shards (cubes).
+    /// Number of open cubes to plan (cubes that propagation does not refute; the
+    /// planner stops earlier when nothing is left to split).
     #[arg(long, default_value_t = 64)]
     pub shards: usize,
     #[command(flatten)]
@@ -214,7 +215,7 @@ fn plan(args: &PlanArgs) -> Result<u8> {
         |elapsed| {
             let so_far = leaves.load(Ordering::Relaxed);
             format!(
-                "planning {}: {so_far} of {} cubes, {} elapsed",
+                "planning {}: {so_far} of {} open cubes, {} elapsed",
                 encoding.instance(),
                 args.shards,
                 seconds(elapsed)
@@ -240,15 +241,23 @@ fn plan(args: &PlanArgs) -> Result<u8> {
         args.dir.out.display(),
         encoding.symmetry()
     );
+    let open = plan
+        .cubes
+        .iter()
+        .filter(|c| !c.refuted_by_propagation)
+        .count();
+    let fixed: usize = plan.cubes.iter().map(|c| c.lemmas.len()).sum();
+    println!("{open} open cubes; {fixed} lemmas from failed literals and settled branches");
     println!(
-        "{:>6} {:>6} {:>8} {:>10}  cube",
-        "shard", "size", "free", "est. share"
+        "{:>6} {:>6} {:>6} {:>8} {:>10}  cube",
+        "shard", "size", "lemmas", "free", "est. share"
     );
     for c in &plan.cubes {
         println!(
-            "{:>6} {:>6} {:>8} {:>9.1}%  {:?}{}",
+            "{:>6} {:>6} {:>6} {:>8} {:>9.1}%  {:?}{}",
             c.index,
             c.literals.len(),
+            c.lemmas.len(),
             c.free_variables,
             c.estimated_share_percent,
             c.literals,

@@ -20,6 +20,7 @@ use super::plan::{plan_sha256, Cube, Plan};
 use super::result::{complete_result, write_result, ShardResult, ShardStatus, WITNESS_FILE};
 use super::{shard_dir, PLAN_FILE, SHARD_PROOF_FILE};
 use crate::certify::bundle::hash_file;
+use crate::certify::drat_write::write_addition;
 use crate::certify::witness_check::verify_witness;
 use crate::output::witness::colouring_text;
 use crate::search::attempt::{run_attempt_with_proof, AttemptOutcome, AttemptPlan, ProofOutput};
@@ -65,12 +66,19 @@ pub fn run_shard(
         .map_err(ShardError::io(&dir))?;
     hold_for_tests();
     let started = Instant::now();
+    // The planner's lemmas open the trace, each RUP from the formula, the cube and
+    // the ones before it; the solver gets the unit ones.
+    let mut writer = BufWriter::with_capacity(1 << 20, trace.as_file());
+    for lemma in &cube.lemmas {
+        write_addition(&mut writer, lemma).map_err(ShardError::io(&dir))?;
+    }
+    let fixed = cube.lemmas.iter().filter(|c| c.len() == 1).map(|c| c[0]);
     let attempt = AttemptPlan {
-        units: cube.literals.clone(),
+        units: cube.literals.iter().copied().chain(fixed).collect(),
         ..AttemptPlan::default()
     };
     let proof = ProofOutput {
-        writer: BufWriter::with_capacity(1 << 20, trace.as_file()),
+        writer,
         text: false,
         bytes_seen: None,
     };
