@@ -124,3 +124,78 @@ fn one_clause_per_copy() {
         assert_eq!(sets.len() as u128, copies + k2, "{spec}: repeated copies");
     }
 }
+
+#[test]
+fn local_search_finds_a_witness_below_each_graph_value() {
+    use ramsift_driver::local::search::LocalProgress;
+    use ramsift_driver::local::{local_search, LocalOptions};
+    for value in GRAPH_VALUES {
+        let below = instance(value.spec, value.value - 1);
+        let options = LocalOptions {
+            threads: 2,
+            seed: 5,
+            timeout: Some(Duration::from_secs(60)),
+            ..LocalOptions::default()
+        };
+        let report = local_search(
+            &below,
+            &options,
+            &AtomicBool::new(false),
+            &LocalProgress::default(),
+        )
+        .unwrap();
+        let (colouring, _) = report.found.unwrap_or_else(|| {
+            panic!(
+                "{}: a colouring of K_{} exists ({})",
+                value.spec,
+                value.value - 1,
+                value.source
+            )
+        });
+        // Independent check: the checker's own claim parser and subgraph search.
+        let verdict =
+            ramsift_checker::check_colouring(&to_matrix(&colouring), &to_claim(below.spec()));
+        assert!(verdict.is_valid(), "{}: {verdict}", value.spec);
+    }
+}
+
+#[test]
+fn repair_mends_a_damaged_graph_colouring() {
+    use ramsift_driver::search::repair::{repair, Repair};
+    // A (C4,K4;9) colouring (R(C4,K4) = 10, Chvátal & Harary 1972; DS1, from memory)
+    // found by the SAT search, then damaged on one edge at a time until it has a
+    // monochromatic copy; repair at radius 0 or 1 must mend it.
+    let below = instance("C4,4", 9);
+    let encoding = RamseyEncoding::new(&below, &EncodingLimits::default()).unwrap();
+    let formula = Formula::from_encoding(&encoding);
+    let options = SearchOptions {
+        threads: 1,
+        seed: 3,
+        timeout: Some(Duration::from_secs(120)),
+        ..SearchOptions::default()
+    };
+    let job = SearchJob::new(below.clone(), SymmetrySet::none(), options);
+    let SearchResult::Found { colouring, .. } = search(&job, &formula, |_| {}).unwrap().result
+    else {
+        panic!("(C4,K4;9) has colourings");
+    };
+    let claim = to_claim(below.spec());
+    let mut near = colouring.clone();
+    'damage: for j in 1..9 {
+        for i in 0..j {
+            near = colouring.clone();
+            near.set(i, j, 3 - colouring.colour(i, j));
+            if !ramsift_checker::check_colouring(&to_matrix(&near), &claim).is_valid() {
+                break 'damage;
+            }
+        }
+    }
+    assert!(!ramsift_checker::check_colouring(&to_matrix(&near), &claim).is_valid());
+    match repair(&formula, &near, &AtomicBool::new(false), None).unwrap() {
+        Repair::Repaired(SearchResult::Found { colouring, .. }, radius) => {
+            assert!(radius <= 1, "radius {radius}");
+            assert!(ramsift_checker::check_colouring(&to_matrix(&colouring), &claim).is_valid());
+        }
+        other => panic!("not repaired: {other:?}"),
+    }
+}

@@ -83,5 +83,5 @@ fn long_work_shows_progress_on_a_terminal_only() {
         &ramsift,
         &["find", "4,6", "35", "--method", "local", "--timeout", "1"],
     );
-    assert!(shown.contains("fewest monochromatic cliques"), "{shown}");
+    assert!(shown.contains("fewest monochromatic copies"), "{shown}");
 }

@@ -55,8 +55,8 @@ pub struct FindArgs {
     #[arg(long, value_name = "FILE", conflicts_with = "repair")]
     pub from: Option<PathBuf>,
     /// Repair this near-solution of K_N by SAT: free the edges of its remaining
-    /// monochromatic cliques, then every edge at their vertices, then all edges,
-    /// until a colouring is found (cliques only; e.g. local search's near-solution).
+    /// monochromatic forbidden copies, then every edge at their vertices, then all
+    /// edges, until a colouring is found (e.g. local search's near-solution).
     #[arg(long, value_name = "FILE")]
     pub repair: Option<PathBuf>,
     /// Worker threads (default: all cores).
@@ -201,10 +201,6 @@ fn find_by_repair(args: &FindArgs, near_file: &Path, job: &SearchJob) -> Result<
     anyhow::ensure!(
         job.symmetry.is_empty(),
         "--repair keeps most edges of a colouring: --symmetry must be none"
-    );
-    anyhow::ensure!(
-        job.spec().is_cliques(),
-        "--repair is for clique specifications"
     );
     let instance = &job.instance;
     let near = read_colouring_arg(near_file, instance)?;
@@ -531,30 +527,31 @@ fn find_by_local_search(
         AtomicBool::new(false),
         LocalProgress::default(),
     );
-    let report = line.run_while(
-        || local_search(instance, &local_options, &stop, &progress),
-        |elapsed| {
-            let best = progress.best_cost.load(Ordering::Relaxed);
-            format!(
-                "{instance}: {}, {} steps, {} restarts, fewest monochromatic cliques {}, {} elapsed",
+    let report =
+        line.run_while(
+            || local_search(instance, &local_options, &stop, &progress),
+            |elapsed| {
+                let best = progress.best_cost.load(Ordering::Relaxed);
+                format!(
+                "{instance}: {}, {} steps, {} restarts, fewest monochromatic copies {}, {} elapsed",
                 local_options.method,
                 progress.steps.load(Ordering::Relaxed),
                 progress.restarts.load(Ordering::Relaxed),
                 if best == u64::MAX { "-".to_string() } else { best.to_string() },
                 seconds(elapsed)
             )
-        },
-    )?;
+            },
+        )?;
     if report.found.is_none() && !args.quiet && !args.json {
         eprintln!(
-            "{instance}: best colouring seen has {} monochromatic forbidden cliques",
+            "{instance}: best colouring seen has {} monochromatic forbidden copies",
             report.best_cost
         );
     }
     // The best near-solution is kept: a start for later runs (and for repair).
     if let (None, Some(dir), Some((cost, near))) = (&report.found, &args.out, report.near.first()) {
         let note = format!(
-            "best near-solution of local search: {cost} monochromatic forbidden cliques remain"
+            "best near-solution of local search: {cost} monochromatic forbidden copies remain"
         );
         let text = colouring_text(instance, near, &[note]);
         let path = dir.join(NEAR_SOLUTION_FILE);

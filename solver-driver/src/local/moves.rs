@@ -48,9 +48,9 @@ pub fn tabu_step(
             let from = state.colour(u, v);
             // Edges in no monochromatic clique can only make things worse or stay
             // level; they are still candidates, so that plateaus can be crossed.
-            let loss = state.cliques_through(u, v, from) as i64;
+            let loss = state.copies_through(u, v, from) as i64;
             for to in (1..=r).filter(|&c| c != from) {
-                let delta = state.cliques_through(u, v, to) as i64 - loss;
+                let delta = state.copies_through(u, v, to) as i64 - loss;
                 let allowed =
                     tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
                 if !allowed {
@@ -103,6 +103,7 @@ pub fn anneal_step(state: &mut LocalState, temperature: f64, rng: &mut impl Rng)
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::local::pattern::Pattern;
     use rand::SeedableRng;
     use rand_chacha::ChaCha8Rng;
 
@@ -111,7 +112,7 @@ mod tests {
         // (3,3;5) colourings exist (C5 and its complement, Radziszowski DS1).
         for seed in 0..10 {
             let mut rng = ChaCha8Rng::seed_from_u64(seed);
-            let mut state = LocalState::random(5, &[3, 3], &mut rng);
+            let mut state = LocalState::random(5, &Pattern::cliques(&[3, 3]), &mut rng);
             let mut tabu = TabuList::new(5);
             let mut best = state.cost();
             for _ in 0..500 {
@@ -129,7 +130,7 @@ mod tests {
     #[test]
     fn annealing_keeps_the_cost_exact() {
         let mut rng = ChaCha8Rng::seed_from_u64(1);
-        let mut state = LocalState::random(12, &[3, 4], &mut rng);
+        let mut state = LocalState::random(12, &Pattern::cliques(&[3, 4]), &mut rng);
         for _ in 0..2000 {
             anneal_step(&mut state, 0.5, &mut rng);
         }

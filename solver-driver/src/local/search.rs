@@ -14,6 +14,7 @@ use ramsift_encoder::edges::edge_count;
 use ramsift_encoder::{Colouring, Instance};
 
 use super::moves::{anneal_step, tabu_step, TabuList};
+use super::pattern::Pattern;
 use super::state::{LocalState, MAX_LOCAL_ORDER};
 use crate::certify::witness_check::verify_witness;
 use crate::search::first_answer::worker_pool;
@@ -88,7 +89,7 @@ impl Default for LocalProgress {
 pub struct LocalReport {
     /// A verified colouring with no monochromatic forbidden clique, and who found it.
     pub found: Option<(Colouring, String)>,
-    /// Near-solutions, fewest monochromatic cliques first.
+    /// Near-solutions, fewest monochromatic copies first.
     pub near: Vec<(u64, Colouring)>,
     pub best_cost: u64,
     pub steps: u64,
@@ -99,7 +100,7 @@ pub struct LocalReport {
 /// What the threads of one local search share.
 struct Shared<'a> {
     options: &'a LocalOptions,
-    sizes: &'a [usize],
+    patterns: &'a [Pattern],
     order: usize,
     stall: u64,
     stop: &'a AtomicBool,
@@ -110,7 +111,7 @@ struct Shared<'a> {
     start_index: AtomicU64,
 }
 
-/// Runs local search on the instance's K_n for its clique sizes.
+/// Runs local search on the instance's K_n for its forbidden graphs.
 pub fn local_search(
     instance: &Instance,
     options: &LocalOptions,
@@ -124,16 +125,12 @@ pub fn local_search(
             max: MAX_LOCAL_ORDER,
         });
     }
-    let Some(sizes) = spec.clique_sizes() else {
-        return Err(SearchError::LocalNeedsCliques {
-            spec: spec.to_string(),
-        });
-    };
+    let patterns = Pattern::for_spec(spec);
     let started = Instant::now();
     let threads = options.threads.max(1);
     let shared = Shared {
         options,
-        sizes: &sizes,
+        patterns: &patterns,
         order,
         stall: options
             .stall_steps
@@ -190,8 +187,8 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     while !stopped() {
         let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
         let mut state = match options.starts.get(index) {
-            Some(start) => LocalState::new(start, shared.sizes),
-            None => LocalState::random(shared.order, shared.sizes, &mut rng),
+            Some(start) => LocalState::new(start, shared.patterns),
+            None => LocalState::random(shared.order, shared.patterns, &mut rng),
         };
         shared.progress.restarts.fetch_add(1, Ordering::Relaxed);
         let (cost, best) = run_once(

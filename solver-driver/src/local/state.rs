@@ -1,72 +1,52 @@
 //! A full colouring of K_n held for local search: the colour of each edge and, per
 //! colour, each vertex's neighbourhood as a 128-bit set, so that the change in the
-//! number of monochromatic forbidden cliques caused by recolouring one edge is
-//! computed from common neighbourhoods alone (the *delta*), without a recount.
+//! number of monochromatic forbidden copies caused by recolouring one edge is
+//! computed from the neighbourhoods around that edge alone (the *delta*), without
+//! a recount.
 //!
-//! Recolouring {u, v} from a to b destroys exactly the monochromatic K_{k_a} of
-//! colour a through u and v, that is the (k_a − 2)-cliques of colour a inside
-//! N_a(u) ∩ N_a(v), and creates exactly the (k_b − 2)-cliques of colour b inside
-//! N_b(u) ∩ N_b(v).
+//! Recolouring {u, v} from a to b destroys exactly the monochromatic copies of
+//! colour a's forbidden graph through {u, v} and creates exactly those of colour
+//! b's through {u, v} ([`Pattern::copies_through`]; for a clique K_k, the
+//! (k − 2)-cliques inside the common neighbourhood).
 
 use rand::Rng;
 
 use ramsift_encoder::edges::{edge_count, edge_index};
 use ramsift_encoder::Colouring;
 
+use super::pattern::Pattern;
+
 /// The largest order local search handles (neighbourhoods are 128-bit sets).
 pub const MAX_LOCAL_ORDER: usize = 128;
 
-/// A colouring with per-colour neighbourhood sets and its clique count.
+/// A colouring with per-colour neighbourhood sets and its count of monochromatic
+/// forbidden copies.
 #[derive(Clone, Debug)]
 pub struct LocalState {
     order: usize,
-    sizes: Vec<usize>,
+    patterns: Vec<Pattern>,
     /// Colour (0-based) of each edge, by edge index.
     colour: Vec<u8>,
     /// `neighbours[c * order + v]`: the colour-c neighbours of v.
     neighbours: Vec<u128>,
-    /// Number of monochromatic forbidden cliques, kept up to date by [`Self::recolour`].
+    /// Number of monochromatic forbidden copies, kept up to date by [`Self::recolour`].
     cost: u64,
 }
 
-/// Number of `need`-cliques inside `candidates` in the graph `neighbours`.
-pub fn count_cliques(neighbours: &[u128], candidates: u128, need: usize) -> u64 {
-    match need {
-        0 => 1,
-        1 => u64::from(candidates.count_ones()),
-        _ => {
-            let mut total = 0;
-            let mut rest = candidates;
-            while rest != 0 {
-                let v = rest.trailing_zeros() as usize;
-                rest &= rest - 1;
-                // Only later vertices, so each clique is counted once.
-                let next = rest & neighbours[v];
-                if need == 2 {
-                    total += u64::from(next.count_ones());
-                } else if next.count_ones() as usize >= need - 1 {
-                    total += count_cliques(neighbours, next, need - 1);
-                }
-            }
-            total
-        }
-    }
-}
-
 impl LocalState {
-    /// The state of a colouring (colours 1..=r) for forbidden clique sizes `sizes`.
-    pub fn new(colouring: &Colouring, sizes: &[usize]) -> Self {
+    /// The state of a colouring (colours 1..=r) for the forbidden graphs `patterns`.
+    pub fn new(colouring: &Colouring, patterns: &[Pattern]) -> Self {
         let n = colouring.order();
         assert!(
             n <= MAX_LOCAL_ORDER,
             "local search handles orders up to {MAX_LOCAL_ORDER}"
         );
-        assert_eq!(colouring.colours(), sizes.len());
+        assert_eq!(colouring.colours(), patterns.len());
         let mut state = LocalState {
             order: n,
-            sizes: sizes.to_vec(),
+            patterns: patterns.to_vec(),
             colour: vec![0; edge_count(n)],
-            neighbours: vec![0; sizes.len() * n],
+            neighbours: vec![0; patterns.len() * n],
             cost: 0,
         };
         for j in 0..n {
@@ -82,10 +62,10 @@ impl LocalState {
     }
 
     /// A uniformly random colouring.
-    pub fn random(order: usize, sizes: &[usize], rng: &mut impl Rng) -> Self {
-        let r = sizes.len();
+    pub fn random(order: usize, patterns: &[Pattern], rng: &mut impl Rng) -> Self {
+        let r = patterns.len();
         let colouring = Colouring::from_fn(order, r, |_, _| rng.gen_range(1..=r as u8));
-        Self::new(&colouring, sizes)
+        Self::new(&colouring, patterns)
     }
 
     pub fn order(&self) -> usize {
@@ -93,10 +73,19 @@ impl LocalState {
     }
 
     pub fn colours(&self) -> usize {
-        self.sizes.len()
+        self.patterns.len()
     }
 
-    /// Monochromatic forbidden cliques now.
+    /// All vertices, as a set.
+    fn all(&self) -> u128 {
+        if self.order == 128 {
+            u128::MAX
+        } else {
+            (1u128 << self.order) - 1
+        }
+    }
+
+    /// Monochromatic forbidden copies now.
     pub fn cost(&self) -> u64 {
         self.cost
     }
@@ -110,12 +99,11 @@ impl LocalState {
         &self.neighbours[c * self.order..(c + 1) * self.order]
     }
 
-    /// Cliques of colour `c` (1-based) that edge {u, v} would complete if it had
-    /// colour c: the (k_c − 2)-cliques of colour c in the common neighbourhood.
-    pub fn cliques_through(&self, u: usize, v: usize, c: u8) -> u64 {
+    /// Copies of colour `c`'s (1-based) forbidden graph that edge {u, v} is in, or
+    /// would complete if it had colour c.
+    pub fn copies_through(&self, u: usize, v: usize, c: u8) -> u64 {
         let c = c as usize - 1;
-        let graph = self.graph(c);
-        count_cliques(graph, graph[u] & graph[v], self.sizes[c] - 2)
+        self.patterns[c].copies_through(self.graph(c), self.all(), u, v)
     }
 
     /// Change of the cost if edge {u, v} were recoloured `to` (1-based).
@@ -124,7 +112,7 @@ impl LocalState {
         if from == to {
             return 0;
         }
-        self.cliques_through(u, v, to) as i64 - self.cliques_through(u, v, from) as i64
+        self.copies_through(u, v, to) as i64 - self.copies_through(u, v, from) as i64
     }
 
     /// Recolours edge {u, v}, updating the cost by the delta.
@@ -141,26 +129,19 @@ impl LocalState {
         self.cost = (self.cost as i64 + delta) as u64;
     }
 
-    /// Counts every monochromatic forbidden clique from scratch.
+    /// Counts every monochromatic forbidden copy from scratch.
     pub fn recount(&self) -> u64 {
         (0..self.colours())
-            .map(|c| {
-                let all = if self.order == 128 {
-                    u128::MAX
-                } else {
-                    (1u128 << self.order) - 1
-                };
-                count_cliques(self.graph(c), all, self.sizes[c])
-            })
+            .map(|c| self.patterns[c].count(self.graph(c), self.all()))
             .sum()
     }
 
-    /// Edges {u, v} (u < v) that lie in at least one monochromatic forbidden clique.
+    /// Edges {u, v} (u < v) that lie in at least one monochromatic forbidden copy.
     pub fn bad_edges(&self) -> Vec<(usize, usize)> {
         let mut bad = Vec::new();
         for v in 0..self.order {
             for u in 0..v {
-                if self.cliques_through(u, v, self.colour(u, v)) > 0 {
+                if self.copies_through(u, v, self.colour(u, v)) > 0 {
                     bad.push((u, v));
                 }
             }
@@ -177,6 +158,7 @@ impl LocalState {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use proptest::prelude::prop;
     use proptest::prelude::*;
     use rand::{Rng, SeedableRng};
     use rand_chacha::ChaCha8Rng;
@@ -209,7 +191,7 @@ mod tests {
             (vec![3, 3, 3], 8),
             (vec![4, 4], 12),
         ] {
-            let state = LocalState::random(n, &sizes, &mut rng);
+            let state = LocalState::random(n, &Pattern::cliques(&sizes), &mut rng);
             assert_eq!(state.cost(), brute_force(&state.to_colouring(), &sizes));
         }
     }
@@ -224,7 +206,7 @@ mod tests {
             moves in 1usize..60,
         ) {
             let mut rng = ChaCha8Rng::seed_from_u64(seed);
-            let mut state = LocalState::random(n, &sizes, &mut rng);
+            let mut state = LocalState::random(n, &Pattern::cliques(&sizes), &mut rng);
             for _ in 0..moves {
                 let v = rng.gen_range(1..n);
                 let u = rng.gen_range(0..v);
@@ -236,6 +218,84 @@ mod tests {
                 prop_assert_eq!(state.cost(), state.recount());
             }
             prop_assert_eq!(state.cost(), brute_force(&state.to_colouring(), &sizes));
+        }
+    }
+
+    /// Copies of `graph` (edges on 0..k) in colour `colour` of a colouring, by
+    /// trying every injective placement and keeping each distinct edge set.
+    fn brute_force_copies(
+        colouring: &Colouring,
+        colour: u8,
+        k: usize,
+        edges: &[(usize, usize)],
+    ) -> u64 {
+        let n = colouring.order();
+        let mut seen = std::collections::BTreeSet::new();
+        let mut place = Vec::new();
+        fn walk(n: usize, k: usize, place: &mut Vec<usize>, visit: &mut dyn FnMut(&[usize])) {
+            if place.len() == k {
+                return visit(place);
+            }
+            for x in 0..n {
+                if !place.contains(&x) {
+                    place.push(x);
+                    walk(n, k, place, visit);
+                    place.pop();
+                }
+            }
+        }
+        walk(n, k, &mut place, &mut |p| {
+            if edges
+                .iter()
+                .all(|&(a, b)| colouring.colour(p[a], p[b]) == colour)
+            {
+                let mut set: Vec<(usize, usize)> = edges
+                    .iter()
+                    .map(|&(a, b)| (p[a].min(p[b]), p[a].max(p[b])))
+                    .collect();
+                set.sort_unstable();
+                seen.insert(set);
+            }
+        });
+        seen.len() as u64
+    }
+
+    proptest! {
+        /// For forbidden graphs other than cliques (C4, C5, K1:3, K4 − e, B2, W_5),
+        /// the incremental count equals a full recount after every move, and a
+        /// brute-force count over placements at the end.
+        #[test]
+        fn graph_copies_are_counted_incrementally(
+            spec in prop::sample::select(vec!["C4,C5", "K1:3,K3", "K4-e,C4", "B2,P4", "W_5,3", "C4,C4,K3"]),
+            n in 5usize..=8,
+            seed in any::<u64>(),
+            moves in 1usize..30,
+        ) {
+            let spec: ramsift_encoder::RamseySpec = spec.parse().unwrap();
+            let patterns = Pattern::for_spec(&spec);
+            let mut rng = ChaCha8Rng::seed_from_u64(seed);
+            let mut state = LocalState::random(n, &patterns, &mut rng);
+            for _ in 0..moves {
+                let v = rng.gen_range(1..n);
+                let u = rng.gen_range(0..v);
+                let to = rng.gen_range(1..=patterns.len() as u8);
+                let before = state.cost();
+                let delta = state.delta(u, v, to);
+                state.recolour(u, v, to);
+                prop_assert_eq!(state.cost() as i64, before as i64 + delta);
+                prop_assert_eq!(state.cost(), state.recount());
+            }
+            let colouring = state.to_colouring();
+            let expected: u64 = spec
+                .forbidden()
+                .iter()
+                .enumerate()
+                .map(|(c, f)| {
+                    let g = f.graph();
+                    brute_force_copies(&colouring, c as u8 + 1, g.vertex_count(), g.edges())
+                })
+                .sum();
+            prop_assert_eq!(state.cost(), expected);
         }
     }
 }

@@ -37,7 +37,7 @@ use super::job::{SearchError, SearchJob, SearchReport, SearchResult};
 use super::portfolio::{complete_worker, search_until};
 use super::seeding::{near_solution_seeds, seeded_attempt, Seed, SeedKind};
 use crate::local::search::LocalProgress;
-use crate::local::{local_search, LocalOptions, MAX_LOCAL_ORDER};
+use crate::local::{local_search, LocalOptions, Pattern, MAX_LOCAL_ORDER};
 use crate::structured::{
     family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
 };
@@ -369,11 +369,8 @@ fn local_and_seeded_rounds(
             return verified(job.spec(), colouring, format!("{by}, round {round}")).map(Some);
         }
         for (_, near) in &report.near {
-            for seed in near_solution_seeds(
-                near,
-                &job.spec().clique_sizes().unwrap_or_default(),
-                &mut attempts.rng,
-            ) {
+            for seed in near_solution_seeds(near, &Pattern::for_spec(job.spec()), &mut attempts.rng)
+            {
                 if stop.load(Ordering::Relaxed) {
                     return Ok(None);
                 }

@@ -171,6 +171,4 @@ pub enum SearchError {
     Family(#[from] crate::structured::FamilyError),
     #[error("local search handles orders 2 to {max}; {order} is outside")]
     LocalOrder { order: usize, max: usize },
-    #[error("local search handles specifications in which every colour forbids a clique; {spec} forbids other graphs")]
-    LocalNeedsCliques { spec: String },
 }

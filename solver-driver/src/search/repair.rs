@@ -1,9 +1,10 @@
 //! Repair by SAT: from a near-solution (a colouring with a few monochromatic
-//! forbidden cliques left), free the edges near the remaining cliques and solve
-//! for them with every other edge fixed, growing the freed region until a
-//! colouring is found or the formula is the full one:
+//! forbidden copies left, of cliques or of any other forbidden graph), free the
+//! edges near the remaining copies and solve for them with every other edge
+//! fixed, growing the freed region until a colouring is found or the formula is
+//! the full one:
 //!
-//! * radius 0: the edges of the remaining monochromatic cliques;
+//! * radius 0: the edges of the remaining monochromatic copies;
 //! * radius 1: every edge at a vertex of one of them;
 //! * radius 2: every edge (the complete search, bounded by the deadline).
 //!
@@ -15,6 +16,7 @@ use std::time::Instant;
 use ramsift_encoder::combinations::for_each_subset;
 use ramsift_encoder::{Colouring, RamseySpec};
 
+use crate::local::{LocalState, Pattern, MAX_LOCAL_ORDER};
 use crate::search::attempt::AttemptOutcome;
 use crate::search::first_answer::verified;
 use crate::search::formula::Formula;
@@ -56,7 +58,7 @@ pub enum Repair {
     Stopped,
 }
 
-/// Repairs `near` (a colouring of K_n for a clique specification).
+/// Repairs `near` (a colouring of K_n, n ≤ 128, for the formula's specification).
 pub fn repair(
     formula: &Formula,
     near: &Colouring,
@@ -65,16 +67,22 @@ pub fn repair(
 ) -> Result<Repair, SearchError> {
     let spec = formula.instance().spec();
     let n = near.order();
-    let cliques = monochromatic_cliques(spec, near);
-    let vertex_sets: Vec<Vec<usize>> = cliques.iter().map(|(_, s)| s.clone()).collect();
+    if n > MAX_LOCAL_ORDER {
+        return Err(SearchError::LocalOrder {
+            order: n,
+            max: MAX_LOCAL_ORDER,
+        });
+    }
+    let state = LocalState::new(near, &Pattern::for_spec(spec));
+    let bad = state.bad_edges();
     for radius in 0..=2 {
-        let seed = repair_seed(near, &vertex_sets, radius);
+        let seed = repair_seed(near, &bad, radius);
         match seed.solve(formula, stop, deadline)? {
             AttemptOutcome::Satisfiable(colouring) => {
                 let freed = n * (n - 1) / 2 - seed.fixed.len();
                 let by = format!(
-                    "SAT repair of a near-solution with {} monochromatic cliques, radius {radius} ({freed} edges freed)",
-                    cliques.len()
+                    "SAT repair of a near-solution with {} monochromatic forbidden copies, radius {radius} ({freed} edges freed)",
+                    state.cost()
                 );
                 return Ok(Repair::Repaired(verified(spec, colouring, by)?, radius));
             }

@@ -37,7 +37,7 @@ use super::first_answer::verified;
 use super::formula::Formula;
 use super::job::{SearchError, SearchJob, SearchResult};
 use super::portfolio::luby;
-use crate::local::LocalState;
+use crate::local::{LocalState, Pattern};
 
 /// Which construction a seed came from.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -166,29 +166,29 @@ pub fn extension_seed(base: &Colouring) -> Seed {
     Seed::from_colouring(SeedKind::Extension, base, |_, _| true)
 }
 
-/// The edges of a near-solution kept at repair radius `radius` around its
-/// monochromatic `cliques` (vertex sets): radius 0 frees the edges inside the
-/// cliques, 1 every edge at one of their vertices, 2 and above every edge.
-pub fn repair_seed(near: &Colouring, cliques: &[Vec<usize>], radius: usize) -> Seed {
-    let mut in_clique = vec![false; near.order()];
-    cliques.iter().flatten().for_each(|&v| in_clique[v] = true);
-    let clique_edge = |i: usize, j: usize| cliques.iter().any(|s| s.contains(&i) && s.contains(&j));
+/// The edges of a near-solution kept at repair radius `radius` around its `bad`
+/// edges (those in a monochromatic forbidden copy, i < j): radius 0 frees the bad
+/// edges, 1 every edge at one of their endpoints, 2 and above every edge.
+pub fn repair_seed(near: &Colouring, bad: &[(usize, usize)], radius: usize) -> Seed {
+    let mut touched = vec![false; near.order()];
+    bad.iter()
+        .for_each(|&(i, j)| (touched[i], touched[j]) = (true, true));
     let free = |i: usize, j: usize| match radius {
-        0 => clique_edge(i, j),
-        1 => in_clique[i] || in_clique[j],
+        0 => bad.contains(&(i.min(j), i.max(j))),
+        1 => touched[i] || touched[j],
         _ => true,
     };
     Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !free(i, j))
 }
 
-/// Seeds from a near-solution: every edge in no monochromatic forbidden clique
+/// Seeds from a near-solution: every edge in no monochromatic forbidden copy
 /// fixed; then the same with a random fifth of those edges released.
 pub fn near_solution_seeds(
     near: &Colouring,
-    clique_sizes: &[usize],
+    patterns: &[Pattern],
     rng: &mut ChaCha8Rng,
 ) -> Vec<Seed> {
-    let state = LocalState::new(near, clique_sizes);
+    let state = LocalState::new(near, patterns);
     let bad: HashSet<(usize, usize)> = state.bad_edges().into_iter().collect();
     let good =
         Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !bad.contains(&(i, j))).fixed;
@@ -304,7 +304,7 @@ mod tests {
             _ if j - i == 1 || j - i == 4 => 1,
             _ => 2,
         });
-        let state = LocalState::new(&near, &[3, 3]);
+        let state = LocalState::new(&near, &Pattern::cliques(&[3, 3]));
         let bad: Vec<usize> = state
             .bad_edges()
             .into_iter()
@@ -312,7 +312,7 @@ mod tests {
             .collect();
         assert!(bad.contains(&edge_index(1, 3)) && !bad.contains(&edge_index(0, 1)));
         let mut rng = ChaCha8Rng::seed_from_u64(1);
-        let seeds = near_solution_seeds(&near, &[3, 3], &mut rng);
+        let seeds = near_solution_seeds(&near, &Pattern::cliques(&[3, 3]), &mut rng);
         assert!(!bad.is_empty() && bad.len() < 15);
         assert_eq!(seeds[0].fixed.len() + bad.len(), 15);
         for seed in &seeds {
