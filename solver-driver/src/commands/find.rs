@@ -46,7 +46,8 @@ pub struct FindArgs {
     /// With --method block-circulant: only this many blocks (default: 2 and 3).
     #[arg(long, value_name = "COUNT")]
     pub blocks: Option<usize>,
-    /// With --method local: tabu (default) or anneal.
+    /// With --method local: tabu (default; every edge's recolourings), focused
+    /// (tabu over the edges of the remaining monochromatic copies) or anneal.
     #[arg(long, value_enum, default_value_t = Rule::Tabu)]
     pub rule: Rule,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
@@ -115,6 +116,8 @@ impl Method {
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
 pub enum Rule {
     Tabu,
+    /// Tabu search over the edges of the remaining monochromatic copies only.
+    Focused,
     Anneal,
 }
 
@@ -515,6 +518,7 @@ fn find_by_local_search(
     let local_options = LocalOptions {
         method: match args.rule {
             Rule::Anneal => LocalMethod::Anneal,
+            Rule::Focused => LocalMethod::Focused,
             Rule::Tabu => LocalMethod::Tabu,
         },
         threads: job.threads(),

@@ -52,6 +52,31 @@ pub fn count_cliques(neighbours: &[u128], candidates: u128, need: usize) -> u64 
     }
 }
 
+/// Visits every `need`-clique inside `candidates` in the graph `neighbours`, as
+/// its vertices in increasing order after those already in `chosen`.
+pub fn for_each_clique(
+    neighbours: &[u128],
+    candidates: u128,
+    need: usize,
+    chosen: &mut Vec<usize>,
+    visit: &mut dyn FnMut(&[usize]),
+) {
+    if need == 0 {
+        return visit(chosen);
+    }
+    let mut rest = candidates;
+    while rest != 0 {
+        let v = rest.trailing_zeros() as usize;
+        rest &= rest - 1;
+        let next = rest & neighbours[v];
+        if next.count_ones() as usize + 1 >= need {
+            chosen.push(v);
+            for_each_clique(neighbours, next, need - 1, chosen, visit);
+            chosen.pop();
+        }
+    }
+}
+
 impl GraphPattern {
     fn new(vertices: usize, edges: &[(usize, usize)]) -> Self {
         let mut adjacent = vec![0u16; vertices];

@@ -13,7 +13,7 @@ use rand_chacha::ChaCha8Rng;
 use ramsift_encoder::edges::edge_count;
 use ramsift_encoder::{Colouring, Instance};
 
-use super::moves::{anneal_step, tabu_step, TabuList};
+use super::moves::{anneal_step, focused_tabu_step, tabu_step, TabuList};
 use super::pattern::Pattern;
 use super::state::{LocalState, MAX_LOCAL_ORDER};
 use crate::certify::witness_check::verify_witness;
@@ -24,6 +24,8 @@ use crate::search::job::SearchError;
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum LocalMethod {
     Tabu,
+    /// Tabu search over the bad edges only.
+    Focused,
     Anneal,
 }
 
@@ -31,6 +33,7 @@ impl std::fmt::Display for LocalMethod {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         f.write_str(match self {
             LocalMethod::Tabu => "tabu search",
+            LocalMethod::Focused => "focused tabu search",
             LocalMethod::Anneal => "simulated annealing",
         })
     }
@@ -245,7 +248,7 @@ fn run_once(
     let mut steps = 0u64;
     while best_cost > 0 {
         let ended = match method {
-            LocalMethod::Tabu => since_best >= stall,
+            LocalMethod::Tabu | LocalMethod::Focused => since_best >= stall,
             LocalMethod::Anneal => steps >= anneal_length,
         };
         if ended {
@@ -261,6 +264,11 @@ fn run_once(
         match method {
             LocalMethod::Tabu => {
                 if !tabu_step(state, &mut tabu, best_cost, rng) {
+                    break;
+                }
+            }
+            LocalMethod::Focused => {
+                if !focused_tabu_step(state, &mut tabu, best_cost, rng) {
                     break;
                 }
             }
@@ -306,7 +314,7 @@ mod tests {
     #[test]
     fn both_methods_find_classical_witnesses() {
         // R(3,5) = 14 and R(3,3,3) = 17 (Radziszowski DS1): colourings exist at 13, 16.
-        for method in [LocalMethod::Tabu, LocalMethod::Anneal] {
+        for method in [LocalMethod::Tabu, LocalMethod::Focused, LocalMethod::Anneal] {
             let report = run(method, &[3, 4], 8, 2);
             assert!(report.found.is_some(), "{method}: (3,4;8)");
             assert_eq!(report.best_cost, 0);

@@ -14,7 +14,7 @@ use rand::Rng;
 use ramsift_encoder::edges::{edge_count, edge_index};
 use ramsift_encoder::Colouring;
 
-use super::pattern::Pattern;
+use super::pattern::{for_each_clique, Pattern};
 
 /// The largest order local search handles (neighbourhoods are 128-bit sets).
 pub const MAX_LOCAL_ORDER: usize = 128;
@@ -31,6 +31,9 @@ pub struct LocalState {
     neighbours: Vec<u128>,
     /// Number of monochromatic forbidden copies, kept up to date by [`Self::recolour`].
     cost: u64,
+    /// For each edge, the monochromatic copies of its own colour's forbidden graph
+    /// through it (nonzero: a *bad* edge), kept up to date by [`Self::recolour`].
+    through: Vec<u32>,
 }
 
 impl LocalState {
@@ -48,6 +51,7 @@ impl LocalState {
             colour: vec![0; edge_count(n)],
             neighbours: vec![0; patterns.len() * n],
             cost: 0,
+            through: Vec::new(),
         };
         for j in 0..n {
             for i in 0..j {
@@ -58,6 +62,8 @@ impl LocalState {
             }
         }
         state.cost = state.recount();
+        state.through = vec![0; edge_count(n)];
+        state.recount_through();
         state
     }
 
@@ -120,6 +126,10 @@ impl LocalState {
         let delta = self.delta(u, v, to);
         let from = self.colour(u, v) as usize - 1;
         let to0 = to as usize - 1;
+        if from == to0 {
+            return;
+        }
+        self.update_through(u, v, from, -1);
         let n = self.order;
         self.neighbours[from * n + u] &= !(1 << v);
         self.neighbours[from * n + v] &= !(1 << u);
@@ -127,6 +137,71 @@ impl LocalState {
         self.neighbours[to0 * n + v] |= 1 << u;
         self.colour[edge_index(u, v)] = to0 as u8;
         self.cost = (self.cost as i64 + delta) as u64;
+        self.update_through(u, v, to0, 1);
+        let clique = |c: usize| matches!(self.patterns[c], Pattern::Clique(_));
+        if !clique(from) || !clique(to0) {
+            self.recount_graph_through();
+        }
+    }
+
+    /// Adds `sign` to the count of every other edge of each monochromatic clique of
+    /// colour `c` (0-based, a clique pattern) through {u, v}, and sets {u, v}'s own
+    /// count (to the cliques when adding, to 0 when removing); the cliques are the
+    /// (k − 2)-cliques of the common neighbourhood. Colours that forbid another
+    /// graph are recounted instead ([`Self::recount_graph_through`]).
+    fn update_through(&mut self, u: usize, v: usize, c: usize, sign: i32) {
+        let Pattern::Clique(k) = self.patterns[c] else {
+            return;
+        };
+        let graph = self.graph(c);
+        let mut cliques: Vec<Vec<usize>> = Vec::new();
+        for_each_clique(
+            graph,
+            graph[u] & graph[v],
+            k - 2,
+            &mut Vec::new(),
+            &mut |s| cliques.push(s.to_vec()),
+        );
+        for s in &cliques {
+            let vertices: Vec<usize> = s.iter().copied().chain([u, v]).collect();
+            for (p, &x) in vertices.iter().enumerate() {
+                for &y in &vertices[p + 1..] {
+                    if (x.min(y), x.max(y)) != (u.min(v), u.max(v)) {
+                        let e = edge_index(x, y);
+                        self.through[e] = (self.through[e] as i32 + sign) as u32;
+                    }
+                }
+            }
+        }
+        self.through[edge_index(u, v)] = if sign > 0 { cliques.len() as u32 } else { 0 };
+    }
+
+    /// The counts of the edges whose colour forbids a graph other than a clique,
+    /// from scratch (those graphs are small; their instances are too).
+    fn recount_graph_through(&mut self) {
+        for v in 1..self.order {
+            for u in 0..v {
+                let c = self.colour(u, v);
+                if matches!(self.patterns[c as usize - 1], Pattern::Graph(_)) {
+                    self.through[edge_index(u, v)] = self.copies_through(u, v, c) as u32;
+                }
+            }
+        }
+    }
+
+    /// Every edge's count of monochromatic copies through it, from scratch.
+    fn recount_through(&mut self) {
+        for v in 1..self.order {
+            for u in 0..v {
+                self.through[edge_index(u, v)] =
+                    self.copies_through(u, v, self.colour(u, v)) as u32;
+            }
+        }
+    }
+
+    /// Monochromatic copies of its own colour through edge {u, v}.
+    pub fn through(&self, u: usize, v: usize) -> u64 {
+        u64::from(self.through[edge_index(u, v)])
     }
 
     /// Counts every monochromatic forbidden copy from scratch.
@@ -141,7 +216,7 @@ impl LocalState {
         let mut bad = Vec::new();
         for v in 0..self.order {
             for u in 0..v {
-                if self.copies_through(u, v, self.colour(u, v)) > 0 {
+                if self.through[edge_index(u, v)] > 0 {
                     bad.push((u, v));
                 }
             }
@@ -216,6 +291,11 @@ mod tests {
                 state.recolour(u, v, to);
                 prop_assert_eq!(state.cost() as i64, before as i64 + delta);
                 prop_assert_eq!(state.cost(), state.recount());
+                for y in 1..n {
+                    for x in 0..y {
+                        prop_assert_eq!(state.through(x, y), state.copies_through(x, y, state.colour(x, y)));
+                    }
+                }
             }
             prop_assert_eq!(state.cost(), brute_force(&state.to_colouring(), &sizes));
         }
@@ -284,6 +364,11 @@ mod tests {
                 state.recolour(u, v, to);
                 prop_assert_eq!(state.cost() as i64, before as i64 + delta);
                 prop_assert_eq!(state.cost(), state.recount());
+                for y in 1..n {
+                    for x in 0..y {
+                        prop_assert_eq!(state.through(x, y), state.copies_through(x, y, state.colour(x, y)));
+                    }
+                }
             }
             let colouring = state.to_colouring();
             let expected: u64 = spec
