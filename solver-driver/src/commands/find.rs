@@ -34,7 +34,7 @@ pub struct FindArgs {
     /// Search method. auto: structured families, then local search feeding SAT, with
     /// a complete SAT worker throughout; sat: the SAT portfolio alone; circulant,
     /// cayley, block-circulant, structured: exhaustive within those families; local:
-    /// local search alone (tabu search, or annealing with --rule anneal).
+    /// local search alone (focused tabu search; see --rule).
     #[arg(long, value_enum, default_value_t = Method::Auto)]
     pub method: Method,
     /// Shorthand for --method circulant.
@@ -46,9 +46,9 @@ pub struct FindArgs {
     /// With --method block-circulant: only this many blocks (default: 2 and 3).
     #[arg(long, value_name = "COUNT")]
     pub blocks: Option<usize>,
-    /// With --method local: tabu (default; every edge's recolourings), focused
-    /// (tabu over the edges of the remaining monochromatic copies) or anneal.
-    #[arg(long, value_enum, default_value_t = Rule::Tabu)]
+    /// With --method local: focused (default; tabu over the edges of the remaining
+    /// monochromatic copies), tabu (over every edge's recolourings) or anneal.
+    #[arg(long, value_enum, default_value_t = Rule::Focused)]
     pub rule: Rule,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
     /// (a ramsift colouring file, or graph6 for two colours; - reads standard

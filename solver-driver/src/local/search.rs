@@ -58,7 +58,7 @@ pub struct LocalOptions {
 impl Default for LocalOptions {
     fn default() -> Self {
         LocalOptions {
-            method: LocalMethod::Tabu,
+            method: LocalMethod::Focused,
             threads: std::thread::available_parallelism().map_or(1, |n| n.get()),
             seed: 0,
             timeout: None,

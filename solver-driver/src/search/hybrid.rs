@@ -2,17 +2,20 @@
 //! first, then local search feeding the SAT driver, with one complete SAT worker
 //! running throughout so that "no colouring exists" stays a complete answer.
 //!
-//! 1. **Structured stage**, on one thread before the full formula is built (at
-//!    most a quarter of the time limit, and 30 s without one; each family at most
-//!    a twentieth, 2 s at least): circulant colourings at n; circulant colourings at n + 1 with a vertex
+//! 1. **Structured stage**, on one thread before the full formula is built (30 s
+//!    at most in all, 5 s per family, a timeout only cutting them short):
+//!    circulant colourings at n; circulant colourings at n + 1 with a vertex
 //!    deleted (deleting a vertex keeps a colouring valid); the other abelian Cayley
 //!    families and the 2- and 3-block circulants at n. Each is exact for its family.
+//!    With two or more threads, focused local search runs on the others meanwhile
+//!    (where no family has a colouring, it often finds one long before the families
+//!    are done: (3,8;27) has none among them).
 //! 2. **Circulant neighbour seeds**: up to 16 distinct circulant colourings at
 //!    n − 1, if any exist; each fixes every edge among the first n − 1 vertices and
 //!    the SAT driver colours the edges of the last vertex (one extension attempt
 //!    each). They are also the first starts of local search, with the last
 //!    vertex's edges drawn at random.
-//! 3. **Local search and seeded SAT, alternating**: a slice of tabu search on the
+//! 3. **Local search and seeded SAT, alternating**: a slice of focused tabu search on the
 //!    helper threads; if it does not reach zero, each of its best near-solutions
 //!    becomes seeds for SAT attempts: all edges in no remaining monochromatic clique
 //!    fixed, then the same with a random fifth of them released. The slice doubles
@@ -65,7 +68,12 @@ pub fn auto_search<F: std::borrow::Borrow<Formula>>(
     let deadline = job.deadline_from(started);
     if job.spec().is_cliques() {
         tick(Duration::ZERO);
-        if let Some(found) = structured_stage(job, &AtomicBool::new(false))? {
+        let found = if job.threads() >= 2 && job.order() <= MAX_LOCAL_ORDER {
+            structured_beside_local(job)?
+        } else {
+            structured_stage(job, &AtomicBool::new(false))?
+        };
+        if let Some(found) = found {
             return Ok(job.report(found, started));
         }
     }
@@ -236,6 +244,46 @@ pub fn structured_stage(
         }
     }
     Ok(None)
+}
+
+/// Stage 1 on this thread and local search on the others until the stage ends;
+/// the first colouring found (by either) is the answer.
+fn structured_beside_local(job: &SearchJob) -> Result<Option<SearchResult>, SearchError> {
+    let stop = AtomicBool::new(false);
+    let progress = LocalProgress::default();
+    let options = LocalOptions {
+        threads: job.threads() - 1,
+        seed: job.options.seed,
+        timeout: job.options.timeout,
+        ..LocalOptions::default()
+    };
+    let (structured, local) = std::thread::scope(|scope| {
+        let local = scope.spawn(|| local_search(&job.instance, &options, &stop, &progress));
+        let structured = structured_stage(job, &stop);
+        stop.store(true, Ordering::SeqCst);
+        (
+            structured,
+            local
+                .join()
+                .expect("the local search thread does not panic"),
+        )
+    });
+    if let Some(found) = structured? {
+        return Ok(Some(found));
+    }
+    let local = local?;
+    job.progress
+        .attempts
+        .fetch_add(local.restarts, Ordering::Relaxed);
+    match local.found {
+        Some((colouring, by)) => verified(
+            job.spec(),
+            colouring,
+            format!("{by}, beside the structured stage"),
+        )
+        .map(Some),
+        None => Ok(None),
+    }
 }
 
 /// The seeded SAT attempts of stages 2 and 3, numbered in turn on one rng.
