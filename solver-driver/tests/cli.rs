@@ -472,10 +472,13 @@ fn forbidden_graphs_work_end_to_end_and_bad_ones_are_refused() {
         &["find", "C4,4", "9", "--circulant"],
         "structured searches handle",
     );
-    assert_bad_input(
-        &["find", "C4,4", "9", "--method", "local"],
-        "local search handles",
-    );
+    // Local search takes graph specifications too: a (C4,K4;9) colouring exists
+    // (R(C4,K4) = 10, Chvátal & Harary 1972; DS1, from memory).
+    let o = ramsift(&["find", "C4,4", "9", "--method", "local", "--json"]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let found: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert!(found["verified_by_checker"].as_bool().unwrap());
+    assert!(found["found_by"].as_str().unwrap().contains("focused tabu"));
 }
 
 #[test]
