@@ -15,7 +15,7 @@
 
 use rand::Rng;
 
-use ramsift_encoder::edges::{edge_count, edge_endpoints};
+use ramsift_encoder::edges::{edge_count, edge_endpoints, edge_index};
 
 use super::state::LocalState;
 
@@ -35,82 +35,31 @@ impl TabuList {
     }
 }
 
-/// One tabu step; returns false when no move was allowed.
-pub fn tabu_step(
+/// The tabu rule over the recolourings of `edges`: the best move whose edge is
+/// not tabu (or that reaches a new best cost), ties broken uniformly at random;
+/// the edge is then tabu for `tenure.0` plus a random 0..=`tenure.1` more steps.
+/// Returns false when no move was allowed.
+fn tabu_move(
     state: &mut LocalState,
     tabu: &mut TabuList,
     best_cost: u64,
-    rng: &mut impl Rng,
-) -> bool {
-    let n = state.order();
-    let r = state.colours() as u8;
-    tabu.step += 1;
-    let mut best: Option<(i64, usize, usize, u8)> = None;
-    let mut ties = 0u32;
-    for v in 1..n {
-        for u in 0..v {
-            let e = ramsift_encoder::edges::edge_index(u, v);
-            let from = state.colour(u, v);
-            // Edges in no monochromatic clique can only make things worse or stay
-            // level; they are still candidates, so that plateaus can be crossed.
-            let loss = state.copies_through(u, v, from) as i64;
-            for to in (1..=r).filter(|&c| c != from) {
-                let delta = state.copies_through(u, v, to) as i64 - loss;
-                let allowed =
-                    tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
-                if !allowed {
-                    continue;
-                }
-                match best {
-                    Some((d, ..)) if delta > d => {}
-                    Some((d, ..)) if delta == d => {
-                        ties += 1;
-                        if rng.gen_range(0..ties) == 0 {
-                            best = Some((delta, u, v, to));
-                        }
-                    }
-                    _ => {
-                        ties = 1;
-                        best = Some((delta, u, v, to));
-                    }
-                }
-            }
-        }
-    }
-    let Some((_, u, v, to)) = best else {
-        return false;
-    };
-    state.recolour(u, v, to);
-    let edges = edge_count(n) as u64;
-    let tenure = 5 + rng.gen_range(0..=edges / 16 + 1);
-    tabu.until[ramsift_encoder::edges::edge_index(u, v)] = tabu.step + tenure;
-    true
-}
-
-/// One focused tabu step (moves on bad edges only); returns false when no move
-/// was allowed or no edge is bad.
-pub fn focused_tabu_step(
-    state: &mut LocalState,
-    tabu: &mut TabuList,
-    best_cost: u64,
+    edges: &[(usize, usize)],
+    tenure: (u64, u64),
     rng: &mut impl Rng,
 ) -> bool {
     let r = state.colours() as u8;
     tabu.step += 1;
-    let bad = state.bad_edges();
     let mut best: Option<(i64, usize, usize, u8)> = None;
     let mut ties = 0u32;
-    for &(u, v) in &bad {
-        let e = ramsift_encoder::edges::edge_index(u, v);
+    for &(u, v) in edges {
+        let e = edge_index(u, v);
         let (from, loss) = (state.colour(u, v), state.through(u, v) as i64);
         for to in (1..=r).filter(|&c| c != from) {
             let delta = state.copies_through(u, v, to) as i64 - loss;
             let allowed =
                 tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
-            if !allowed {
-                continue;
-            }
             match best {
+                _ if !allowed => {}
                 Some((d, ..)) if delta > d => {}
                 Some((d, ..)) if delta == d => {
                     ties += 1;
@@ -129,9 +78,36 @@ pub fn focused_tabu_step(
         return false;
     };
     state.recolour(u, v, to);
-    let tenure = 2 + rng.gen_range(0..=bad.len() as u64 / 4 + 1);
-    tabu.until[ramsift_encoder::edges::edge_index(u, v)] = tabu.step + tenure;
+    tabu.until[edge_index(u, v)] = tabu.step + tenure.0 + rng.gen_range(0..=tenure.1);
     true
+}
+
+/// One tabu step over every edge; returns false when no move was allowed. Edges
+/// in no monochromatic copy can only make things worse or stay level; they are
+/// still candidates, so that plateaus can be crossed.
+pub fn tabu_step(
+    state: &mut LocalState,
+    tabu: &mut TabuList,
+    best_cost: u64,
+    rng: &mut impl Rng,
+) -> bool {
+    let n = state.order();
+    let edges: Vec<(usize, usize)> = (1..n).flat_map(|v| (0..v).map(move |u| (u, v))).collect();
+    let span = edge_count(n) as u64 / 16 + 1;
+    tabu_move(state, tabu, best_cost, &edges, (5, span), rng)
+}
+
+/// One focused tabu step (moves on bad edges only, tenure following their
+/// number); returns false when no move was allowed or no edge is bad.
+pub fn focused_tabu_step(
+    state: &mut LocalState,
+    tabu: &mut TabuList,
+    best_cost: u64,
+    rng: &mut impl Rng,
+) -> bool {
+    let bad = state.bad_edges();
+    let span = bad.len() as u64 / 4 + 1;
+    tabu_move(state, tabu, best_cost, &bad, (2, span), rng)
 }
 
 /// One annealing step at temperature `temperature`; returns whether the move was kept.
