@@ -22,9 +22,11 @@
 //!    each round.
 //!
 //! Specifications with forbidden graphs other than cliques go to the SAT portfolio
-//! ([`crate::search::portfolio`]) alone.
+//! ([`crate::search::portfolio`]) alone (the structured families are for cliques),
+//! or, when their formula does not fit in memory, to local search alone.
 //!
 //! Worker 0 solves the unrestricted formula for the whole run on its own thread. With
+//! one thread, stages 1 and 2 run first and then worker 0 alone (no stage 3).
 
 use std::sync::atomic::{AtomicBool, Ordering};
 use std::time::{Duration, Instant};
@@ -90,20 +92,20 @@ pub fn auto_search<F: std::borrow::Borrow<Formula>>(
     let result = if job.spec().is_cliques() {
         later_stages(job, formula, deadline, &mut tick)?
     } else {
-        // The structured families and local search are written for cliques; other
-        // forbidden graphs go to the SAT portfolio alone.
+        // The structured families are written for cliques; other forbidden graphs
+        // go to the SAT portfolio alone.
         search_until(job, formula, deadline, &mut tick)?.result
     };
     Ok(job.report(result, started))
 }
 
-/// What `find` does when the formula is too large to hold: local search (for
-/// cliques, up to its largest order) until the deadline; otherwise unknown.
+/// What `find` does when the formula is too large to hold: local search (up to
+/// its largest order) until the deadline; otherwise unknown.
 fn local_search_only(
     job: &SearchJob,
     deadline: Option<Instant>,
 ) -> Result<SearchResult, SearchError> {
-    if !job.spec().is_cliques() || job.order() > MAX_LOCAL_ORDER {
+    if job.order() > MAX_LOCAL_ORDER {
         return Ok(SearchResult::Unknown);
     }
     let local_options = LocalOptions {

@@ -79,22 +79,6 @@ impl SearchJob {
         self.options.timeout.map(|t| started + t)
     }
 
-    /// The same job with another timeout (for a later stage of a run).
-    pub fn with_timeout(&self, timeout: Option<Duration>) -> SearchJob {
-        SearchJob {
-            instance: self.instance.clone(),
-            symmetry: self.symmetry.clone(),
-            options: SearchOptions {
-                timeout,
-                ..self.options.clone()
-            },
-            progress: SearchProgress {
-                attempts: AtomicU64::new(self.progress.attempts.load(Ordering::SeqCst)),
-                proof_bytes: AtomicU64::new(self.progress.proof_bytes.load(Ordering::SeqCst)),
-            },
-        }
-    }
-
     /// Checks that `formula` encodes this job's instance with its symmetry breaking.
     pub fn check_formula(&self, formula: &Formula) -> Result<(), SearchError> {
         if formula.instance() == &self.instance && formula.symmetry() == &self.symmetry {
