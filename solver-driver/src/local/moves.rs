@@ -43,7 +43,7 @@ fn tabu_move(
     state: &mut LocalState,
     tabu: &mut TabuList,
     best_cost: u64,
-    edges: &[(usize, usize)],
+    edges: impl IntoIterator<Item = (usize, usize)>,
     tenure: (u64, u64),
     rng: &mut impl Rng,
 ) -> bool {
@@ -51,7 +51,7 @@ fn tabu_move(
     tabu.step += 1;
     let mut best: Option<(i64, usize, usize, u8)> = None;
     let mut ties = 0u32;
-    for &(u, v) in edges {
+    for (u, v) in edges {
         let e = edge_index(u, v);
         let (from, loss) = (state.colour(u, v), state.through(u, v) as i64);
         for to in (1..=r).filter(|&c| c != from) {
@@ -92,9 +92,9 @@ pub fn tabu_step(
     rng: &mut impl Rng,
 ) -> bool {
     let n = state.order();
-    let edges: Vec<(usize, usize)> = (1..n).flat_map(|v| (0..v).map(move |u| (u, v))).collect();
+    let edges = (1..n).flat_map(|v| (0..v).map(move |u| (u, v)));
     let span = edge_count(n) as u64 / 16 + 1;
-    tabu_move(state, tabu, best_cost, &edges, (5, span), rng)
+    tabu_move(state, tabu, best_cost, edges, (5, span), rng)
 }
 
 /// One focused tabu step (moves on bad edges only, tenure following their
@@ -107,7 +107,7 @@ pub fn focused_tabu_step(
 ) -> bool {
     let bad = state.bad_edges();
     let span = bad.len() as u64 / 4 + 1;
-    tabu_move(state, tabu, best_cost, &bad, (2, span), rng)
+    tabu_move(state, tabu, best_cost, bad, (2, span), rng)
 }
 
 /// One annealing step at temperature `temperature`; returns whether the move was kept.

@@ -271,6 +271,35 @@ mod tests {
         }
     }
 
+    /// Makes `moves` random recolourings; after each, the cost moved by the delta
+    /// and equals a recount, and every edge's count equals its copies.
+    fn random_moves_keep_counts_exact(
+        state: &mut LocalState,
+        rng: &mut ChaCha8Rng,
+        moves: usize,
+    ) -> Result<(), TestCaseError> {
+        let n = state.order();
+        for _ in 0..moves {
+            let v = rng.gen_range(1..n);
+            let u = rng.gen_range(0..v);
+            let to = rng.gen_range(1..=state.colours() as u8);
+            let before = state.cost();
+            let delta = state.delta(u, v, to);
+            state.recolour(u, v, to);
+            prop_assert_eq!(state.cost() as i64, before as i64 + delta);
+            prop_assert_eq!(state.cost(), state.recount());
+            for y in 1..n {
+                for x in 0..y {
+                    prop_assert_eq!(
+                        state.through(x, y),
+                        state.copies_through(x, y, state.colour(x, y))
+                    );
+                }
+            }
+        }
+        Ok(())
+    }
+
     proptest! {
         /// The delta evaluation equals a full recount after every move.
         #[test]
@@ -282,21 +311,7 @@ mod tests {
         ) {
             let mut rng = ChaCha8Rng::seed_from_u64(seed);
             let mut state = LocalState::random(n, &Pattern::cliques(&sizes), &mut rng);
-            for _ in 0..moves {
-                let v = rng.gen_range(1..n);
-                let u = rng.gen_range(0..v);
-                let to = rng.gen_range(1..=sizes.len() as u8);
-                let before = state.cost();
-                let delta = state.delta(u, v, to);
-                state.recolour(u, v, to);
-                prop_assert_eq!(state.cost() as i64, before as i64 + delta);
-                prop_assert_eq!(state.cost(), state.recount());
-                for y in 1..n {
-                    for x in 0..y {
-                        prop_assert_eq!(state.through(x, y), state.copies_through(x, y, state.colour(x, y)));
-                    }
-                }
-            }
+            random_moves_keep_counts_exact(&mut state, &mut rng, moves)?;
             prop_assert_eq!(state.cost(), brute_force(&state.to_colouring(), &sizes));
         }
     }
@@ -355,21 +370,7 @@ mod tests {
             let patterns = Pattern::for_spec(&spec);
             let mut rng = ChaCha8Rng::seed_from_u64(seed);
             let mut state = LocalState::random(n, &patterns, &mut rng);
-            for _ in 0..moves {
-                let v = rng.gen_range(1..n);
-                let u = rng.gen_range(0..v);
-                let to = rng.gen_range(1..=patterns.len() as u8);
-                let before = state.cost();
-                let delta = state.delta(u, v, to);
-                state.recolour(u, v, to);
-                prop_assert_eq!(state.cost() as i64, before as i64 + delta);
-                prop_assert_eq!(state.cost(), state.recount());
-                for y in 1..n {
-                    for x in 0..y {
-                        prop_assert_eq!(state.through(x, y), state.copies_through(x, y, state.colour(x, y)));
-                    }
-                }
-            }
+            random_moves_keep_counts_exact(&mut state, &mut rng, moves)?;
             let colouring = state.to_colouring();
             let expected: u64 = spec
                 .forbidden()

@@ -19,9 +19,9 @@ use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::error::ShardError;
 use super::plan::{plan_sha256, Cube, Plan, PlanTree};
-use super::result::{recorded_result, witness_path, ShardResult, ShardStatus};
-use super::status::array_list;
-use super::{shard_dir, PLAN_FILE, RESULT_FILE, SHARD_PROOF_FILE};
+use super::result::{recorded_result, witness_path, ShardResult};
+use super::status::{array_list, classify_shards};
+use super::{shard_dir, PLAN_FILE, SHARD_PROOF_FILE};
 use crate::certify::bundle::{
     sha256_hex, write_manifest_and_guide, FileRecord, Manifest, ShardingRecord, FORMULA_FILE,
 };
@@ -110,34 +110,26 @@ fn finished_results(
     plan: &Plan,
     plan_sha256: &str,
 ) -> Result<Vec<ShardResult>, ShardError> {
-    let (mut results, mut damaged, mut missing) = (Vec::new(), Vec::new(), Vec::new());
-    for cube in &plan.cubes {
-        match recorded_result(plan_dir, cube.index, plan_sha256) {
-            Some(r) if r.status == ShardStatus::Found => {
-                return Err(ShardError::ClaimFalse {
-                    index: cube.index,
-                    order: plan.order,
-                    spec: plan.spec.clone(),
-                    witness: witness_path(plan_dir, cube.index),
-                })
-            }
-            Some(r) => results.push(r),
-            None if shard_dir(plan_dir, cube.index).join(RESULT_FILE).exists() => {
-                damaged.push(cube.index)
-            }
-            None => missing.push(cube.index),
-        }
+    // The records alone: each trace is hashed once, when it is taken in.
+    let read = |index| recorded_result(plan_dir, index, plan_sha256);
+    let (status, results) = classify_shards(plan_dir, plan.cubes.len(), read);
+    if let Some(&index) = status.found.first() {
+        return Err(ShardError::ClaimFalse {
+            index,
+            order: plan.order,
+            spec: plan.spec.clone(),
+            witness: witness_path(plan_dir, index),
+        });
     }
-    if damaged.is_empty() && missing.is_empty() {
+    let pending = status.to_resubmit();
+    if pending.is_empty() {
         return Ok(results);
     }
-    let mut pending: Vec<usize> = damaged.iter().chain(&missing).copied().collect();
-    pending.sort_unstable();
     Err(ShardError::NotDone {
         pending: pending.len(),
         shards: plan.cubes.len(),
-        damaged: damaged.len(),
-        missing: missing.len(),
+        damaged: status.damaged.len(),
+        missing: status.missing.len(),
         array: array_list(&pending),
         plan_dir: plan_dir.to_path_buf(),
     })

@@ -108,6 +108,7 @@ impl Propagator {
     }
 
     /// Clears the trail and assigns the formula's unit clauses.
+    /// Clears the trail and assigns the formula's unit clauses.
     pub fn reset(&mut self) -> Result<(), Conflict> {
         self.undo_to(0);
         if self.has_empty {
@@ -152,9 +153,10 @@ impl Propagator {
             let falsified = -self.trail[self.head];
             self.head += 1;
             let mut list = std::mem::take(&mut self.watches[slot(falsified)]);
+            // A clause leaving this list moves to a literal that is not false,
+            // never back to `falsified`, so the list is put back as it is.
             let result = self.visit(falsified, &mut list);
-            let moved_in = std::mem::replace(&mut self.watches[slot(falsified)], list);
-            self.watches[slot(falsified)].extend(moved_in);
+            self.watches[slot(falsified)] = list;
             result?;
         }
         Ok(())

@@ -5,7 +5,7 @@
 use std::path::Path;
 
 use super::plan::plan_sha256;
-use super::result::{complete_result, ShardStatus};
+use super::result::{complete_result, ShardResult, ShardStatus};
 use super::{shard_dir, RESULT_FILE};
 
 /// The state of every shard.
@@ -31,16 +31,28 @@ impl PlanStatus {
     }
 }
 
+/// The state of every shard, its traces checked against their records.
 pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
-    let mut status = PlanStatus::default();
     // Without a readable plan no result can belong to it.
     let plan_sha256 = plan_sha256(plan_dir);
+    let read = |index| complete_result(plan_dir, index, plan_sha256.as_deref()?);
+    classify_shards(plan_dir, shards, read).0
+}
+
+/// The state of every shard as `read` gives its result (None: no usable
+/// record), and the refuted shards' results in index order.
+pub fn classify_shards(
+    plan_dir: &Path,
+    shards: usize,
+    read: impl Fn(usize) -> Option<ShardResult>,
+) -> (PlanStatus, Vec<ShardResult>) {
+    let (mut status, mut refuted) = (PlanStatus::default(), Vec::new());
     for index in 0..shards {
-        match plan_sha256
-            .as_deref()
-            .and_then(|sha| complete_result(plan_dir, index, sha))
-        {
-            Some(r) if r.status == ShardStatus::Refuted => status.done.push(index),
+        match read(index) {
+            Some(r) if r.status == ShardStatus::Refuted => {
+                status.done.push(index);
+                refuted.push(r);
+            }
             Some(_) => status.found.push(index),
             None if shard_dir(plan_dir, index).join(RESULT_FILE).exists() => {
                 status.damaged.push(index)
@@ -53,7 +65,7 @@ pub fn plan_status(plan_dir: &Path, shards: usize) -> PlanStatus {
             }
         }
     }
-    status
+    (status, refuted)
 }
 
 /// Slurm's array syntax for a list of indices: `0,3-5,9`.
