@@ -7,7 +7,9 @@
 //! 3. The formula is regenerated from the claim with the checker's own generator
 //!    ([`crate::regenerate`]), never past the bundled formula's clause count, and
 //!    compared with the bundled CNF as a multiset of clauses.
-//! 4. The proof is checked against it: one DRAT trace ([`crate::drat_check`]), or
+//! 4. With the `minimality` scheme, each clause of `minimality.txt` is verified
+//!    on its own by its relabelling ([`crate::minimality`]) and joins the formula.
+//!    The proof is checked against it: one DRAT trace ([`crate::drat_check`]), or
 //!    every shard under its cube with a complete coverage tree ([`crate::shards`]).
 //! 5. Premises (smaller Ramsey values used by degree bounds) are certified by the
 //!    bundles given with `--premise` and those in `premises/` ([`crate::premises`]);
@@ -144,7 +146,7 @@ fn check_own_proof(
             manifest.claim.statement, verdict.claim
         ));
     }
-    let (mut formula, mut proof) = (None, None);
+    let (mut formula, mut proof, mut minimality) = (None, None, None);
     for file in &manifest.files {
         let path = bundle_file(root, &file.name)?;
         let actual = sha256_of(&path)?;
@@ -154,7 +156,10 @@ fn check_own_proof(
         match file.role.as_str() {
             "formula" if formula.is_none() => formula = Some(path),
             "drat-proof" if proof.is_none() => proof = Some(path),
-            "formula" | "drat-proof" => return Err(format!("the manifest lists a second {} file", file.role)),
+            "minimality-clauses" if minimality.is_none() => minimality = Some(path),
+            "formula" | "drat-proof" | "minimality-clauses" => {
+                return Err(format!("the manifest lists a second {} file", file.role))
+            }
             _ => {}
         }
     }
@@ -179,6 +184,7 @@ fn check_own_proof(
         ours.0, ours.1
     ));
 
+    let cnf = with_minimality_clauses(cnf, minimality.as_deref(), manifest, statement, verdict)?;
     if let Some(sharding) = &manifest.sharding {
         let summary = crate::shards::check_shards(root, &cnf, sharding, &manifest.files)?;
         verdict.passed.push(summary);
@@ -188,6 +194,41 @@ fn check_own_proof(
         verdict.passed.push(format!("DRAT proof verified: {summary}"));
     }
     Ok(regenerated.used_premises)
+}
+
+/// Verifies the minimality clauses (if the scheme is used) and adds them to the formula.
+fn with_minimality_clauses(
+    mut cnf: Cnf,
+    file: Option<&Path>,
+    manifest: &Manifest,
+    statement: &Statement,
+    verdict: &mut BundleVerdict,
+) -> Result<Cnf, String> {
+    let scheme = statement.symmetry.iter().any(|s| s == "minimality");
+    let order = manifest.encoding.minimality_order.as_deref();
+    match (scheme, file) {
+        (false, Some(_)) => {
+            return Err("the bundle has minimality clauses but its symmetry does not list minimality".into())
+        }
+        (false, None) if order.is_some() => return Err("minimality_order is set but minimality is not used".into()),
+        (false, None) => return Ok(cnf),
+        (true, _) if order != Some(crate::minimality::MATRIX_ORDER) => {
+            return Err(format!(
+                "the manifest's minimality order is {order:?}; this checker verifies only {:?}",
+                crate::minimality::MATRIX_ORDER
+            ))
+        }
+        (true, None) => return Ok(cnf),
+        (true, Some(_)) => {}
+    }
+    let path = file.expect("present");
+    let name = path.display().to_string();
+    let bytes = read_input(path).map_err(|e| format!("the minimality clauses cannot be read: {e}"))?;
+    let clauses = crate::minimality::verified_clauses(&name, &bytes, &statement.forbidden, statement.order)
+        .map_err(|e| format!("a minimality clause is rejected: {e}"))?;
+    verdict.passed.push(format!("{} minimality clauses verified, each by its relabelling", clauses.len()));
+    cnf.clauses.extend(clauses);
+    Ok(cnf)
 }
 
 /// Checks one DRAT trace against the formula with `cube` added as unit clauses.

@@ -38,6 +38,7 @@ pub mod input_error;
 pub mod lrat;
 pub mod manifest;
 pub mod matrix;
+pub mod minimality;
 pub mod premises;
 pub mod regenerate;
 pub mod shards;

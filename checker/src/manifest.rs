@@ -43,6 +43,9 @@ pub struct ClaimRecord {
 #[derive(Clone, Debug, Deserialize)]
 pub struct EncodingRecord {
     pub symmetry: Vec<String>,
+    /// With the minimality scheme: the order its clauses decrease in.
+    #[serde(default)]
+    pub minimality_order: Option<String>,
 }
 
 #[derive(Clone, Debug, Deserialize)]

@@ -111,11 +111,15 @@ fn elementary_or_premise(smaller: &[usize], premises: &[PremiseBound]) -> Option
 pub fn regenerate(statement: &Statement, max_clauses: usize) -> Result<Regenerated, String> {
     let (n, r) = (statement.order, statement.forbidden.len());
     for name in &statement.symmetry {
-        if !["colour-swap", "lex-leader", "degree-bounds"].contains(&name.as_str()) {
+        if !["colour-swap", "lex-leader", "degree-bounds", "minimality"].contains(&name.as_str()) {
             return Err(format!("unknown symmetry scheme {name:?}"));
         }
     }
     let has = |name: &str| statement.symmetry.iter().any(|s| s == name);
+    // Minimality keeps each class's least member; these two keep other members.
+    if has("minimality") && (has("colour-swap") || has("lex-leader")) {
+        return Err("minimality cannot be combined with colour-swap or lex-leader".into());
+    }
     let edges = n * n.saturating_sub(1) / 2;
     let mut variables = if r == 2 { edges } else { edges * r };
     let too_many = || format!("the claim's formula has more than the {max_clauses} clauses of the bundled formula");

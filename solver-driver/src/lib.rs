@@ -26,6 +26,7 @@ pub mod draw;
 pub mod enumerate;
 pub mod exit_codes;
 pub mod local;
+pub mod minimality;
 pub mod output;
 pub mod search;
 pub mod shard;

@@ -32,16 +32,26 @@ pub enum Scheme {
     LexLeader,
     /// Maximum degree in each colour, from smaller Ramsey numbers.
     DegreeBounds,
+    /// Lex-minimality checks during the search: no clauses in the formula; the
+    /// search adds each clause with the permutation that justifies it.
+    Minimality,
 }
 
 impl Scheme {
+    /// The static schemes: those that put clauses in the formula.
     pub const ALL: [Scheme; 3] = [Scheme::ColourSwap, Scheme::LexLeader, Scheme::DegreeBounds];
+
+    /// Applied during the search rather than written into the formula.
+    pub fn is_dynamic(self) -> bool {
+        self == Scheme::Minimality
+    }
 
     pub fn name(self) -> &'static str {
         match self {
             Scheme::ColourSwap => "colour-swap",
             Scheme::LexLeader => "lex-leader",
             Scheme::DegreeBounds => "degree-bounds",
+            Scheme::Minimality => "minimality",
         }
     }
 
@@ -74,6 +84,18 @@ impl Scheme {
                  on the smaller Ramsey values listed as premises; encoded with Sinz's \
                  sequential counter (CP 2005)."
             }
+            Scheme::Minimality => {
+                "Dynamic symmetry breaking by minimality checks (Kirchweger & Szeider, 'SAT \
+                 modulo symmetries for graph generation', CP 2021). Order: the colour matrix \
+                 read edge by edge in index order ({0,1},{0,2},{1,2},{0,3},…: edge {i,j}, i<j, \
+                 has index j(j-1)/2+i), colour 1 < colour 2 < …. Each added clause comes with \
+                 a vertex permutation p (and a permutation s of colours with equal forbidden \
+                 graphs): every colouring A falsifying the clause has s(A[p(i)][p(j)]) \
+                 smaller than A in that order. Every class of colourings under relabelling has \
+                 a least member, which therefore satisfies every such clause, and the formula \
+                 (invariant under these relabellings) keeps it. Combines with degree-bounds \
+                 (also invariant); not with colour-swap or lex-leader, which pick other members."
+            }
         }
     }
 }
@@ -86,8 +108,10 @@ impl fmt::Display for Scheme {
 
 #[derive(Debug, Error, PartialEq, Eq)]
 pub enum SymmetryError {
-    #[error("unknown symmetry scheme {0:?}: expected none, colour-swap, lex-leader or degree-bounds (comma separated)")]
+    #[error("unknown symmetry scheme {0:?}: expected none, colour-swap, lex-leader, degree-bounds or minimality (comma separated)")]
     Unknown(String),
+    #[error("minimality cannot be combined with {0}: they keep different members of a class (minimality combines with degree-bounds only)")]
+    Incompatible(&'static str),
 }
 
 /// A set of schemes, kept in canonical order.
@@ -114,6 +138,24 @@ impl SymmetrySet {
 
     pub fn schemes(&self) -> &[Scheme] {
         &self.schemes
+    }
+
+    /// Whether a scheme applied during the search is in the set.
+    pub fn has_dynamic(&self) -> bool {
+        self.schemes.iter().any(|s| s.is_dynamic())
+    }
+
+    /// Minimality keeps the least member of each class; colour-swap and
+    /// lex-leader keep other members, so they do not combine with it.
+    pub fn check_compatible(&self) -> Result<(), SymmetryError> {
+        if self.contains(Scheme::Minimality) {
+            for other in [Scheme::ColourSwap, Scheme::LexLeader] {
+                if self.contains(other) {
+                    return Err(SymmetryError::Incompatible(other.name()));
+                }
+            }
+        }
+        Ok(())
     }
 
     pub fn is_empty(&self) -> bool {
@@ -171,11 +213,14 @@ impl FromStr for SymmetrySet {
             let part = part.trim();
             let scheme = Scheme::ALL
                 .into_iter()
+                .chain([Scheme::Minimality])
                 .find(|s| s.name() == part)
                 .ok_or_else(|| SymmetryError::Unknown(part.to_string()))?;
             schemes.push(scheme);
         }
-        Ok(SymmetrySet::of(&schemes))
+        let set = SymmetrySet::of(&schemes);
+        set.check_compatible()?;
+        Ok(set)
     }
 }
 

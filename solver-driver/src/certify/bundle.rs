@@ -62,6 +62,9 @@ pub struct EncodingRecord {
     pub clauses: u64,
     pub symmetry: Vec<String>,
     pub justifications: Vec<SchemeRecord>,
+    /// With the minimality scheme: the order its clauses decrease in.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub minimality_order: Option<String>,
 }
 
 #[derive(Clone, Debug, Serialize)]
@@ -219,6 +222,10 @@ pub fn encoding_record(encoding: &RamseyEncoding) -> EncodingRecord {
                 justification: s.justification().to_string(),
             })
             .collect(),
+        minimality_order: encoding
+            .symmetry()
+            .contains(ramsift_encoder::Scheme::Minimality)
+            .then(|| crate::minimality::certificate::MATRIX_ORDER.to_string()),
     }
 }
 

@@ -5,6 +5,10 @@
 //! runs; only when the formula is proven unsatisfiable is it renamed into place
 //! (compressed first if asked), and the formula, the manifest and the guide are
 //! written. A timeout or a satisfiable formula leaves no bundle behind.
+//!
+//! With the `minimality` scheme the hooked solver runs instead of varisat, and
+//! the clauses its minimality check added go, each with its witness, to a second
+//! temporary file that becomes `minimality.txt` the same way.
 
 use std::io::{self, BufWriter};
 use std::path::{Path, PathBuf};
@@ -15,16 +19,19 @@ use thiserror::Error;
 
 use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
-use ramsift_encoder::{Colouring, RamseyEncoding};
+use ramsift_encoder::{Colouring, RamseyEncoding, Scheme};
 
 use crate::certify::bundle::{
     write_manifest_and_guide, FileRecord, Manifest, PremiseRecord, FORMULA_FILE,
 };
 use crate::certify::witness_check::verify_witness;
+use crate::minimality::certificate::CERTIFICATE_FILE;
+use crate::minimality::solve::solve_certified;
 use crate::search::attempt::{
     run_attempt_with_proof, AttemptError, AttemptOutcome, AttemptPlan, ProofOutput,
 };
 use crate::search::formula::Formula;
+use ramsift_cdcl::Outcome;
 
 /// How to refute.
 #[derive(Clone, Debug, Default)]
@@ -99,14 +106,53 @@ pub fn refute(
         source,
     };
     ensure_dir(dir).map_err(io_error)?;
-    let formula = Formula::from_encoding(encoding);
-    let trace = tempfile::Builder::new()
-        .prefix(".proof.")
-        .suffix(".tmp")
-        .tempfile_in(dir)
-        .map_err(io_error)?;
+    let temporary = |prefix: &str| {
+        tempfile::Builder::new()
+            .prefix(prefix)
+            .suffix(".tmp")
+            .tempfile_in(dir)
+            .map_err(io_error)
+    };
+    let trace = temporary(".proof.")?;
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
+    if encoding.symmetry().contains(Scheme::Minimality) {
+        let certificate = temporary(".minimality.")?;
+        let run = solve_certified(
+            encoding,
+            trace.as_file(),
+            certificate.as_file(),
+            options.text_proof,
+            Some(bytes_seen),
+            stop,
+            deadline,
+        )
+        .map_err(io_error)?;
+        let solve_seconds = started.elapsed().as_secs_f64();
+        let result = match (run.outcome, run.colouring) {
+            (Outcome::Unsatisfiable, _) => {
+                let written = BundleParts {
+                    trace,
+                    certificate: Some(certificate),
+                    solver: HOOKED_SOLVER_NAME,
+                };
+                let (files, manifest) =
+                    write_refutation_bundle(encoding, dir, options, written, solve_seconds)?;
+                RefuteResult::Refuted {
+                    files,
+                    proof_bytes: run.proof_bytes,
+                    manifest: Box::new(manifest),
+                }
+            }
+            (Outcome::Satisfiable, Some(colouring)) => checked_colouring(encoding, colouring)?,
+            _ => RefuteResult::Unknown,
+        };
+        return Ok(RefuteReport {
+            result,
+            solve_seconds,
+        });
+    }
+    let formula = Formula::from_encoding(encoding);
     let proof = ProofOutput {
         writer: BufWriter::with_capacity(1 << 20, trace.as_file()),
         text: options.text_proof,
@@ -122,16 +168,15 @@ pub fn refute(
     let solve_seconds = started.elapsed().as_secs_f64();
     let result = match report.outcome {
         AttemptOutcome::Stopped(_) => RefuteResult::Unknown,
-        AttemptOutcome::Satisfiable(colouring) => {
-            let verdict = verify_witness(encoding.instance().spec(), &colouring);
-            if !verdict.is_valid() {
-                return Err(RefuteError::WitnessRejected(verdict.to_string()));
-            }
-            RefuteResult::Found(colouring)
-        }
+        AttemptOutcome::Satisfiable(colouring) => checked_colouring(encoding, colouring)?,
         AttemptOutcome::Unsatisfiable => {
+            let parts = BundleParts {
+                trace,
+                certificate: None,
+                solver: crate::SOLVER_NAME,
+            };
             let (written, manifest) =
-                write_refutation_bundle(encoding, dir, options, trace, solve_seconds)?;
+                write_refutation_bundle(encoding, dir, options, parts, solve_seconds)?;
             RefuteResult::Refuted {
                 files: written,
                 proof_bytes: report.proof_bytes,
@@ -145,15 +190,50 @@ pub fn refute(
     })
 }
 
+/// The solver's colouring, after the independent check.
+fn checked_colouring(
+    encoding: &RamseyEncoding,
+    colouring: Colouring,
+) -> Result<RefuteResult, RefuteError> {
+    let verdict = verify_witness(encoding.instance().spec(), &colouring);
+    if !verdict.is_valid() {
+        return Err(RefuteError::WitnessRejected(verdict.to_string()));
+    }
+    Ok(RefuteResult::Found(colouring))
+}
+
+/// The name of the hooked solver in manifests.
+pub const HOOKED_SOLVER_NAME: &str = "ramsift-cdcl (our CDCL with a minimality hook)";
+
+/// The finished temporary files of a refutation and the solver that made them.
+struct BundleParts {
+    trace: tempfile::NamedTempFile,
+    certificate: Option<tempfile::NamedTempFile>,
+    solver: &'static str,
+}
+
+/// Makes a finished temporary file readable and renames it into place.
+fn persist(file: tempfile::NamedTempFile, path: &Path) -> io::Result<()> {
+    #[cfg(unix)]
+    {
+        use std::os::unix::fs::PermissionsExt;
+        file.as_file()
+            .set_permissions(std::fs::Permissions::from_mode(0o644))?;
+    }
+    file.as_file().sync_all()?;
+    file.persist(path).map(|_| ()).map_err(|e| e.error)
+}
+
 /// Puts the finished trace in place (compressed if asked) and writes the formula,
 /// the manifest and the guide. Returns the files written and the manifest.
 fn write_refutation_bundle(
     encoding: &RamseyEncoding,
     dir: &Path,
     options: &RefuteOptions,
-    trace: tempfile::NamedTempFile,
+    parts: BundleParts,
     solve_seconds: f64,
 ) -> Result<(Vec<PathBuf>, Manifest), RefuteError> {
+    let trace = parts.trace;
     let io_error = |source: io::Error| RefuteError::Io {
         dir: dir.to_path_buf(),
         source,
@@ -166,15 +246,7 @@ fn write_refutation_bundle(
         write_atomically(&proof_path, |w| io::copy(&mut source, w).map(|_| ()))
             .map_err(io_error)?;
     } else {
-        #[cfg(unix)]
-        {
-            use std::os::unix::fs::PermissionsExt;
-            trace
-                .as_file()
-                .set_permissions(std::fs::Permissions::from_mode(0o644))
-                .map_err(io_error)?;
-        }
-        trace.persist(&proof_path).map_err(|e| io_error(e.error))?;
+        persist(trace, &proof_path).map_err(io_error)?;
     }
     let formula_path = dir.join(FORMULA_FILE);
     write_encoding_to(encoding, &formula_path).map_err(io_error)?;
@@ -184,12 +256,27 @@ fn write_refutation_bundle(
         (true, false) => "text DRAT",
         (true, true) => "text DRAT, gzip",
     };
-    let files = vec![
+    let mut files = vec![
         FileRecord::of(dir, FORMULA_FILE, "formula", "DIMACS CNF, gzip").map_err(io_error)?,
         FileRecord::of(dir, &proof_name, "drat-proof", proof_format).map_err(io_error)?,
     ];
-    let manifest = Manifest::new(encoding, files, solve_seconds, None);
     let mut written = vec![formula_path, proof_path];
+    if let Some(certificate) = parts.certificate {
+        let path = dir.join(CERTIFICATE_FILE);
+        persist(certificate, &path).map_err(io_error)?;
+        files.push(
+            FileRecord::of(
+                dir,
+                CERTIFICATE_FILE,
+                "minimality-clauses",
+                "ramsift minimality clauses 1",
+            )
+            .map_err(io_error)?,
+        );
+        written.push(path);
+    }
+    let mut manifest = Manifest::new(encoding, files, solve_seconds, None);
+    manifest.solver = parts.solver.to_string();
     written.extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
     Ok((written, manifest))
 }
