@@ -27,10 +27,7 @@ fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
     // vertex-transitive (the circulant with distances {1,5}, DS1); so exactly one class
     // of K_12 colourings is a vertex-deleted (3,5;13) colouring and extends.
     let twelve = Instance::new(RamseySpec::cliques(&[3, 5]).unwrap(), 12).unwrap();
-    let options = EnumerateOptions {
-        swap_colours: false,
-        timeout: None,
-    };
+    let options = EnumerateOptions::default();
     let classes = enumerate(&twelve, &options, &AtomicBool::new(false), |_, _| {})
         .unwrap()
         .classes;

@@ -72,7 +72,24 @@ fn single_trace_guide_commands_succeed_and_premises_are_stated_exactly() {
         "{guide}"
     );
     assert!(!guide.contains("ASSUMED"), "{guide}");
-    assert_eq!(run_guide(&bundle), 5);
+    // The default (minimality): check, build the formula with the minimality
+    // clauses, check the trace against it.
+    assert!(guide.contains("minimality.txt lists"), "{guide}");
+    assert_eq!(run_guide(&bundle), 3);
+
+    // Static symmetry breaking only: check, the trace alone, gunzip, LRAT (2).
+    let static_only = dir.path().join("static");
+    ramsift(&[
+        "refute",
+        "4,4",
+        "18",
+        "--symmetry",
+        "colour-swap,lex-leader,degree-bounds",
+        "--out",
+        static_only.to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(run_guide(&static_only), 5);
 
     let assumed = dir.path().join("assumed");
     ramsift(&[

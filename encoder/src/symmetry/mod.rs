@@ -173,6 +173,17 @@ impl SymmetrySet {
         }
     }
 
+    /// The default of `ramsift refute`: minimality during the search, with degree
+    /// bounds for cliques (both invariant under relabelling, so they combine;
+    /// measured in BENCHMARKS.md, "Minimality checks").
+    pub fn for_certified_refutation(spec: &RamseySpec) -> Self {
+        if spec.is_cliques() {
+            SymmetrySet::of(&[Scheme::DegreeBounds, Scheme::Minimality])
+        } else {
+            SymmetrySet::of(&[Scheme::Minimality])
+        }
+    }
+
     /// The schemes enumeration uses: lex-leader (and colour-swap when classes up to
     /// colour permutation are asked for). Degree bounds are left out: they cut
     /// colourings by degree, not only isomorphic copies.

@@ -1,7 +1,6 @@
 //! Solves a DIMACS CNF file with no hook and prints the outcome, the time and the
 //! solver's counters: `cargo run --release -p ramsift-cdcl --example solve_cnf FILE`.
 
-use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
 use ramsift_cdcl::{NoHook, Solver};
@@ -25,7 +24,7 @@ fn main() {
         }
     }
     let started = Instant::now();
-    let outcome = solver.solve(&mut NoHook, &AtomicBool::new(false), None);
+    let outcome = solver.solve(&mut NoHook, &|| false, None);
     println!(
         "{outcome:?} in {:.3}s: {:?}",
         started.elapsed().as_secs_f64(),

@@ -1,7 +1,6 @@
 //! The search loop: propagation, conflict analysis, the hook's axioms, restarts
 //! and deletion of learnt clauses.
 
-use std::sync::atomic::{AtomicBool, Ordering};
 use std::time::Instant;
 
 use crate::activity::Activity;
@@ -545,13 +544,14 @@ impl<'p> Solver<'p> {
         false
     }
 
-    /// Searches until a model the hook accepts, a refutation, a raised `stop` or
-    /// the `deadline`. The solver keeps its clauses, so more clauses may be added
-    /// and `solve` called again (for enumeration).
+    /// Searches until a model the hook accepts, a refutation, `stop()` (asked
+    /// every 128 conflicts and every 128 axioms) or the `deadline`. The solver
+    /// keeps its clauses, so more clauses may be added and `solve` called again
+    /// (for enumeration).
     pub fn solve(
         &mut self,
         hook: &mut dyn SearchHook,
-        stop: &AtomicBool,
+        stop: &dyn Fn() -> bool,
         deadline: Option<Instant>,
     ) -> Outcome {
         self.backtrack(0);
@@ -572,8 +572,7 @@ impl<'p> Solver<'p> {
                 }
                 self.learn(conflict);
                 if self.stats.conflicts % 128 == 0
-                    && (stop.load(Ordering::Relaxed)
-                        || deadline.is_some_and(|d| Instant::now() >= d))
+                    && (stop() || deadline.is_some_and(|d| Instant::now() >= d))
                 {
                     return Outcome::Interrupted;
                 }
@@ -596,7 +595,7 @@ impl<'p> Solver<'p> {
                     }
                     AxiomEffect::Unsatisfiable => return Outcome::Unsatisfiable,
                 }
-                if self.stats.axioms % 128 == 0 && stop.load(Ordering::Relaxed) {
+                if self.stats.axioms % 128 == 0 && (stop() || deadline.is_some_and(|d| Instant::now() >= d)) {
                     return Outcome::Interrupted;
                 }
                 continue;

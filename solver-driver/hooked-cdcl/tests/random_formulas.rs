@@ -3,7 +3,6 @@
 //! about 4.26, common practice), and every refutation's DRAT trace against the
 //! checker's DRAT code; models are checked clause by clause.
 
-use std::sync::atomic::AtomicBool;
 
 use ramsift_cdcl::{Assignment, NoHook, Outcome, ProofSink, SearchHook, Solver};
 use ramsift_checker::cnf::Cnf;
@@ -89,7 +88,7 @@ fn agrees_with_varisat_and_proofs_check() {
             for c in &formula {
                 solver.add_clause(c);
             }
-            let outcome = solver.solve(&mut NoHook, &AtomicBool::new(false), None);
+            let outcome = solver.solve(&mut NoHook, &|| false, None);
             if outcome == Outcome::Satisfiable {
                 assert!(
                     satisfies(&solver, &formula),
@@ -159,7 +158,7 @@ fn hook_axioms_enumerate_every_model() {
             solver.add_clause(c);
         }
         let mut hook = BlockEveryModel { seen: 0 };
-        let outcome = solver.solve(&mut hook, &AtomicBool::new(false), None);
+        let outcome = solver.solve(&mut hook, &|| false, None);
         assert_eq!(outcome, Outcome::Unsatisfiable, "round {round}");
         assert_eq!(hook.seen, brute, "round {round}");
     }

@@ -132,7 +132,7 @@ mod tests {
         sink.add(&[1, -2]);
         sink.delete(&[1, -2]);
         sink.add(&[]);
-        assert_eq!(sink.bytes, 17);
+        assert_eq!(sink.bytes, 18);
         assert_eq!(sink.out, b"1 -2 0\nd 1 -2 0\n0\n");
     }
 }

@@ -11,6 +11,7 @@ use ramsift_encoder::atomic_file::write_atomically;
 use super::bundle::{
     premise_folder, FileRecord, Manifest, FORMULA_FILE, GUIDE_FILE, MANIFEST_FILE,
 };
+use crate::minimality::certificate::CERTIFICATE_FILE;
 
 /// What the claim rests on, exactly: each premise certified by a bundle present
 /// in `dir/premises/`, or assumed.
@@ -63,11 +64,30 @@ fn symmetry_text(manifest: &Manifest) -> String {
             .map(|s| format!("  - {}: {}", s.scheme, s.justification))
             .collect();
         format!(
-            "The formula adds symmetry-breaking constraints. Each keeps at least one copy of every \
+            "Symmetry breaking was used (in the formula, or with minimality in its own file). Each scheme keeps at least one copy of every \
              colouring up to relabelling, so the formula is satisfiable exactly when a colouring exists:\n{}",
             list.join("\n")
         )
     }
+}
+
+/// The minimality clauses, in words: what each line says and why adding them
+/// keeps the claim.
+fn minimality_text(manifest: &Manifest, lines: usize) -> String {
+    format!(
+        "{CERTIFICATE_FILE} lists {lines} clauses the search added by its minimality check, one per line:\n\
+         a vertex map p, a colour map s, and the clause. Read the clause's negation as a partial colouring\n\
+         (for two colours variable e+1 true is colour 1, false colour 2). Relabel it: position {{i,j}} gets\n\
+         s(colour of {{p_i,p_j}}). Compare edge by edge in the order {order} (edge {{i,j}}, i<j,\n\
+         has index j(j-1)/2+i; colour 1 is smallest): the relabelled colouring must be smaller at the first\n\
+         edge where the two differ, with every colour up to there fixed by the clause. Then every colouring\n\
+         that falsifies the clause has a smaller relabelling, so the least member of each class of\n\
+         colourings satisfies all these clauses; the formula, unchanged by relabelling, keeps that member.\n\
+         Step 1 verifies every line this way, then checks the DRAT trace against the formula together\n\
+         with these clauses. Produced by {solver}.",
+        order = manifest.encoding.minimality_order.as_deref().unwrap_or("(not stated)"),
+        solver = manifest.solver,
+    )
 }
 
 /// What the proof file(s) are.
@@ -90,8 +110,9 @@ fn proof_text(manifest: &Manifest, single: Option<&FileRecord>, shards: &[&FileR
     }
 }
 
-/// The numbered checking steps, with their commands.
-fn check_steps(single: Option<&FileRecord>, shards: &[&FileRecord]) -> String {
+/// The numbered checking steps, with their commands; `minimality` gives the
+/// variables and the clause count of the formula with the minimality clauses.
+fn check_steps(single: Option<&FileRecord>, shards: &[&FileRecord], minimality: Option<(usize, u64)>) -> String {
     let mut steps: Vec<String> = [
         "Each line that starts with \"$ \" is a command to run in this directory, exactly as written.",
         "",
@@ -103,8 +124,19 @@ fn check_steps(single: Option<&FileRecord>, shards: &[&FileRecord]) -> String {
     ]
     .map(String::from)
     .to_vec();
-    match single {
-        Some(p) => {
+    match (single, minimality) {
+        (Some(p), Some((variables, clauses))) => {
+            let proof = &p.name;
+            steps.extend([
+                "2. The DRAT trace alone against the formula with the minimality clauses appended (their".to_string(),
+                "   verification is part of step 1 only); this builds that formula:".to_string(),
+                format!(
+                    "     $ {{ echo 'p cnf {variables} {clauses}'; gunzip -c {FORMULA_FILE} | grep -v '^[cp]'; tail -n +3 {CERTIFICATE_FILE} | cut -d/ -f3; }} > with-minimality.cnf"
+                ),
+                format!("     $ ramsift-check drat with-minimality.cnf {proof}"),
+            ]);
+        }
+        (Some(p), None) => {
             let proof = &p.name;
             steps.extend([
                 "2. The proof alone against the formula (the checker reads gzip directly):".to_string(),
@@ -116,7 +148,7 @@ fn check_steps(single: Option<&FileRecord>, shards: &[&FileRecord]) -> String {
                 format!("     $ ramsift-check lrat {FORMULA_FILE} proof.lrat"),
             ]);
         }
-        None => {
+        (None, _) => {
             steps.push("2. Each shard's trace alone refutes the formula under its cube (not the formula alone);".into());
             steps.push("   that the cubes cover every case is checked by step 1:".into());
             for shard in shards {
@@ -141,10 +173,25 @@ pub fn guide_text(dir: &Path, manifest: &Manifest) -> String {
         .iter()
         .filter(|f| f.role == "shard-proof")
         .collect();
-    let (proof, symmetry, steps) = (
-        proof_text(manifest, single, &shards),
+    let minimality_lines = manifest
+        .files
+        .iter()
+        .find(|f| f.role == "minimality-clauses")
+        .and_then(|f| std::fs::read_to_string(dir.join(&f.name)).ok())
+        .map(|text| text.lines().count().saturating_sub(2));
+    let mut proof = proof_text(manifest, single, &shards);
+    if let Some(lines) = minimality_lines {
+        proof = format!("{proof}\n\n{}", minimality_text(manifest, lines));
+    }
+    let with_minimality = minimality_lines.map(|lines| {
+        (
+            manifest.encoding.variables,
+            manifest.encoding.clauses + lines as u64,
+        )
+    });
+    let (symmetry, steps) = (
         symmetry_text(manifest),
-        check_steps(single, &shards),
+        check_steps(single, &shards, with_minimality),
     );
     format!(
         "What is claimed\n\

@@ -36,6 +36,11 @@ pub struct EnumerateArgs {
     /// graphs as one.
     #[arg(long)]
     pub swap_colours: bool,
+    /// Enumerate with lex-leader constraints, blocking clauses and canonical forms
+    /// (varisat) instead of the default minimality check (our solver), which
+    /// meets each class exactly once.
+    #[arg(long)]
+    pub lex_leader: bool,
     /// Give up after this many seconds (exit code 1; nothing is written).
     #[arg(long, value_name = "SECONDS")]
     pub timeout: Option<f64>,
@@ -67,6 +72,7 @@ pub fn run(args: &EnumerateArgs) -> Result<u8> {
         &instance,
         &EnumerateOptions {
             swap_colours: args.swap_colours,
+            lex_leader: args.lex_leader,
             timeout,
         },
         &stop,

@@ -38,17 +38,34 @@ impl InstanceArgs {
         Ok(Instance::new(spec, self.order)?)
     }
 
-    /// The encoding with the symmetry schemes chosen by `symmetry` (`default`: every
-    /// scheme that applies to the specification, [`SymmetrySet::for_refutation`]).
+    /// The encoding with the static symmetry schemes chosen by `symmetry`
+    /// (`default`: every scheme that applies to the specification,
+    /// [`SymmetrySet::for_refutation`]); a scheme applied during the search is refused.
     pub fn encoding(&self, symmetry: &SymmetryChoice) -> Result<RamseyEncoding> {
         let instance = self.instance()?;
         let symmetry = symmetry.resolve(|| SymmetrySet::for_refutation(instance.spec()));
+        anyhow::ensure!(
+            !symmetry.has_dynamic(),
+            "--symmetry {symmetry}: minimality is applied during the search by our own solver, \
+             which only `ramsift refute` and `ramsift enumerate` run; here choose among \
+             colour-swap, lex-leader and degree-bounds"
+        );
+        self.encoding_with(&instance, &symmetry)
+    }
+
+    /// The encoding for `ramsift refute`: `default` is
+    /// [`SymmetrySet::for_certified_refutation`], and minimality is allowed.
+    pub fn refutation_encoding(&self, symmetry: &SymmetryChoice) -> Result<RamseyEncoding> {
+        let instance = self.instance()?;
+        let symmetry = symmetry.resolve(|| SymmetrySet::for_certified_refutation(instance.spec()));
+        self.encoding_with(&instance, &symmetry)
+    }
+
+    fn encoding_with(&self, instance: &Instance, symmetry: &SymmetrySet) -> Result<RamseyEncoding> {
         let limits = EncodingLimits {
             max_clauses: self.max_clauses,
         };
-        Ok(RamseyEncoding::with_symmetry(
-            &instance, &symmetry, &limits,
-        )?)
+        Ok(RamseyEncoding::with_symmetry(instance, symmetry, &limits)?)
     }
 }
 

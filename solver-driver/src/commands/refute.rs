@@ -25,10 +25,11 @@ pub struct RefuteArgs {
     pub instance: InstanceArgs,
     #[command(flatten)]
     pub dir: OutDirArgs,
-    /// Symmetry breaking: default (all three for cliques; colour-swap and lex-leader
-    /// for other graphs, as degree bounds rest on clique Ramsey numbers; see
-    /// BENCHMARKS.md for the measurements), none, or a comma list of colour-swap,
-    /// lex-leader, degree-bounds.
+    /// Symmetry breaking: default (minimality during the search, with degree-bounds
+    /// for cliques, as degree bounds rest on clique Ramsey numbers; see BENCHMARKS.md
+    /// for the measurements), none, or a comma list of colour-swap, lex-leader,
+    /// degree-bounds, minimality (minimality runs our own solver with the
+    /// lex-minimality check and does not combine with colour-swap or lex-leader).
     #[arg(long, default_value = "default", value_name = "SCHEMES")]
     pub symmetry: SymmetryChoice,
     /// Write the DRAT trace as text instead of binary.
@@ -54,7 +55,7 @@ pub struct RefuteArgs {
 }
 
 pub fn run(args: &RefuteArgs) -> Result<u8> {
-    let encoding = args.instance.encoding(&args.symmetry)?;
+    let encoding = args.instance.refutation_encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
     args.dir.prepare()?;

@@ -9,6 +9,11 @@
 //!   been seen.
 //! * With `swap_colours`, colourings that differ by permuting colours with equal
 //!   forbidden graphs are one class, and the colour-swap scheme is added too.
+//!
+//! The default is the `minimality` scheme instead ([`crate::minimality`]): our
+//! solver with the minimality check, exact at complete assignments, so each model
+//! is the least member of its class and every class is met exactly once. A
+//! model's blocking clause then ends the class; no canonical forms are needed.
 
 pub mod canonical;
 
@@ -26,7 +31,10 @@ use ramsift_encoder::{
 use crate::certify::witness_check::verify_witness;
 use crate::search::interrupt::{limited_solver, SinkReport};
 use crate::search::job::SearchError;
+use crate::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
+use crate::minimality::solve::{blocking_clause, colour_maps, loaded_solver, model_colouring, stopped};
 use canonical::{canonical_form, colour_permutations, ColourTable};
+use ramsift_cdcl::Outcome;
 
 /// How an enumeration runs.
 #[derive(Clone, Debug, Default)]
@@ -34,6 +42,9 @@ pub struct EnumerateOptions {
     /// Identify colourings that differ by permuting colours with equal forbidden graphs.
     pub swap_colours: bool,
     pub timeout: Option<Duration>,
+    /// Lex-leader constraints with canonical forms (varisat) instead of the
+    /// minimality check (our solver).
+    pub lex_leader: bool,
 }
 
 /// The classes found.
@@ -96,6 +107,9 @@ pub fn enumerate(
     stop: &AtomicBool,
     mut progress: impl FnMut(u64, usize),
 ) -> Result<Enumeration, SearchError> {
+    if !options.lex_leader {
+        return enumerate_minimal(instance, options, stop, progress);
+    }
     let started = Instant::now();
     let deadline = options.timeout.map(|t| started + t);
     let symmetry = SymmetrySet::for_enumeration(options.swap_colours);
@@ -151,6 +165,46 @@ pub fn enumerate(
     Ok(Enumeration {
         classes,
         models,
+        complete,
+        elapsed: started.elapsed(),
+        symmetry,
+    })
+}
+
+/// Enumeration with the minimality check: each model is its class's least member.
+fn enumerate_minimal(
+    instance: &Instance,
+    options: &EnumerateOptions,
+    stop: &AtomicBool,
+    mut progress: impl FnMut(u64, usize),
+) -> Result<Enumeration, SearchError> {
+    let started = Instant::now();
+    let deadline = options.timeout.map(|t| started + t);
+    let symmetry = SymmetrySet::of(&[Scheme::Minimality]);
+    let encoding = RamseyEncoding::with_symmetry(instance, &symmetry, &EncodingLimits::default())?;
+    let vars = *encoding.variables();
+    let maps = colour_maps(instance.spec(), options.swap_colours);
+    let mut hook = MinimalityHook::new(vars, maps, DEFAULT_BUDGET);
+    let mut solver = loaded_solver(&encoding);
+    let mut classes = Vec::new();
+    let complete = loop {
+        match solver.solve(&mut hook, &|| stopped(stop), deadline) {
+            Outcome::Satisfiable => {}
+            Outcome::Unsatisfiable => break true,
+            Outcome::Interrupted => break false,
+        }
+        let colouring = model_colouring(&solver, &vars);
+        let verdict = verify_witness(instance.spec(), &colouring);
+        if !verdict.is_valid() {
+            return Err(SearchError::WitnessRejected(verdict.to_string()));
+        }
+        solver.add_clause(&blocking_clause(&vars, &colouring));
+        classes.push(colouring);
+        progress(classes.len() as u64, classes.len());
+    };
+    Ok(Enumeration {
+        models: classes.len() as u64,
+        classes,
         complete,
         elapsed: started.elapsed(),
         symmetry,

@@ -15,7 +15,7 @@ use crate::minimality::search::{find_smaller, relabelled_is_smaller, Verdict};
 
 /// Candidate vertices a partial check may try (measured on (3,7;23) and
 /// (3,6;17): see BENCHMARKS.md, "Minimality checks").
-pub const DEFAULT_BUDGET: u64 = 2_000;
+pub const DEFAULT_BUDGET: u64 = 20_000;
 
 /// Where the hook's time and clauses went.
 #[derive(Clone, Debug, Default, serde::Serialize)]

@@ -35,6 +35,11 @@ pub fn blocking_clause(vars: &VariableMap, colouring: &Colouring) -> Vec<i32> {
         .collect()
 }
 
+/// The caller's stop flag or a signal.
+pub fn stopped(stop: &AtomicBool) -> bool {
+    stop.load(std::sync::atomic::Ordering::Relaxed) || crate::search::interrupt::interrupted()
+}
+
 /// One run to the first answer.
 pub fn solve_encoding(
     solver: &mut Solver<'_>,
@@ -43,7 +48,7 @@ pub fn solve_encoding(
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> (Outcome, Option<Colouring>) {
-    let outcome = solver.solve(hook, stop, deadline);
+    let outcome = solver.solve(hook, &|| stopped(stop), deadline);
     let colouring =
         (outcome == Outcome::Satisfiable).then(|| model_colouring(solver, encoding.variables()));
     (outcome, colouring)
