@@ -6,6 +6,7 @@
 //! in `tests/tests/`.
 
 pub mod binaries;
+pub mod bundle_files;
 pub mod constructions;
 pub mod published;
 pub mod reference_drat;

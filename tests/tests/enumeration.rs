@@ -28,8 +28,17 @@ fn count_with(sizes: &[usize], n: usize, swap_colours: bool, lex_leader: bool) -
     for colouring in &result.classes {
         assert!(check_colouring(&to_matrix(colouring), &to_claim(instance.spec())).is_valid());
     }
-    let names: Vec<String> = instance.spec().forbidden().iter().map(|g| g.to_string()).collect();
-    let maps = if swap_colours { colour_permutations(&names) } else { vec![(0..=sizes.len() as u8).collect()] };
+    let names: Vec<String> = instance
+        .spec()
+        .forbidden()
+        .iter()
+        .map(|g| g.to_string())
+        .collect();
+    let maps = if swap_colours {
+        colour_permutations(&names)
+    } else {
+        vec![(0..=sizes.len() as u8).collect()]
+    };
     let mut forms: Vec<Vec<u8>> = result
         .classes
         .iter()
@@ -37,7 +46,11 @@ fn count_with(sizes: &[usize], n: usize, swap_colours: bool, lex_leader: bool) -
         .collect();
     forms.sort();
     forms.dedup();
-    assert_eq!(forms.len(), result.classes.len(), "two classes found are isomorphic");
+    assert_eq!(
+        forms.len(),
+        result.classes.len(),
+        "two classes found are isomorphic"
+    );
     result.classes.len()
 }
 

@@ -13,6 +13,7 @@ use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
 use ramsift_checker::input::read_input;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
+use ramsift_tests::bundle_files::{copy_dir, edit_manifest, set_hash};
 use ramsift_tests::reference_drat::reference_refutes;
 
 /// A tiny deterministic generator (xorshift), so the mutants are the same every run.
@@ -185,40 +186,6 @@ fn damaged_traces_are_rejected() {
         total.must_reject
     );
     assert_eq!(total.rejected, total.must_reject);
-}
-
-fn copy_dir(from: &Path, to: &Path) {
-    std::fs::create_dir_all(to).unwrap();
-    for entry in std::fs::read_dir(from).unwrap() {
-        let entry = entry.unwrap();
-        if entry.path().is_file() {
-            std::fs::copy(entry.path(), to.join(entry.file_name())).unwrap();
-        }
-    }
-}
-
-fn sha256_of(path: &Path) -> String {
-    ramsift_driver::certify::bundle::hash_file(path).unwrap().0
-}
-
-/// Edits the manifest JSON with `edit`, writing it back.
-fn edit_manifest(dir: &Path, edit: impl FnOnce(&mut serde_json::Value)) {
-    let path = dir.join("manifest.json");
-    let mut value: serde_json::Value =
-        serde_json::from_str(&std::fs::read_to_string(&path).unwrap()).unwrap();
-    edit(&mut value);
-    std::fs::write(&path, serde_json::to_string_pretty(&value).unwrap()).unwrap();
-}
-
-fn set_hash(dir: &Path, file: &str) {
-    let hash = sha256_of(&dir.join(file));
-    edit_manifest(dir, |m| {
-        for f in m["files"].as_array_mut().unwrap() {
-            if f["name"] == file {
-                f["sha256"] = serde_json::Value::String(hash.clone());
-            }
-        }
-    });
 }
 
 fn gzip_cnf(dir: &Path, cnf: &Cnf) {

@@ -595,7 +595,9 @@ impl<'p> Solver<'p> {
                     }
                     AxiomEffect::Unsatisfiable => return Outcome::Unsatisfiable,
                 }
-                if self.stats.axioms % 128 == 0 && (stop() || deadline.is_some_and(|d| Instant::now() >= d)) {
+                if self.stats.axioms % 128 == 0
+                    && (stop() || deadline.is_some_and(|d| Instant::now() >= d))
+                {
                     return Outcome::Interrupted;
                 }
                 continue;

@@ -3,7 +3,6 @@
 //! about 4.26, common practice), and every refutation's DRAT trace against the
 //! checker's DRAT code; models are checked clause by clause.
 
-
 use ramsift_cdcl::{Assignment, NoHook, Outcome, ProofSink, SearchHook, Solver};
 use ramsift_checker::cnf::Cnf;
 use ramsift_checker::drat_check::check_drat;

@@ -112,7 +112,11 @@ fn proof_text(manifest: &Manifest, single: Option<&FileRecord>, shards: &[&FileR
 
 /// The numbered checking steps, with their commands; `minimality` gives the
 /// variables and the clause count of the formula with the minimality clauses.
-fn check_steps(single: Option<&FileRecord>, shards: &[&FileRecord], minimality: Option<(usize, u64)>) -> String {
+fn check_steps(
+    single: Option<&FileRecord>,
+    shards: &[&FileRecord],
+    minimality: Option<(usize, u64)>,
+) -> String {
     let mut steps: Vec<String> = [
         "Each line that starts with \"$ \" is a command to run in this directory, exactly as written.",
         "",

@@ -29,10 +29,12 @@ use ramsift_encoder::{
 };
 
 use crate::certify::witness_check::verify_witness;
+use crate::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
+use crate::minimality::solve::{
+    blocking_clause, colour_maps, loaded_solver, model_colouring, stopped,
+};
 use crate::search::interrupt::{limited_solver, SinkReport};
 use crate::search::job::SearchError;
-use crate::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
-use crate::minimality::solve::{blocking_clause, colour_maps, loaded_solver, model_colouring, stopped};
 use canonical::{canonical_form, colour_permutations, ColourTable};
 use ramsift_cdcl::Outcome;
 

@@ -1,0 +1,41 @@
+//! Editing a bundle on disk for mutation tests: copying it, changing its
+//! manifest, and re-recording a file's SHA-256 so a mutant reaches the check it
+//! is meant to meet instead of failing at the hash.
+
+use std::path::Path;
+
+/// Copies the regular files of `from` (not subdirectories) into `to`.
+pub fn copy_dir(from: &Path, to: &Path) {
+    std::fs::create_dir_all(to).unwrap();
+    for entry in std::fs::read_dir(from).unwrap() {
+        let entry = entry.unwrap();
+        if entry.path().is_file() {
+            std::fs::copy(entry.path(), to.join(entry.file_name())).unwrap();
+        }
+    }
+}
+
+pub fn sha256_of(path: &Path) -> String {
+    ramsift_driver::certify::bundle::hash_file(path).unwrap().0
+}
+
+/// Edits the manifest JSON with `edit`, writing it back.
+pub fn edit_manifest(dir: &Path, edit: impl FnOnce(&mut serde_json::Value)) {
+    let path = dir.join("manifest.json");
+    let mut value: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&path).unwrap()).unwrap();
+    edit(&mut value);
+    std::fs::write(&path, serde_json::to_string_pretty(&value).unwrap()).unwrap();
+}
+
+/// Records the current SHA-256 of `file` in the manifest.
+pub fn set_hash(dir: &Path, file: &str) {
+    let hash = sha256_of(&dir.join(file));
+    edit_manifest(dir, |m| {
+        for f in m["files"].as_array_mut().unwrap() {
+            if f["name"] == file {
+                f["sha256"] = serde_json::Value::String(hash.clone());
+            }
+        }
+    });
+}
