@@ -100,12 +100,14 @@ fn degree_bounds_name_their_premise() {
 #[test]
 fn text_and_gzip_traces_pass() {
     for (text, gzip) in [(true, false), (false, true), (true, true)] {
-        let options = RefuteOptions {
-            text_proof: text,
-            gzip_proof: gzip,
-            timeout: None,
-        };
-        refute_and_check(&[3, 5], 14, "colour-swap,lex-leader", options);
+        for symmetry in ["colour-swap,lex-leader", "minimality"] {
+            let options = RefuteOptions {
+                text_proof: text,
+                gzip_proof: gzip,
+                ..RefuteOptions::default()
+            };
+            refute_and_check(&[3, 5], 14, symmetry, options);
+        }
     }
 }
 

@@ -26,7 +26,8 @@ use crate::certify::bundle::{
 };
 use crate::certify::witness_check::verify_witness;
 use crate::minimality::certificate::CERTIFICATE_FILE;
-use crate::minimality::solve::solve_certified;
+use crate::minimality::hook::DEFAULT_BUDGET;
+use crate::minimality::solve::{solve_certified, CertifiedOutputs};
 use crate::search::attempt::{
     run_attempt_with_proof, AttemptError, AttemptOutcome, AttemptPlan, ProofOutput,
 };
@@ -41,6 +42,8 @@ pub struct RefuteOptions {
     /// gzip the proof.
     pub gzip_proof: bool,
     pub timeout: Option<Duration>,
+    /// Candidate vertices per partial minimality check (None: the default).
+    pub check_budget: Option<u64>,
 }
 
 /// What the refutation found.
@@ -118,16 +121,15 @@ pub fn refute(
     let deadline = options.timeout.map(|t| started + t);
     if encoding.symmetry().contains(Scheme::Minimality) {
         let certificate = temporary(".minimality.")?;
-        let run = solve_certified(
-            encoding,
-            trace.as_file(),
-            certificate.as_file(),
-            options.text_proof,
-            Some(bytes_seen),
-            stop,
-            deadline,
-        )
-        .map_err(io_error)?;
+        let outputs = CertifiedOutputs {
+            trace: trace.as_file(),
+            certificate: certificate.as_file(),
+            text_proof: options.text_proof,
+            bytes_seen: Some(bytes_seen),
+        };
+        let budget = options.check_budget.unwrap_or(DEFAULT_BUDGET);
+        let run =
+            solve_certified(encoding, &[], outputs, budget, stop, deadline).map_err(io_error)?;
         let solve_seconds = started.elapsed().as_secs_f64();
         let result = match (run.outcome, run.colouring) {
             (Outcome::Unsatisfiable, _) => {

@@ -32,6 +32,11 @@ pub struct RefuteArgs {
     /// lex-minimality check and does not combine with colour-swap or lex-leader).
     #[arg(long, default_value = "default", value_name = "SCHEMES")]
     pub symmetry: SymmetryChoice,
+    /// With minimality: how many candidate vertices one check of a partial
+    /// colouring may try before giving up (complete colourings are always checked
+    /// in full). Larger budgets find more clauses and cost more per check.
+    #[arg(long, value_name = "COUNT", default_value_t = ramsift_driver::minimality::hook::DEFAULT_BUDGET)]
+    pub check_budget: u64,
     /// Write the DRAT trace as text instead of binary.
     #[arg(long)]
     pub text: bool,
@@ -65,6 +70,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
         text_proof: args.text,
         gzip_proof: args.gzip,
         timeout,
+        check_budget: Some(args.check_budget),
     };
     let stop = AtomicBool::new(false);
     let bytes = AtomicU64::new(0);

@@ -53,7 +53,8 @@ pub struct PlanArgs {
     pub shards: usize,
     #[command(flatten)]
     pub dir: OutDirArgs,
-    /// Symmetry breaking (as for refute).
+    /// Symmetry breaking, as for refute (default: minimality, with degree-bounds for
+    /// cliques; each shard then runs our solver with the minimality check).
     #[arg(long, default_value = "default", value_name = "SCHEMES")]
     pub symmetry: SymmetryChoice,
     /// Print the result as one JSON record on stdout.
@@ -201,7 +202,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
 
 fn plan(args: &PlanArgs) -> Result<u8> {
     anyhow::ensure!(args.shards >= 1, "--shards 0: at least one shard is needed");
-    let encoding = args.instance.encoding(&args.symmetry)?;
+    let encoding = args.instance.refutation_encoding(&args.symmetry)?;
     args.instance
         .fits(&encoding, &encoding.instance().to_string(), 1)?;
     args.dir.prepare()?;

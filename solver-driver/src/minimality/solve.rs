@@ -76,32 +76,48 @@ pub struct HookedRun {
     pub minimality: crate::minimality::hook::MinimalityStats,
 }
 
-/// Solves `encoding` with the minimality hook, writing the DRAT trace to `trace`
-/// and the minimality clauses with their witnesses to `certificate`.
+/// Where a certified hooked run writes.
+pub struct CertifiedOutputs<'a> {
+    /// The DRAT trace.
+    pub trace: &'a std::fs::File,
+    /// The minimality clauses with their witnesses.
+    pub certificate: &'a std::fs::File,
+    /// Text DRAT instead of binary.
+    pub text_proof: bool,
+    /// Counts trace bytes for progress lines.
+    pub bytes_seen: Option<&'a std::sync::atomic::AtomicU64>,
+}
+
+/// Solves `encoding`, with `units` added as unit clauses (a shard's cube), with
+/// the minimality hook (partial checks limited to `budget` candidate vertices),
+/// writing the trace and the certificate.
 pub fn solve_certified(
     encoding: &RamseyEncoding,
-    trace: &std::fs::File,
-    certificate: &std::fs::File,
-    text_proof: bool,
-    bytes_seen: Option<&std::sync::atomic::AtomicU64>,
+    units: &[i32],
+    outputs: CertifiedOutputs<'_>,
+    budget: u64,
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> std::io::Result<HookedRun> {
     use crate::certify::drat_write::DratSink;
-    use crate::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
+    use crate::minimality::hook::MinimalityHook;
     use std::io::BufWriter;
 
     let vars = *encoding.variables();
     let maps = colour_maps(encoding.instance().spec(), true);
-    let mut hook = MinimalityHook::new(vars, maps, DEFAULT_BUDGET)
-        .with_certificate(Box::new(BufWriter::with_capacity(1 << 20, certificate)))?;
+    let mut hook = MinimalityHook::new(vars, maps, budget).with_certificate(Box::new(
+        BufWriter::with_capacity(1 << 20, outputs.certificate),
+    ))?;
     let mut sink = DratSink::new(
-        BufWriter::with_capacity(1 << 20, trace),
-        text_proof,
-        bytes_seen,
+        BufWriter::with_capacity(1 << 20, outputs.trace),
+        outputs.text_proof,
+        outputs.bytes_seen,
     );
     let (outcome, colouring, solver_stats) = {
         let mut solver = loaded_solver(encoding);
+        for &unit in units {
+            solver.add_clause(&[unit]);
+        }
         solver.set_proof(Box::new(&mut sink));
         let (outcome, colouring) = solve_encoding(&mut solver, encoding, &mut hook, stop, deadline);
         (outcome, colouring, solver.stats().clone())

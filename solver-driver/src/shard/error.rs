@@ -50,7 +50,7 @@ pub enum ShardError {
         array: String,
         plan_dir: PathBuf,
     },
-    #[error("shard {index}: its trace does not match its result record (changed or damaged since it ran); run the shard again")]
+    #[error("shard {index}: its trace or its minimality clauses do not match its result record (changed or damaged since it ran); run the shard again")]
     TraceChanged { index: usize },
     #[error("reading the trace of shard {index}: {message}")]
     TraceUnreadable { index: usize, message: String },

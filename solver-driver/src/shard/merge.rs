@@ -28,6 +28,8 @@ use crate::certify::bundle::{
 use crate::certify::drat_write::write_addition;
 use crate::certify::referee_guide::write_guide;
 use crate::certify::refute::{certify_premises, RefuteOptions};
+use crate::minimality::certificate::{CertificateWriter, CERTIFICATE_FILE, CERTIFICATE_FORMAT};
+use ramsift_encoder::Scheme;
 
 /// What the merge wrote.
 #[derive(Clone, Debug)]
@@ -161,8 +163,15 @@ pub fn merge_counted(
     ];
     let mut composer = single_trace.then(|| Composer::start(out_dir)).transpose()?;
     let (mut shard_seconds, mut trace_bytes) = (0.0, 0);
+    let mut minimality = encoding
+        .symmetry()
+        .contains(Scheme::Minimality)
+        .then(|| MinimalityMerger::new(plan.order, encoding.instance().colours()));
     for (cube, result) in plan.cubes.iter().zip(&results) {
         shard_seconds += result.seconds;
+        if let Some(merger) = &mut minimality {
+            merger.take_in(plan_dir, cube.index, result)?;
+        }
         let out = composer.as_mut().map(|c| &mut c.writer as &mut dyn Write);
         let record = take_in_shard(plan_dir, out_dir, cube, result, out)?;
         trace_bytes += record.bytes;
@@ -170,6 +179,9 @@ pub fn merge_counted(
         shards_copied.fetch_add(1, Ordering::Relaxed);
     }
     files.push(copy_plan(plan_dir, out_dir)?);
+    if let Some(merger) = minimality {
+        files.push(merger.write(out_dir)?);
+    }
     if let Some(composer) = composer {
         files.push(composer.finish(&plan.tree, out_dir)?);
     }
@@ -258,6 +270,54 @@ impl Composer {
             "binary DRAT, composed from the shards",
         )
         .map_err(ShardError::io(&path))
+    }
+}
+
+/// The union of the shards' minimality clauses, each valid on its own (its
+/// witness does not depend on the cube), as one file for the bundle.
+struct MinimalityMerger {
+    text: String,
+}
+
+impl MinimalityMerger {
+    fn new(order: usize, colours: usize) -> Self {
+        let header = CertificateWriter::new(Vec::new(), order, colours)
+            .and_then(|w| w.finish())
+            .expect("writing to memory cannot fail");
+        MinimalityMerger {
+            text: String::from_utf8(header).expect("the header is text"),
+        }
+    }
+
+    /// Appends shard `index`'s clause lines, after checking their recorded hash.
+    fn take_in(
+        &mut self,
+        plan_dir: &Path,
+        index: usize,
+        result: &ShardResult,
+    ) -> Result<(), ShardError> {
+        let path = shard_dir(plan_dir, index).join(CERTIFICATE_FILE);
+        let content = std::fs::read_to_string(&path).map_err(ShardError::io(&path))?;
+        if result.minimality_sha256.as_deref() != Some(sha256_hex(content.as_bytes()).as_str()) {
+            return Err(ShardError::TraceChanged { index });
+        }
+        for line in content.lines().skip(2) {
+            self.text.push_str(line);
+            self.text.push('\n');
+        }
+        Ok(())
+    }
+
+    fn write(self, out_dir: &Path) -> Result<FileRecord, ShardError> {
+        let path = out_dir.join(CERTIFICATE_FILE);
+        write_atomically(&path, |w| w.write_all(self.text.as_bytes()))
+            .map_err(ShardError::io(&path))?;
+        Ok(FileRecord::of_bytes(
+            CERTIFICATE_FILE,
+            "minimality-clauses",
+            CERTIFICATE_FORMAT,
+            self.text.as_bytes(),
+        ))
     }
 }
 

@@ -10,6 +10,7 @@ use serde::{Deserialize, Serialize};
 use super::error::ShardError;
 use super::{shard_dir, RESULT_FILE};
 use crate::certify::bundle::hash_file;
+use crate::minimality::certificate::CERTIFICATE_FILE;
 use crate::output::json_file::write_json;
 
 /// The witness a shard writes when it finds a colouring (the claim is then false).
@@ -35,6 +36,9 @@ pub struct ShardResult {
     pub proof_file: Option<String>,
     pub proof_sha256: Option<String>,
     pub proof_bytes: Option<u64>,
+    /// With the minimality scheme: SHA-256 of the shard's minimality clauses.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub minimality_sha256: Option<String>,
     /// The colouring, in ramsift's text format, when one was found.
     pub colouring: Option<String>,
     /// SHA-256 of the plan.json this result belongs to: a result of another plan
@@ -69,9 +73,13 @@ pub fn complete_result(plan_dir: &Path, index: usize, plan_sha256: &str) -> Opti
     let result = recorded_result(plan_dir, index, plan_sha256)?;
     match result.status {
         ShardStatus::Refuted => {
-            let trace = shard_dir(plan_dir, index).join(result.proof_file.as_deref()?);
-            let (hash, _) = hash_file(&trace).ok()?;
-            (Some(hash) == result.proof_sha256).then_some(result)
+            let dir = shard_dir(plan_dir, index);
+            let (hash, _) = hash_file(&dir.join(result.proof_file.as_deref()?)).ok()?;
+            let clauses_intact = match &result.minimality_sha256 {
+                Some(recorded) => hash_file(&dir.join(CERTIFICATE_FILE)).ok()?.0 == *recorded,
+                None => true,
+            };
+            (Some(hash) == result.proof_sha256 && clauses_intact).then_some(result)
         }
         ShardStatus::Found => Some(result),
     }

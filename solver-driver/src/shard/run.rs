@@ -1,5 +1,7 @@
 //! Refuting one shard: the plan's formula with the shard's cube added as unit
-//! clauses, solved by varisat writing a DRAT trace of (formula ∧ cube).
+//! clauses, solved by varisat writing a DRAT trace of (formula ∧ cube), or, when
+//! the plan uses the minimality scheme, by our solver with the minimality check,
+//! whose clauses go to the shard's `minimality.txt`.
 //!
 //! Results are written atomically: the trace goes to a temporary file, is flushed
 //! to disk and renamed to `proof.drat`; then `result.json` (status, time, cube,
@@ -7,13 +9,14 @@
 //! present and whose trace matches its hash is complete and is skipped; anything
 //! else in its directory is a partial run and is redone from scratch.
 
-use std::io::BufWriter;
+use std::io::{BufWriter, Write};
 use std::path::{Path, PathBuf};
 use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
+use ramsift_cdcl::Outcome;
 use ramsift_encoder::atomic_file::write_atomically;
-use ramsift_encoder::{Colouring, RamseyEncoding};
+use ramsift_encoder::{Colouring, RamseyEncoding, Scheme};
 
 use super::error::ShardError;
 use super::plan::{plan_sha256, Cube, Plan};
@@ -22,6 +25,9 @@ use super::{shard_dir, PLAN_FILE, SHARD_PROOF_FILE};
 use crate::certify::bundle::hash_file;
 use crate::certify::drat_write::write_addition;
 use crate::certify::witness_check::verify_witness;
+use crate::minimality::certificate::CERTIFICATE_FILE;
+use crate::minimality::hook::DEFAULT_BUDGET;
+use crate::minimality::solve::{solve_certified, CertifiedOutputs};
 use crate::output::witness::colouring_text;
 use crate::search::attempt::{run_attempt_with_proof, AttemptOutcome, AttemptPlan, ProofOutput};
 use crate::search::formula::Formula;
@@ -58,7 +64,6 @@ pub fn run_shard(
     }
     let dir = fresh_shard_dir(plan_dir, index)?;
     let encoding = plan.encoding()?;
-    let formula = Formula::from_encoding(&encoding);
     let trace = tempfile::Builder::new()
         .prefix(".proof.")
         .suffix(".tmp")
@@ -73,22 +78,44 @@ pub fn run_shard(
         write_addition(&mut writer, lemma).map_err(ShardError::io(&dir))?;
     }
     let fixed = cube.lemmas.iter().filter(|c| c.len() == 1).map(|c| c[0]);
-    let attempt = AttemptPlan {
-        units: cube.literals.iter().copied().chain(fixed).collect(),
-        ..AttemptPlan::default()
+    let units: Vec<i32> = cube.literals.iter().copied().chain(fixed).collect();
+    let deadline = timeout.map(|t| started + t);
+    let (outcome, certificate) = if encoding.symmetry().contains(Scheme::Minimality) {
+        writer.flush().map_err(ShardError::io(&dir))?;
+        drop(writer);
+        let certificate = tempfile::Builder::new()
+            .prefix(".minimality.")
+            .suffix(".tmp")
+            .tempfile_in(&dir)
+            .map_err(ShardError::io(&dir))?;
+        let outputs = CertifiedOutputs {
+            trace: trace.as_file(),
+            certificate: certificate.as_file(),
+            text_proof: false,
+            bytes_seen: None,
+        };
+        let run = solve_certified(&encoding, &units, outputs, DEFAULT_BUDGET, stop, deadline)
+            .map_err(ShardError::io(&dir))?;
+        let outcome = match (run.outcome, run.colouring) {
+            (Outcome::Unsatisfiable, _) => AttemptOutcome::Unsatisfiable,
+            (Outcome::Satisfiable, Some(colouring)) => AttemptOutcome::Satisfiable(colouring),
+            _ => return Ok(ShardOutcome::Unknown),
+        };
+        (outcome, Some(certificate))
+    } else {
+        let formula = Formula::from_encoding(&encoding);
+        let attempt = AttemptPlan {
+            units,
+            ..AttemptPlan::default()
+        };
+        let proof = ProofOutput {
+            writer,
+            text: false,
+            bytes_seen: None,
+        };
+        let report = run_attempt_with_proof(&formula, &attempt, stop, deadline, Some(proof))?;
+        (report.outcome, None)
     };
-    let proof = ProofOutput {
-        writer,
-        text: false,
-        bytes_seen: None,
-    };
-    let report = run_attempt_with_proof(
-        &formula,
-        &attempt,
-        stop,
-        timeout.map(|t| started + t),
-        Some(proof),
-    )?;
     let seconds = started.elapsed().as_secs_f64();
     let mut result = ShardResult {
         index,
@@ -98,13 +125,18 @@ pub fn run_shard(
         proof_file: None,
         proof_sha256: None,
         proof_bytes: None,
+        minimality_sha256: None,
         colouring: None,
         plan_sha256,
     };
-    match report.outcome {
+    match outcome {
         AttemptOutcome::Stopped(_) => return Ok(ShardOutcome::Unknown),
         AttemptOutcome::Unsatisfiable => {
-            let (sha, bytes) = persist_trace(trace, &dir)?;
+            if let Some(certificate) = certificate {
+                result.minimality_sha256 =
+                    Some(persist_file(certificate, &dir, CERTIFICATE_FILE)?.0);
+            }
+            let (sha, bytes) = persist_file(trace, &dir, SHARD_PROOF_FILE)?;
             result.proof_file = Some(SHARD_PROOF_FILE.into());
             result.proof_sha256 = Some(sha);
             result.proof_bytes = Some(bytes);
@@ -131,15 +163,18 @@ fn fresh_shard_dir(plan_dir: &Path, index: usize) -> Result<PathBuf, ShardError>
     Ok(dir)
 }
 
-/// Flushes the finished trace to disk and renames it to `proof.drat`; returns its
+/// Flushes a finished file to disk and renames it to `name`; returns its
 /// SHA-256 and size.
-fn persist_trace(trace: tempfile::NamedTempFile, dir: &Path) -> Result<(String, u64), ShardError> {
-    trace.as_file().sync_all().map_err(ShardError::io(dir))?;
-    let proof_path = dir.join(SHARD_PROOF_FILE);
-    trace
-        .persist(&proof_path)
-        .map_err(|e| ShardError::io(&proof_path)(e.error))?;
-    hash_file(&proof_path).map_err(ShardError::io(&proof_path))
+fn persist_file(
+    file: tempfile::NamedTempFile,
+    dir: &Path,
+    name: &str,
+) -> Result<(String, u64), ShardError> {
+    file.as_file().sync_all().map_err(ShardError::io(dir))?;
+    let path = dir.join(name);
+    file.persist(&path)
+        .map_err(|e| ShardError::io(&path)(e.error))?;
+    hash_file(&path).map_err(ShardError::io(&path))
 }
 
 /// Checks a colouring found under a cube (the counterexample to the claim) and
