@@ -51,37 +51,40 @@ fn witnesses_below_and_certified_refutations_at_each_value() {
         );
 
         let at = instance(value.spec, value.value);
-        let symmetry: SymmetrySet = "colour-swap,lex-leader".parse().unwrap();
-        let encoding =
-            RamseyEncoding::with_symmetry(&at, &symmetry, &EncodingLimits::default()).unwrap();
-        let dir = tempfile::tempdir().unwrap();
-        let out = dir.path().join("bundle");
-        let report = refute(
-            &encoding,
-            &out,
-            &RefuteOptions {
-                timeout: Some(Duration::from_secs(120)),
-                ..RefuteOptions::default()
-            },
-            &AtomicBool::new(false),
-            &AtomicU64::new(0),
-        )
-        .unwrap();
-        assert!(
-            matches!(report.result, RefuteResult::Refuted { .. }),
-            "{}: R = {} ({})",
-            value.spec,
-            value.value,
-            value.source
-        );
-        let verdict = check_bundle(&out, &[]).unwrap();
-        assert!(verdict.passed(), "{}: {:?}", value.spec, verdict.failure);
-        assert!(verdict.unconditional());
-        assert!(
-            verdict.claim.ends_with(&format!("<= {}", value.value)),
-            "{}",
-            verdict.claim
-        );
+        // The previous default and the new one (minimality alone for graphs).
+        for schemes in ["colour-swap,lex-leader", "minimality"] {
+            let symmetry: SymmetrySet = schemes.parse().unwrap();
+            let encoding =
+                RamseyEncoding::with_symmetry(&at, &symmetry, &EncodingLimits::default()).unwrap();
+            let dir = tempfile::tempdir().unwrap();
+            let out = dir.path().join("bundle");
+            let report = refute(
+                &encoding,
+                &out,
+                &RefuteOptions {
+                    timeout: Some(Duration::from_secs(120)),
+                    ..RefuteOptions::default()
+                },
+                &AtomicBool::new(false),
+                &AtomicU64::new(0),
+            )
+            .unwrap();
+            assert!(
+                matches!(report.result, RefuteResult::Refuted { .. }),
+                "{}: R = {} ({})",
+                value.spec,
+                value.value,
+                value.source
+            );
+            let verdict = check_bundle(&out, &[]).unwrap();
+            assert!(verdict.passed(), "{}: {:?}", value.spec, verdict.failure);
+            assert!(verdict.unconditional());
+            assert!(
+                verdict.claim.ends_with(&format!("<= {}", value.value)),
+                "{}",
+                verdict.claim
+            );
+        }
     }
 }
 

@@ -42,7 +42,7 @@ fn refute_and_check(
 }
 
 #[test]
-fn classical_upper_bounds_pass_with_default_and_lex_leader_alone() {
+fn classical_upper_bounds_pass_with_each_default_and_alone() {
     // R(3,3)=6, R(3,4)=9, R(3,5)=14, R(4,4)=18 (Greenwood & Gleason 1955; Radziszowski DS1).
     for (sizes, value) in [
         (&[3, 3][..], 6),
@@ -50,12 +50,20 @@ fn classical_upper_bounds_pass_with_default_and_lex_leader_alone() {
         (&[3, 5][..], 14),
         (&[4, 4][..], 18),
     ] {
-        for symmetry in ["colour-swap,lex-leader", "lex-leader"] {
+        for symmetry in ["colour-swap,lex-leader", "lex-leader", "minimality"] {
             let verdict = refute_and_check(sizes, value, symmetry, RefuteOptions::default());
             let list: Vec<String> = sizes.iter().map(|k| k.to_string()).collect();
             assert_eq!(verdict.claim, format!("R({}) <= {value}", list.join(",")));
             assert!(verdict.unconditional(), "no premises without degree bounds");
         }
+        // The new default: the bundle's own proof passes (premises are certified by
+        // `ramsift refute`, not by this library call).
+        refute_and_check(
+            sizes,
+            value,
+            "minimality,degree-bounds",
+            RefuteOptions::default(),
+        );
     }
 }
 
@@ -79,6 +87,14 @@ fn every_scheme_combination_yields_a_passing_bundle() {
         if set.contains(Scheme::LexLeader) || set.contains(Scheme::DegreeBounds) {
             refute_and_check(&[3, 3, 3], 17, &symmetry, RefuteOptions::default());
         }
+    }
+    // The combinations minimality ships in (it does not combine with the others).
+    for symmetry in ["minimality", "minimality,degree-bounds"] {
+        refute_and_check(&[3, 4], 9, symmetry, RefuteOptions::default());
+        refute_and_check(&[3, 3, 3], 17, symmetry, RefuteOptions::default());
+    }
+    for refused in ["minimality,lex-leader", "colour-swap,minimality"] {
+        assert!(refused.parse::<SymmetrySet>().is_err(), "{refused}");
     }
 }
 
