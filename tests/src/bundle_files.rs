@@ -1,8 +1,33 @@
-//! Editing a bundle on disk for mutation tests: copying it, changing its
+//! Making and editing bundles on disk for mutation tests: refuting, copying, changing its
 //! manifest, and re-recording a file's SHA-256 so a mutant reaches the check it
 //! is meant to meet instead of failing at the hash.
 
 use std::path::Path;
+use std::sync::atomic::{AtomicBool, AtomicU64};
+
+use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
+use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
+
+/// Refutes `spec` at `order` with `symmetry` into `dir` (premises assumed),
+/// asserting that it is refuted.
+pub fn make_bundle(spec: &str, order: usize, symmetry: &str, dir: &Path) {
+    let instance = Instance::new(spec.parse::<RamseySpec>().unwrap(), order).unwrap();
+    let set: SymmetrySet = symmetry.parse().unwrap();
+    let encoding =
+        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
+    let report = refute(
+        &encoding,
+        dir,
+        &RefuteOptions::default(),
+        &AtomicBool::new(false),
+        &AtomicU64::new(0),
+    )
+    .unwrap();
+    assert!(
+        matches!(report.result, RefuteResult::Refuted { .. }),
+        "{spec} order {order} [{symmetry}]"
+    );
+}
 
 /// Copies the regular files of `from` (not subdirectories) into `to`.
 pub fn copy_dir(from: &Path, to: &Path) {

@@ -6,31 +6,9 @@
 //! bundles that hide the clauses or combine the scheme unsoundly.
 
 use std::path::Path;
-use std::sync::atomic::{AtomicBool, AtomicU64};
 
 use ramsift_checker::bundle::check_bundle;
-use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
-use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
-use ramsift_tests::bundle_files::{copy_dir, edit_manifest, set_hash};
-
-fn make_bundle(spec: &str, order: usize, symmetry: &str, dir: &Path) {
-    let instance = Instance::new(spec.parse::<RamseySpec>().unwrap(), order).unwrap();
-    let set: SymmetrySet = symmetry.parse().unwrap();
-    let encoding =
-        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
-    let report = refute(
-        &encoding,
-        dir,
-        &RefuteOptions::default(),
-        &AtomicBool::new(false),
-        &AtomicU64::new(0),
-    )
-    .unwrap();
-    assert!(
-        matches!(report.result, RefuteResult::Refuted { .. }),
-        "{spec} order {order}"
-    );
-}
+use ramsift_tests::bundle_files::{copy_dir, edit_manifest, make_bundle, set_hash};
 
 /// The bundle's own proof holds (premises may be assumed here).
 fn passes(dir: &Path) -> bool {

@@ -13,7 +13,7 @@ use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
 use ramsift_checker::input::read_input;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
-use ramsift_tests::bundle_files::{copy_dir, edit_manifest, set_hash};
+use ramsift_tests::bundle_files::{copy_dir, edit_manifest, make_bundle, set_hash};
 use ramsift_tests::reference_drat::reference_refutes;
 
 /// A tiny deterministic generator (xorshift), so the mutants are the same every run.
@@ -27,20 +27,9 @@ impl Rng {
     }
 }
 
-fn make_bundle(sizes: &[usize], order: usize, symmetry: &str, dir: &Path) {
-    let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), order).unwrap();
-    let set: SymmetrySet = symmetry.parse().unwrap();
-    let encoding =
-        RamseyEncoding::with_symmetry(&instance, &set, &EncodingLimits::default()).unwrap();
-    let report = refute(
-        &encoding,
-        dir,
-        &RefuteOptions::default(),
-        &AtomicBool::new(false),
-        &AtomicU64::new(0),
-    )
-    .unwrap();
-    assert!(matches!(report.result, RefuteResult::Refuted { .. }));
+fn make_cliques_bundle(sizes: &[usize], order: usize, symmetry: &str, dir: &Path) {
+    let spec: Vec<String> = sizes.iter().map(|k| k.to_string()).collect();
+    make_bundle(&spec.join(","), order, symmetry, dir);
 }
 
 fn load(dir: &Path) -> (Cnf, Vec<DratStep>) {
@@ -84,7 +73,7 @@ fn mutate_trace(
     seed: u64,
 ) -> Tally {
     let dir = tempfile::tempdir().unwrap();
-    make_bundle(sizes, order, symmetry, dir.path());
+    make_cliques_bundle(sizes, order, symmetry, dir.path());
     let (cnf, steps) = load(dir.path());
     assert!(
         check_drat(&cnf, &steps, false).is_ok(),
@@ -207,10 +196,10 @@ fn damaged_bundles_fail() {
     let base = tempfile::tempdir().unwrap();
     let good = base.path().join("good");
     // R(4,4) <= 18 (Greenwood & Gleason 1955): equal colours, so colour-swap matters.
-    make_bundle(&[4, 4], 18, "colour-swap,lex-leader", &good);
+    make_cliques_bundle(&[4, 4], 18, "colour-swap,lex-leader", &good);
     assert!(check_bundle(&good, &[]).unwrap().passed());
     let other = base.path().join("other");
-    make_bundle(&[3, 3], 6, "colour-swap,lex-leader", &other);
+    make_cliques_bundle(&[3, 3], 6, "colour-swap,lex-leader", &other);
 
     type Mutation = Box<dyn Fn(&Path)>;
     let mut mutations: Vec<(String, Mutation)> = Vec::new();
