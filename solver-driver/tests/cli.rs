@@ -211,6 +211,14 @@ fn refute_writes_a_bundle_that_passes_unconditionally() {
     let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
     assert_eq!(summary["proves"], "R(4,4) <= 18");
     assert_eq!(summary["premises"][0], "R(3,4) <= 9");
+    // The default is minimality with degree bounds, run by the hooked solver.
+    assert_eq!(
+        summary["symmetry"],
+        serde_json::json!(["degree-bounds", "minimality"])
+    );
+    assert!(summary["search"]["conflicts"].as_u64().unwrap() > 0);
+    assert!(summary["search"]["checks"].as_u64().unwrap() > 0);
+    assert!(out.join("minimality.txt").is_file());
     let verdict = check_bundle(&out, &[]).unwrap();
     assert!(verdict.passed(), "{:?}", verdict.failure);
     assert!(
@@ -276,9 +284,51 @@ fn refute_timeout_leaves_no_bundle() {
         0,
         "no files, no temporary trace"
     );
+    // The hooked solver (default minimality): (4,5;25) is far from refuted in 0.5 s.
+    let hooked = dir.path().join("hooked");
+    let o = ramsift(&[
+        "refute",
+        "4,5",
+        "25",
+        "--timeout",
+        "0.5",
+        "-q",
+        "--out",
+        hooked.to_str().unwrap(),
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    assert_eq!(
+        std::fs::read_dir(&hooked).unwrap().count(),
+        0,
+        "no trace, no minimality clauses left behind"
+    );
     assert_bad_input(
         &["refute", "3,3", "6", "--out", "x", "--symmetry", "lex"],
         "unknown symmetry scheme \"lex\"",
+    );
+    assert_bad_input(
+        &[
+            "refute",
+            "3,3",
+            "6",
+            "--out",
+            "x",
+            "--symmetry",
+            "minimality,lex-leader",
+        ],
+        "minimality cannot be combined with lex-leader",
+    );
+    assert_bad_input(
+        &[
+            "encode",
+            "3,3",
+            "6",
+            "--out",
+            "x.cnf",
+            "--symmetry",
+            "minimality",
+        ],
+        "applied during the search",
     );
 }
 

@@ -64,6 +64,19 @@ pub enum RefuteResult {
 pub struct RefuteReport {
     pub result: RefuteResult,
     pub solve_seconds: f64,
+    /// With minimality: where the hooked search's time and clauses went.
+    pub minimality: Option<SearchAccount>,
+}
+
+/// The hooked search's counters, for the account of a run.
+#[derive(Clone, Debug, serde::Serialize)]
+pub struct SearchAccount {
+    pub conflicts: u64,
+    pub decisions: u64,
+    pub checks: u64,
+    pub minimality_clauses: u64,
+    pub checks_given_up: u64,
+    pub check_seconds: f64,
 }
 
 #[derive(Debug, Error)]
@@ -149,9 +162,18 @@ pub fn refute(
             (Outcome::Satisfiable, Some(colouring)) => checked_colouring(encoding, colouring)?,
             _ => RefuteResult::Unknown,
         };
+        let account = SearchAccount {
+            conflicts: run.solver.conflicts,
+            decisions: run.solver.decisions,
+            checks: run.minimality.checks,
+            minimality_clauses: run.minimality.partial_clauses + run.minimality.complete_clauses,
+            checks_given_up: run.minimality.gave_up,
+            check_seconds: run.minimality.check_seconds,
+        };
         return Ok(RefuteReport {
             result,
             solve_seconds,
+            minimality: Some(account),
         });
     }
     let formula = Formula::from_encoding(encoding);
@@ -189,6 +211,7 @@ pub fn refute(
     Ok(RefuteReport {
         result,
         solve_seconds,
+        minimality: None,
     })
 }
 

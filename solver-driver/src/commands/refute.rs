@@ -8,7 +8,9 @@ use clap::Args;
 use ramsift_encoder::{Colouring, Instance, SymmetryChoice};
 
 use ramsift_driver::certify::bundle::Manifest;
-use ramsift_driver::certify::refute::{certify_premises, refute, RefuteOptions, RefuteResult};
+use ramsift_driver::certify::refute::{
+    certify_premises, refute, RefuteOptions, RefuteReport, RefuteResult,
+};
 use ramsift_driver::exit_codes;
 use ramsift_driver::output::records::{
     colouring_rows, RefuteFoundRecord, RefutedRecord, UnknownRecord,
@@ -104,14 +106,7 @@ pub fn run(args: &RefuteArgs) -> Result<u8> {
                 )?);
                 ramsift_driver::certify::referee_guide::write_guide(&args.dir.out, manifest)?;
             }
-            print_refuted(
-                args,
-                &instance,
-                manifest,
-                *proof_bytes,
-                report.solve_seconds,
-                files,
-            )?;
+            print_refuted(args, &instance, manifest, *proof_bytes, &report, files)?;
             Ok(exit_codes::NONE_EXISTS)
         }
         RefuteResult::Found(colouring) => {
@@ -143,9 +138,10 @@ fn print_refuted(
     instance: &Instance,
     manifest: &Manifest,
     proof_bytes: u64,
-    seconds: f64,
+    report: &RefuteReport,
     files: Vec<PathBuf>,
 ) -> Result<()> {
+    let seconds = report.solve_seconds;
     if args.json {
         let record = RefutedRecord {
             instance: instance.to_string(),
@@ -160,6 +156,7 @@ fn print_refuted(
             seconds,
             proof_bytes,
             files,
+            search: report.minimality.clone(),
         };
         return print_record(record, "refuted", exit_codes::NONE_EXISTS);
     }
@@ -167,6 +164,12 @@ fn print_refuted(
     println!(
         "REFUTED {instance}: no colouring exists, so R({spec}) <= {n}; DRAT trace of {proof_bytes} bytes in {seconds:.2}s"
     );
+    if let Some(a) = &report.minimality {
+        println!(
+            "search: {} conflicts; {} minimality clauses from {} checks ({} gave up), checks took {:.2}s of {seconds:.2}s",
+            a.conflicts, a.minimality_clauses, a.checks, a.checks_given_up, a.check_seconds
+        );
+    }
     for p in &manifest.premises {
         println!("premise: {} ({})", p.statement, p.source);
     }

@@ -252,6 +252,9 @@ pub struct RefutedRecord {
     pub seconds: f64,
     pub proof_bytes: u64,
     pub files: Vec<PathBuf>,
+    /// With minimality: the hooked search's counters.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub search: Option<crate::certify::refute::SearchAccount>,
 }
 
 /// A `refute` run that found a colouring instead.
