@@ -27,9 +27,10 @@ pub struct RefuteArgs {
     pub instance: InstanceArgs,
     #[command(flatten)]
     pub dir: OutDirArgs,
-    /// Symmetry breaking: default (minimality during the search, with degree-bounds
-    /// for cliques, as degree bounds rest on clique Ramsey numbers; see BENCHMARKS.md
-    /// for the measurements), none, or a comma list of colour-swap, lex-leader,
+    /// Symmetry breaking: default (two colours: minimality during the search, with
+    /// degree-bounds for cliques, as degree bounds rest on clique Ramsey numbers;
+    /// three or more colours: colour-swap, lex-leader, degree-bounds; see
+    /// BENCHMARKS.md for the measurements), none, or a comma list of colour-swap, lex-leader,
     /// degree-bounds, minimality (minimality runs our own solver with the
     /// lex-minimality check and does not combine with colour-swap or lex-leader).
     #[arg(long, default_value = "default", value_name = "SCHEMES")]
