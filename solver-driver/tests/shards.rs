@@ -202,6 +202,49 @@ fn shards_of_a_graph_ramsey_refutation_merge_into_a_passing_bundle() {
 }
 
 #[test]
+fn a_sharded_r37_23_with_the_minimality_search_merges_into_a_passing_bundle() {
+    // R(3,7) = 23 (Graver & Yackel 1968; Radziszowski DS1). The default plan runs
+    // every shard with the minimality search; merge joins their clauses, and the
+    // checker verifies them before the shard traces and the composed trace.
+    let dir = tempfile::tempdir().unwrap();
+    let plan = dir.path().join("plan");
+    let out = ok(
+        &ramsift(&[
+            "shard",
+            "plan",
+            "3,7",
+            "23",
+            "--shards",
+            "8",
+            "--out",
+            s(&plan),
+        ]),
+        0,
+    );
+    assert!(out.contains("[degree-bounds,minimality]"), "{out}");
+    ok(&ramsift(&["shard", "local", s(&plan)]), 0);
+    assert!(plan
+        .join("shards")
+        .join("00000")
+        .join("minimality.txt")
+        .is_file());
+    let bundle = dir.path().join("bundle");
+    let verdict = merge_and_check(&plan, &bundle, "R(3,7) <= 23");
+    assert!(
+        verdict
+            .passed
+            .iter()
+            .any(|p| p.contains("minimality clauses verified")),
+        "{:?}",
+        verdict.passed
+    );
+    assert!(
+        verdict.unconditional(),
+        "merge certifies the premise R(3,6) <= 18 too"
+    );
+}
+
+#[test]
 fn slurm_script_has_the_array_and_chunks_large_plans() {
     let base = tempfile::tempdir().unwrap();
     let plan = base.path().join("plan");
