@@ -135,12 +135,7 @@ impl<'p> Solver<'p> {
 
     #[inline]
     fn value(&self, lit: Lit) -> i8 {
-        let v = self.values[lit.var()];
-        if lit.is_negated() {
-            -v
-        } else {
-            v
-        }
+        literal_value(&self.values, lit)
     }
 
     fn decision_level(&self) -> u32 {
@@ -250,14 +245,7 @@ impl<'p> Solver<'p> {
                     lits.swap(0, 1);
                 }
                 let first = lits[0];
-                let first_value = {
-                    let v = self.values[first.var()];
-                    if first.is_negated() {
-                        -v
-                    } else {
-                        v
-                    }
-                };
+                let first_value = literal_value(&self.values, first);
                 if first != watch.blocker && first_value == 1 {
                     watches[j] = Watch {
                         cref,
@@ -269,9 +257,7 @@ impl<'p> Solver<'p> {
                 let mut moved = false;
                 for k in 2..lits.len() {
                     let l = lits[k];
-                    let v = self.values[l.var()];
-                    let lv = if l.is_negated() { -v } else { v };
-                    if lv != -1 {
+                    if literal_value(&self.values, l) != -1 {
                         lits.swap(1, k);
                         self.watches[l.index()].push(Watch {
                             cref,
@@ -621,6 +607,17 @@ impl<'p> Solver<'p> {
                 return Outcome::Satisfiable;
             }
         }
+    }
+}
+
+/// 1 true, -1 false, 0 unassigned, from the per-variable values.
+#[inline]
+fn literal_value(values: &[i8], lit: Lit) -> i8 {
+    let v = values[lit.var()];
+    if lit.is_negated() {
+        -v
+    } else {
+        v
     }
 }
 

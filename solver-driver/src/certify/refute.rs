@@ -79,6 +79,19 @@ pub struct SearchAccount {
     pub check_seconds: f64,
 }
 
+impl SearchAccount {
+    fn of(run: &crate::minimality::solve::HookedRun) -> Self {
+        SearchAccount {
+            conflicts: run.solver.conflicts,
+            decisions: run.solver.decisions,
+            checks: run.minimality.checks,
+            minimality_clauses: run.minimality.partial_clauses + run.minimality.complete_clauses,
+            checks_given_up: run.minimality.gave_up,
+            check_seconds: run.minimality.check_seconds,
+        }
+    }
+}
+
 #[derive(Debug, Error)]
 pub enum RefuteError {
     #[error("writing the bundle in {dir}: {source}")]
@@ -131,65 +144,90 @@ pub fn refute(
     };
     let trace = temporary(".proof.")?;
     let started = Instant::now();
-    let deadline = options.timeout.map(|t| started + t);
+    let run = RunLimits {
+        stop,
+        bytes_seen,
+        deadline: options.timeout.map(|t| started + t),
+        started,
+    };
     if encoding.symmetry().contains(Scheme::Minimality) {
         let certificate = temporary(".minimality.")?;
-        let outputs = CertifiedOutputs {
-            trace: trace.as_file(),
-            certificate: certificate.as_file(),
-            text_proof: options.text_proof,
-            bytes_seen: Some(bytes_seen),
-        };
-        let budget = options.check_budget.unwrap_or(DEFAULT_BUDGET);
-        let run =
-            solve_certified(encoding, &[], outputs, budget, stop, deadline).map_err(io_error)?;
-        let solve_seconds = started.elapsed().as_secs_f64();
-        let result = match (run.outcome, run.colouring) {
-            (Outcome::Unsatisfiable, _) => {
-                let written = BundleParts {
-                    trace,
-                    certificate: Some(certificate),
-                    solver: HOOKED_SOLVER_NAME,
-                };
-                let (files, manifest) =
-                    write_refutation_bundle(encoding, dir, options, written, solve_seconds)?;
-                RefuteResult::Refuted {
-                    files,
-                    proof_bytes: run.proof_bytes,
-                    manifest: Box::new(manifest),
-                }
-            }
-            (Outcome::Satisfiable, Some(colouring)) => checked_colouring(encoding, colouring)?,
-            _ => RefuteResult::Unknown,
-        };
-        let account = SearchAccount {
-            conflicts: run.solver.conflicts,
-            decisions: run.solver.decisions,
-            checks: run.minimality.checks,
-            minimality_clauses: run.minimality.partial_clauses + run.minimality.complete_clauses,
-            checks_given_up: run.minimality.gave_up,
-            check_seconds: run.minimality.check_seconds,
-        };
-        return Ok(RefuteReport {
-            result,
-            solve_seconds,
-            minimality: Some(account),
-        });
+        refute_hooked(encoding, dir, options, trace, certificate, run)
+    } else {
+        refute_with_varisat(encoding, dir, options, trace, run)
     }
+}
+
+/// How a refutation may run, and since when.
+struct RunLimits<'a> {
+    stop: &'a AtomicBool,
+    bytes_seen: &'a AtomicU64,
+    deadline: Option<Instant>,
+    started: Instant,
+}
+
+/// The minimality scheme: our solver with the hook, writing minimality.txt too.
+fn refute_hooked(
+    encoding: &RamseyEncoding,
+    dir: &Path,
+    options: &RefuteOptions,
+    trace: tempfile::NamedTempFile,
+    certificate: tempfile::NamedTempFile,
+    limits: RunLimits<'_>,
+) -> Result<RefuteReport, RefuteError> {
+    let outputs = CertifiedOutputs {
+        trace: trace.as_file(),
+        certificate: certificate.as_file(),
+        text_proof: options.text_proof,
+        bytes_seen: Some(limits.bytes_seen),
+    };
+    let budget = options.check_budget.unwrap_or(DEFAULT_BUDGET);
+    let run = solve_certified(encoding, &[], outputs, budget, limits.stop, limits.deadline)
+        .map_err(|source| RefuteError::Io {
+            dir: dir.to_path_buf(),
+            source,
+        })?;
+    let solve_seconds = limits.started.elapsed().as_secs_f64();
+    let account = SearchAccount::of(&run);
+    let result = match (run.outcome, run.colouring) {
+        (Outcome::Unsatisfiable, _) => {
+            let parts = BundleParts {
+                trace,
+                certificate: Some(certificate),
+                solver: HOOKED_SOLVER_NAME,
+                solve_seconds,
+                proof_bytes: run.proof_bytes,
+            };
+            refuted(encoding, dir, options, parts)?
+        }
+        (Outcome::Satisfiable, Some(colouring)) => checked_colouring(encoding, colouring)?,
+        _ => RefuteResult::Unknown,
+    };
+    Ok(RefuteReport {
+        result,
+        solve_seconds,
+        minimality: Some(account),
+    })
+}
+
+/// Static schemes only: varisat on the exact CNF.
+fn refute_with_varisat(
+    encoding: &RamseyEncoding,
+    dir: &Path,
+    options: &RefuteOptions,
+    trace: tempfile::NamedTempFile,
+    limits: RunLimits<'_>,
+) -> Result<RefuteReport, RefuteError> {
     let formula = Formula::from_encoding(encoding);
     let proof = ProofOutput {
         writer: BufWriter::with_capacity(1 << 20, trace.as_file()),
         text: options.text_proof,
-        bytes_seen: Some(bytes_seen),
+        bytes_seen: Some(limits.bytes_seen),
     };
-    let report = run_attempt_with_proof(
-        &formula,
-        &AttemptPlan::default(),
-        stop,
-        deadline,
-        Some(proof),
-    )?;
-    let solve_seconds = started.elapsed().as_secs_f64();
+    let plan = AttemptPlan::default();
+    let report =
+        run_attempt_with_proof(&formula, &plan, limits.stop, limits.deadline, Some(proof))?;
+    let solve_seconds = limits.started.elapsed().as_secs_f64();
     let result = match report.outcome {
         AttemptOutcome::Stopped(_) => RefuteResult::Unknown,
         AttemptOutcome::Satisfiable(colouring) => checked_colouring(encoding, colouring)?,
@@ -198,20 +236,32 @@ pub fn refute(
                 trace,
                 certificate: None,
                 solver: crate::SOLVER_NAME,
-            };
-            let (written, manifest) =
-                write_refutation_bundle(encoding, dir, options, parts, solve_seconds)?;
-            RefuteResult::Refuted {
-                files: written,
+                solve_seconds,
                 proof_bytes: report.proof_bytes,
-                manifest: Box::new(manifest),
-            }
+            };
+            refuted(encoding, dir, options, parts)?
         }
     };
     Ok(RefuteReport {
         result,
         solve_seconds,
         minimality: None,
+    })
+}
+
+/// Writes the bundle of a refutation and describes it.
+fn refuted(
+    encoding: &RamseyEncoding,
+    dir: &Path,
+    options: &RefuteOptions,
+    parts: BundleParts,
+) -> Result<RefuteResult, RefuteError> {
+    let proof_bytes = parts.proof_bytes;
+    let (files, manifest) = write_refutation_bundle(encoding, dir, options, parts)?;
+    Ok(RefuteResult::Refuted {
+        files,
+        proof_bytes,
+        manifest: Box::new(manifest),
     })
 }
 
@@ -230,11 +280,14 @@ fn checked_colouring(
 /// The name of the hooked solver in manifests.
 pub const HOOKED_SOLVER_NAME: &str = "ramsift-cdcl (our CDCL with a minimality hook)";
 
-/// The finished temporary files of a refutation and the solver that made them.
+/// The finished temporary files of a refutation, the solver that made them and
+/// what it took.
 struct BundleParts {
     trace: tempfile::NamedTempFile,
     certificate: Option<tempfile::NamedTempFile>,
     solver: &'static str,
+    solve_seconds: f64,
+    proof_bytes: u64,
 }
 
 /// Makes a finished temporary file readable and renames it into place.
@@ -256,8 +309,8 @@ fn write_refutation_bundle(
     dir: &Path,
     options: &RefuteOptions,
     parts: BundleParts,
-    solve_seconds: f64,
 ) -> Result<(Vec<PathBuf>, Manifest), RefuteError> {
+    let solve_seconds = parts.solve_seconds;
     let trace = parts.trace;
     let io_error = |source: io::Error| RefuteError::Io {
         dir: dir.to_path_buf(),

@@ -80,41 +80,10 @@ pub fn run_shard(
     let fixed = cube.lemmas.iter().filter(|c| c.len() == 1).map(|c| c[0]);
     let units: Vec<i32> = cube.literals.iter().copied().chain(fixed).collect();
     let deadline = timeout.map(|t| started + t);
-    let (outcome, certificate) = if encoding.symmetry().contains(Scheme::Minimality) {
-        writer.flush().map_err(ShardError::io(&dir))?;
-        drop(writer);
-        let certificate = tempfile::Builder::new()
-            .prefix(".minimality.")
-            .suffix(".tmp")
-            .tempfile_in(&dir)
-            .map_err(ShardError::io(&dir))?;
-        let outputs = CertifiedOutputs {
-            trace: trace.as_file(),
-            certificate: certificate.as_file(),
-            text_proof: false,
-            bytes_seen: None,
-        };
-        let run = solve_certified(&encoding, &units, outputs, DEFAULT_BUDGET, stop, deadline)
-            .map_err(ShardError::io(&dir))?;
-        let outcome = match (run.outcome, run.colouring) {
-            (Outcome::Unsatisfiable, _) => AttemptOutcome::Unsatisfiable,
-            (Outcome::Satisfiable, Some(colouring)) => AttemptOutcome::Satisfiable(colouring),
-            _ => return Ok(ShardOutcome::Unknown),
-        };
-        (outcome, Some(certificate))
-    } else {
-        let formula = Formula::from_encoding(&encoding);
-        let attempt = AttemptPlan {
-            units,
-            ..AttemptPlan::default()
-        };
-        let proof = ProofOutput {
-            writer,
-            text: false,
-            bytes_seen: None,
-        };
-        let report = run_attempt_with_proof(&formula, &attempt, stop, deadline, Some(proof))?;
-        (report.outcome, None)
+    let Some((outcome, certificate)) =
+        solve_shard(&encoding, units, writer, &trace, &dir, stop, deadline)?
+    else {
+        return Ok(ShardOutcome::Unknown);
     };
     let seconds = started.elapsed().as_secs_f64();
     let mut result = ShardResult {
@@ -150,6 +119,59 @@ pub fn run_shard(
     Ok(match result.status {
         ShardStatus::Found => ShardOutcome::Found,
         ShardStatus::Refuted => ShardOutcome::Refuted,
+    })
+}
+
+/// Solves the formula with `units` fixed, the trace continuing after the
+/// lemmas in `writer`: our solver with the minimality check when the plan uses
+/// it (its clauses in a temporary file, returned), else varisat. None: stopped.
+fn solve_shard(
+    encoding: &RamseyEncoding,
+    units: Vec<i32>,
+    mut writer: BufWriter<&std::fs::File>,
+    trace: &tempfile::NamedTempFile,
+    dir: &Path,
+    stop: &AtomicBool,
+    deadline: Option<Instant>,
+) -> Result<Option<(AttemptOutcome, Option<tempfile::NamedTempFile>)>, ShardError> {
+    if !encoding.symmetry().contains(Scheme::Minimality) {
+        let formula = Formula::from_encoding(encoding);
+        let attempt = AttemptPlan {
+            units,
+            ..AttemptPlan::default()
+        };
+        let proof = ProofOutput {
+            writer,
+            text: false,
+            bytes_seen: None,
+        };
+        let report = run_attempt_with_proof(&formula, &attempt, stop, deadline, Some(proof))?;
+        return Ok(match report.outcome {
+            AttemptOutcome::Stopped(_) => None,
+            outcome => Some((outcome, None)),
+        });
+    }
+    writer.flush().map_err(ShardError::io(dir))?;
+    drop(writer);
+    let certificate = tempfile::Builder::new()
+        .prefix(".minimality.")
+        .suffix(".tmp")
+        .tempfile_in(dir)
+        .map_err(ShardError::io(dir))?;
+    let outputs = CertifiedOutputs {
+        trace: trace.as_file(),
+        certificate: certificate.as_file(),
+        text_proof: false,
+        bytes_seen: None,
+    };
+    let run = solve_certified(encoding, &units, outputs, DEFAULT_BUDGET, stop, deadline)
+        .map_err(ShardError::io(dir))?;
+    Ok(match (run.outcome, run.colouring) {
+        (Outcome::Unsatisfiable, _) => Some((AttemptOutcome::Unsatisfiable, Some(certificate))),
+        (Outcome::Satisfiable, Some(colouring)) => {
+            Some((AttemptOutcome::Satisfiable(colouring), None))
+        }
+        _ => None,
     })
 }
 
