@@ -128,17 +128,24 @@ fn check_steps(
     ]
     .map(String::from)
     .to_vec();
-    match (single, minimality) {
-        (Some(p), Some((variables, clauses))) => {
-            let proof = &p.name;
+    // With minimality, the traces refute the formula with the minimality clauses
+    // appended (their verification is part of step 1 only).
+    let formula = match minimality {
+        Some((variables, clauses)) => {
             steps.extend([
-                "2. The DRAT trace alone against the formula with the minimality clauses appended (their".to_string(),
-                "   verification is part of step 1 only); this builds that formula:".to_string(),
+                "2. The traces alone are checked against the formula with the minimality clauses appended;".to_string(),
+                "   this builds that formula:".to_string(),
                 format!(
                     "     $ {{ echo 'p cnf {variables} {clauses}'; gunzip -c {FORMULA_FILE} | grep -v '^[cp]'; tail -n +3 {CERTIFICATE_FILE} | cut -d/ -f3; }} > with-minimality.cnf"
                 ),
-                format!("     $ ramsift-check drat with-minimality.cnf {proof}"),
             ]);
+            "with-minimality.cnf"
+        }
+        None => FORMULA_FILE,
+    };
+    match (single, minimality) {
+        (Some(p), Some(_)) => {
+            steps.push(format!("     $ ramsift-check drat {formula} {}", p.name));
         }
         (Some(p), None) => {
             let proof = &p.name;
@@ -153,13 +160,16 @@ fn check_steps(
             ]);
         }
         (None, _) => {
-            steps.push("2. Each shard's trace alone refutes the formula under its cube (not the formula alone);".into());
+            let number = if minimality.is_some() { "  " } else { "2." };
+            steps.push(format!(
+                "{number} Each shard's trace alone refutes the formula under its cube (not the formula alone);"
+            ));
             steps.push("   that the cubes cover every case is checked by step 1:".into());
             for shard in shards {
                 let cube: Vec<String> =
                     shard.cube.iter().flatten().map(|l| l.to_string()).collect();
                 steps.push(format!(
-                    "     $ ramsift-check drat {FORMULA_FILE} {} --cube={}",
+                    "     $ ramsift-check drat {formula} {} --cube={}",
                     shard.name,
                     cube.join(",")
                 ));
