@@ -50,6 +50,23 @@ fn plan_r44(dir: &Path) {
     assert!(out.contains("as 16 shards"), "{out}");
 }
 
+/// Plans `spec` at `order` into 8 shards with the default symmetry; the account.
+fn plan_with_default_symmetry(spec: &str, order: &str, plan: &Path) -> String {
+    ok(
+        &ramsift(&[
+            "shard",
+            "plan",
+            spec,
+            order,
+            "--shards",
+            "8",
+            "--out",
+            s(plan),
+        ]),
+        0,
+    )
+}
+
 /// Merges the plan with a composed single trace; the bundle must pass as `claim`.
 fn merge_and_check(
     plan: &Path,
@@ -177,19 +194,7 @@ fn shards_of_a_graph_ramsey_refutation_merge_into_a_passing_bundle() {
     // degree bounds.
     let dir = tempfile::tempdir().unwrap();
     let plan = dir.path().join("plan");
-    let out = ok(
-        &ramsift(&[
-            "shard",
-            "plan",
-            "C4,4",
-            "10",
-            "--shards",
-            "8",
-            "--out",
-            s(&plan),
-        ]),
-        0,
-    );
+    let out = plan_with_default_symmetry("C4,4", "10", &plan);
     // The planner splits until 8 cubes are open or nothing is left to split: here
     // lookahead settles every branch after two splits, so the plan is smaller.
     let plan_json: serde_json::Value =
@@ -208,19 +213,7 @@ fn a_sharded_r37_23_with_the_minimality_search_merges_into_a_passing_bundle() {
     // checker verifies them before the shard traces and the composed trace.
     let dir = tempfile::tempdir().unwrap();
     let plan = dir.path().join("plan");
-    let out = ok(
-        &ramsift(&[
-            "shard",
-            "plan",
-            "3,7",
-            "23",
-            "--shards",
-            "8",
-            "--out",
-            s(&plan),
-        ]),
-        0,
-    );
+    let out = plan_with_default_symmetry("3,7", "23", &plan);
     assert!(out.contains("[degree-bounds,minimality]"), "{out}");
     ok(&ramsift(&["shard", "local", s(&plan)]), 0);
     assert!(plan
