@@ -71,7 +71,7 @@ fn main() {
         let new = measure(&parts, false, args.cap, args.repeats, &out);
         let old = measure(&parts, true, args.cap, args.repeats, &out);
         let ratio = match (new, old) {
-            (Some(a), Some(b)) => format!("{:.0}×", b / a),
+            (Some(a), Some(b)) => format!("{:.1}×", b / a),
             _ => "-".into(),
         };
         println!(
