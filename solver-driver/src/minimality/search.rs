@@ -222,7 +222,7 @@ mod tests {
     /// The count of minimal colourings against the number of graphs on n vertices
     /// (OEIS A000088: 1, 2, 4, 11, 34, 156) and of graphs up to complement
     /// (n = 2..6: 1, 2, 6, 18, 78; from the graph counts and the self-complementary
-    /// counts of OEIS A000171: 1 on 4 vertices, 2 on 5, 0 on 6). Brute force over
+    /// counts of OEIS A000171, from memory: 1 on 4 vertices, 2 on 5, 0 on 6). Brute force over
     /// all relabellings is in `tests/minimality_soundness.rs`.
     #[test]
     fn exact_search_counts_the_classes() {
