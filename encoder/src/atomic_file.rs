@@ -1,6 +1,8 @@
 //! Writing output files so that a reader never sees half of one: the content goes to
 //! a temporary file in the same directory, is flushed to disk, and is then renamed
-//! over the final name. If writing fails, the temporary file is removed.
+//! over the final name. If writing fails, the temporary file is removed. Work that
+//! streams an output while it runs (a proof trace) uses the two halves directly:
+//! [`temporary_in`], then [`persist_finished`] once the work succeeded.
 
 use std::fs;
 use std::io::{self, BufWriter, Write};
@@ -25,10 +27,7 @@ pub fn write_atomically<T>(
     let mut prefix = std::ffi::OsString::from(".");
     prefix.push(file_name);
     prefix.push(".");
-    let temp = tempfile::Builder::new()
-        .prefix(&prefix)
-        .suffix(".tmp")
-        .tempfile_in(dir)?;
+    let temp = temporary_in(dir, &prefix)?;
     let gzip = path.extension().is_some_and(|e| e == "gz");
     let mut buffered = BufWriter::with_capacity(1 << 20, temp.as_file());
     let value = if gzip {
@@ -41,7 +40,26 @@ pub fn write_atomically<T>(
     };
     buffered.flush()?;
     drop(buffered);
-    // Temporary files are created private (0600); a finished output is an ordinary file.
+    persist_finished(temp, path)?;
+    Ok(value)
+}
+
+/// A temporary file `{prefix}<random>.tmp` in `dir` (give a prefix starting with `.`
+/// to keep it hidden), removed if dropped before [`persist_finished`].
+pub fn temporary_in(
+    dir: &Path,
+    prefix: impl AsRef<std::ffi::OsStr>,
+) -> io::Result<tempfile::NamedTempFile> {
+    tempfile::Builder::new()
+        .prefix(&prefix)
+        .suffix(".tmp")
+        .tempfile_in(dir)
+}
+
+/// Puts a finished temporary file (every write to it flushed) in place as an
+/// ordinary file: readable by all (temporary files are created 0600), synced to
+/// disk, renamed to `path`.
+pub fn persist_finished(temp: tempfile::NamedTempFile, path: &Path) -> io::Result<()> {
     #[cfg(unix)]
     {
         use std::os::unix::fs::PermissionsExt;
@@ -49,8 +67,7 @@ pub fn write_atomically<T>(
             .set_permissions(fs::Permissions::from_mode(0o644))?;
     }
     temp.as_file().sync_all()?;
-    temp.persist(path).map_err(|e| e.error)?;
-    Ok(value)
+    temp.persist(path).map(|_| ()).map_err(|e| e.error)
 }
 
 /// Creates a directory (and its parents) for output, with a clear error.

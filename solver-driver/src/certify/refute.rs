@@ -17,7 +17,7 @@ use std::time::{Duration, Instant};
 
 use thiserror::Error;
 
-use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::atomic_file::{ensure_dir, persist_finished, temporary_in, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 use ramsift_encoder::{Colouring, RamseyEncoding, Scheme};
 
@@ -135,13 +135,7 @@ pub fn refute(
         source,
     };
     ensure_dir(dir).map_err(io_error)?;
-    let temporary = |prefix: &str| {
-        tempfile::Builder::new()
-            .prefix(prefix)
-            .suffix(".tmp")
-            .tempfile_in(dir)
-            .map_err(io_error)
-    };
+    let temporary = |prefix: &str| temporary_in(dir, prefix).map_err(io_error);
     let trace = temporary(".proof.")?;
     let started = Instant::now();
     let run = RunLimits {
@@ -290,18 +284,6 @@ struct BundleParts {
     proof_bytes: u64,
 }
 
-/// Makes a finished temporary file readable and renames it into place.
-fn persist(file: tempfile::NamedTempFile, path: &Path) -> io::Result<()> {
-    #[cfg(unix)]
-    {
-        use std::os::unix::fs::PermissionsExt;
-        file.as_file()
-            .set_permissions(std::fs::Permissions::from_mode(0o644))?;
-    }
-    file.as_file().sync_all()?;
-    file.persist(path).map(|_| ()).map_err(|e| e.error)
-}
-
 /// Puts the finished trace in place (compressed if asked) and writes the formula,
 /// the manifest and the guide. Returns the files written and the manifest.
 fn write_refutation_bundle(
@@ -318,13 +300,12 @@ fn write_refutation_bundle(
     };
     let proof_name = proof_file_name(options);
     let proof_path = dir.join(&proof_name);
-    trace.as_file().sync_all().map_err(io_error)?;
     if options.gzip_proof {
         let mut source = trace.reopen().map_err(io_error)?;
         write_atomically(&proof_path, |w| io::copy(&mut source, w).map(|_| ()))
             .map_err(io_error)?;
     } else {
-        persist(trace, &proof_path).map_err(io_error)?;
+        persist_finished(trace, &proof_path).map_err(io_error)?;
     }
     let formula_path = dir.join(FORMULA_FILE);
     write_encoding_to(encoding, &formula_path).map_err(io_error)?;
@@ -341,7 +322,7 @@ fn write_refutation_bundle(
     let mut written = vec![formula_path, proof_path];
     if let Some(certificate) = parts.certificate {
         let path = dir.join(CERTIFICATE_FILE);
-        persist(certificate, &path).map_err(io_error)?;
+        persist_finished(certificate, &path).map_err(io_error)?;
         files.push(
             FileRecord::of(
                 dir,

@@ -14,7 +14,7 @@ use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 use ramsift_checker::drat_parse::{parse_drat, StepKind};
-use ramsift_encoder::atomic_file::{ensure_dir, write_atomically};
+use ramsift_encoder::atomic_file::{ensure_dir, persist_finished, temporary_in, write_atomically};
 use ramsift_encoder::dimacs::write_encoding_to;
 
 use super::error::ShardError;
@@ -235,11 +235,7 @@ struct Composer {
 
 impl Composer {
     fn start(out_dir: &Path) -> Result<Composer, ShardError> {
-        let file = tempfile::Builder::new()
-            .prefix(".proof.")
-            .suffix(".tmp")
-            .tempfile_in(out_dir)
-            .map_err(ShardError::io(out_dir))?;
+        let file = temporary_in(out_dir, ".proof.").map_err(ShardError::io(out_dir))?;
         let handle = file
             .as_file()
             .try_clone()
@@ -255,14 +251,8 @@ impl Composer {
         let path = out_dir.join(COMPOSED_FILE);
         compose_tree(tree, &mut Vec::new(), &mut self.writer).map_err(ShardError::io(&path))?;
         self.writer.flush().map_err(ShardError::io(&path))?;
-        self.writer
-            .get_ref()
-            .sync_all()
-            .map_err(ShardError::io(&path))?;
         drop(self.writer);
-        self.file
-            .persist(&path)
-            .map_err(|e| ShardError::io(&path)(e.error))?;
+        persist_finished(self.file, &path).map_err(ShardError::io(&path))?;
         FileRecord::of(
             out_dir,
             COMPOSED_FILE,

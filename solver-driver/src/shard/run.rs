@@ -15,7 +15,7 @@ use std::sync::atomic::AtomicBool;
 use std::time::{Duration, Instant};
 
 use ramsift_cdcl::Outcome;
-use ramsift_encoder::atomic_file::write_atomically;
+use ramsift_encoder::atomic_file::{persist_finished, temporary_in, write_atomically};
 use ramsift_encoder::{Colouring, RamseyEncoding, Scheme};
 
 use super::error::ShardError;
@@ -64,11 +64,7 @@ pub fn run_shard(
     }
     let dir = fresh_shard_dir(plan_dir, index)?;
     let encoding = plan.encoding()?;
-    let trace = tempfile::Builder::new()
-        .prefix(".proof.")
-        .suffix(".tmp")
-        .tempfile_in(&dir)
-        .map_err(ShardError::io(&dir))?;
+    let trace = temporary_in(&dir, ".proof.").map_err(ShardError::io(&dir))?;
     hold_for_tests();
     let started = Instant::now();
     // The planner's lemmas open the trace, each RUP from the formula, the cube and
@@ -153,11 +149,7 @@ fn solve_shard(
     }
     writer.flush().map_err(ShardError::io(dir))?;
     drop(writer);
-    let certificate = tempfile::Builder::new()
-        .prefix(".minimality.")
-        .suffix(".tmp")
-        .tempfile_in(dir)
-        .map_err(ShardError::io(dir))?;
+    let certificate = temporary_in(dir, ".minimality.").map_err(ShardError::io(dir))?;
     let outputs = CertifiedOutputs {
         trace: trace.as_file(),
         certificate: certificate.as_file(),
@@ -185,17 +177,14 @@ fn fresh_shard_dir(plan_dir: &Path, index: usize) -> Result<PathBuf, ShardError>
     Ok(dir)
 }
 
-/// Flushes a finished file to disk and renames it to `name`; returns its
-/// SHA-256 and size.
+/// Puts a finished file in place as `name`; returns its SHA-256 and size.
 fn persist_file(
     file: tempfile::NamedTempFile,
     dir: &Path,
     name: &str,
 ) -> Result<(String, u64), ShardError> {
-    file.as_file().sync_all().map_err(ShardError::io(dir))?;
     let path = dir.join(name);
-    file.persist(&path)
-        .map_err(|e| ShardError::io(&path)(e.error))?;
+    persist_finished(file, &path).map_err(ShardError::io(&path))?;
     hash_file(&path).map_err(ShardError::io(&path))
 }
 
