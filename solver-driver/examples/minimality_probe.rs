@@ -6,7 +6,7 @@ use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
 use ramsift_cdcl::NoHook;
-use ramsift_driver::enumerate::canonical::colour_permutations;
+use ramsift_driver::enumerate::canonical::colour_maps;
 use ramsift_driver::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
 use ramsift_driver::minimality::solve::{loaded_solver, solve_encoding};
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, Scheme, SymmetrySet};
@@ -32,9 +32,7 @@ fn main() {
         &EncodingLimits::default(),
     )
     .expect("encodes");
-    let classes: Vec<String> = spec.forbidden().iter().map(|g| g.to_string()).collect();
-    let mut hook =
-        MinimalityHook::new(*encoding.variables(), colour_permutations(&classes), budget);
+    let mut hook = MinimalityHook::new(*encoding.variables(), colour_maps(&spec, true), budget);
     let started = Instant::now();
     let mut solver = loaded_solver(&encoding);
     let (outcome, _) = if hooked {

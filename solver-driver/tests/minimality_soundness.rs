@@ -13,13 +13,12 @@
 use std::collections::HashMap;
 use std::sync::atomic::AtomicBool;
 
-use ramsift_driver::enumerate::canonical::{canonical_form, ColourTable};
+use ramsift_driver::enumerate::canonical::{canonical_form, colour_maps, ColourTable};
 use ramsift_driver::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
 use ramsift_driver::minimality::matrix::PartialMatrix;
 use ramsift_driver::minimality::search::{find_smaller, Verdict, Witness};
-use ramsift_driver::minimality::solve::{
-    blocking_clause, colour_maps, loaded_solver, model_colouring, stopped,
-};
+use ramsift_driver::minimality::solve::{blocking_clause, loaded_solver, model_colouring};
+use ramsift_driver::search::interrupt::stop_requested;
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, Scheme, SymmetrySet};
 
@@ -195,7 +194,9 @@ fn classes(sizes: &[usize], n: usize, schemes: &[Scheme]) -> usize {
     let mut solver = loaded_solver(&encoding);
     let stop = AtomicBool::new(false);
     let mut count = 0;
-    while solver.solve(&mut hook, &|| stopped(&stop), None) == ramsift_cdcl::Outcome::Satisfiable {
+    while solver.solve(&mut hook, &|| stop_requested(&stop), None)
+        == ramsift_cdcl::Outcome::Satisfiable
+    {
         solver.add_clause(&blocking_clause(&vars, &model_colouring(&solver, &vars)));
         count += 1;
     }

@@ -5,7 +5,7 @@ use std::sync::atomic::AtomicBool;
 
 use ramsift_checker::check_colouring;
 use ramsift_driver::certify::witness_check::{to_claim, to_matrix};
-use ramsift_driver::enumerate::canonical::{canonical_form, colour_permutations, ColourTable};
+use ramsift_driver::enumerate::canonical::{canonical_form, colour_maps, ColourTable};
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_encoder::{Instance, RamseySpec};
 
@@ -28,17 +28,7 @@ fn count_with(sizes: &[usize], n: usize, swap_colours: bool, lex_leader: bool) -
     for colouring in &result.classes {
         assert!(check_colouring(&to_matrix(colouring), &to_claim(instance.spec())).is_valid());
     }
-    let names: Vec<String> = instance
-        .spec()
-        .forbidden()
-        .iter()
-        .map(|g| g.to_string())
-        .collect();
-    let maps = if swap_colours {
-        colour_permutations(&names)
-    } else {
-        vec![(0..=sizes.len() as u8).collect()]
-    };
+    let maps = colour_maps(instance.spec(), swap_colours);
     let mut forms: Vec<Vec<u8>> = result
         .classes
         .iter()

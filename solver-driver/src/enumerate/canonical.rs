@@ -145,6 +145,17 @@ fn refine(table: &ColourTable, colours: usize, mut cells: Vec<Vec<usize>>) -> Ve
     }
 }
 
+/// The colour maps that identify colourings of `spec`: every permutation of
+/// colours with equal forbidden graphs when `swap`, else the identity only.
+pub fn colour_maps(spec: &ramsift_encoder::RamseySpec, swap: bool) -> Vec<Vec<u8>> {
+    if swap {
+        let classes: Vec<String> = spec.forbidden().iter().map(|g| g.to_string()).collect();
+        colour_permutations(&classes)
+    } else {
+        vec![(0..=spec.colours() as u8).collect()]
+    }
+}
+
 /// Every permutation of colours that maps each colour to one with the same
 /// forbidden graph (`classes[c-1]` names colour c's class), as maps indexed by
 /// colour (index 0 unused).

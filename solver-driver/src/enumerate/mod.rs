@@ -23,19 +23,16 @@ use std::time::{Duration, Instant};
 
 use varisat::{ExtendFormula, Lit, Solver};
 
-use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{
     Colouring, EncodingLimits, Instance, RamseyEncoding, Scheme, SymmetrySet, VariableMap,
 };
 
 use crate::certify::witness_check::verify_witness;
 use crate::minimality::hook::{MinimalityHook, DEFAULT_BUDGET};
-use crate::minimality::solve::{
-    blocking_clause, colour_maps, loaded_solver, model_colouring, stopped,
-};
-use crate::search::interrupt::{limited_solver, SinkReport};
+use crate::minimality::solve::{blocking_clause, loaded_solver, model_colouring};
+use crate::search::interrupt::{limited_solver, stop_requested, SinkReport};
 use crate::search::job::SearchError;
-use canonical::{canonical_form, colour_permutations, ColourTable};
+use canonical::{canonical_form, colour_maps, ColourTable};
 use ramsift_cdcl::Outcome;
 
 /// How an enumeration runs.
@@ -63,7 +60,6 @@ pub struct Enumeration {
     pub symmetry: SymmetrySet,
 }
 
-/// Enumerates the colourings of `instance` up to isomorphism; `progress(models,
 /// Gives every clause of the encoding to the solver.
 fn load_encoding(solver: &mut Solver<'_>, encoding: &RamseyEncoding) {
     let mut buffer = Vec::new();
@@ -89,19 +85,15 @@ fn take_model(solver: &mut Solver<'_>, vars: &VariableMap) -> Colouring {
         }
     }
     let colouring = vars.decode(|v| values[v]);
-    let n = vars.order();
-    let block: Vec<Lit> = (0..n)
-        .flat_map(|j| (0..j).map(move |i| (i, j)))
-        .map(|(i, j)| {
-            Lit::from_dimacs(
-                -(vars.colour_literal(edge_index(i, j), colouring.colour(i, j) as usize) as isize),
-            )
-        })
+    let block: Vec<Lit> = blocking_clause(vars, &colouring)
+        .into_iter()
+        .map(|l| Lit::from_dimacs(l as isize))
         .collect();
     solver.add_clause(&block);
     colouring
 }
 
+/// Enumerates the colourings of `instance` up to isomorphism; `progress(models,
 /// classes)` is called after each model.
 pub fn enumerate(
     instance: &Instance,
@@ -119,23 +111,12 @@ pub fn enumerate(
     debug_assert!(!symmetry.contains(Scheme::DegreeBounds));
     let vars = *encoding.variables();
     let n = instance.order();
-    let r = instance.colours();
 
     let report = SinkReport::default();
     let mut solver = limited_solver(stop, deadline, &report);
     load_encoding(&mut solver, &encoding);
 
-    let classes_of: Vec<String> = instance
-        .spec()
-        .forbidden()
-        .iter()
-        .map(|g| g.to_string())
-        .collect();
-    let maps = if options.swap_colours {
-        colour_permutations(&classes_of)
-    } else {
-        vec![(0..=r as u8).collect()]
-    };
+    let maps = colour_maps(instance.spec(), options.swap_colours);
     let mut seen: HashMap<Vec<u8>, usize> = HashMap::new();
     let mut classes = Vec::new();
     let mut models = 0u64;
@@ -190,7 +171,7 @@ fn enumerate_minimal(
     let mut solver = loaded_solver(&encoding);
     let mut classes = Vec::new();
     let complete = loop {
-        match solver.solve(&mut hook, &|| stopped(stop), deadline) {
+        match solver.solve(&mut hook, &|| stop_requested(stop), deadline) {
             Outcome::Satisfiable => {}
             Outcome::Unsatisfiable => break true,
             Outcome::Interrupted => break false,

@@ -182,11 +182,7 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     let options = shared.options;
     let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
     rng.set_stream(worker as u64 + 1000);
-    let stopped = || {
-        shared.stop.load(Ordering::Relaxed)
-            || crate::search::interrupt::interrupted()
-            || shared.deadline.is_some_and(|d| Instant::now() >= d)
-    };
+    let stopped = || crate::search::interrupt::should_stop(shared.stop, shared.deadline);
     while !stopped() {
         let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
         let mut state = match options.starts.get(index) {

@@ -5,6 +5,9 @@ use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
 use ramsift_cdcl::{Outcome, SearchHook, Solver};
+
+use crate::enumerate::canonical::colour_maps;
+use crate::search::interrupt::stop_requested;
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::{Colouring, RamseyEncoding, VariableMap};
 
@@ -35,11 +38,6 @@ pub fn blocking_clause(vars: &VariableMap, colouring: &Colouring) -> Vec<i32> {
         .collect()
 }
 
-/// The caller's stop flag or a signal.
-pub fn stopped(stop: &AtomicBool) -> bool {
-    stop.load(std::sync::atomic::Ordering::Relaxed) || crate::search::interrupt::interrupted()
-}
-
 /// One run to the first answer.
 pub fn solve_encoding(
     solver: &mut Solver<'_>,
@@ -48,21 +46,10 @@ pub fn solve_encoding(
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> (Outcome, Option<Colouring>) {
-    let outcome = solver.solve(hook, &|| stopped(stop), deadline);
+    let outcome = solver.solve(hook, &|| stop_requested(stop), deadline);
     let colouring =
         (outcome == Outcome::Satisfiable).then(|| model_colouring(solver, encoding.variables()));
     (outcome, colouring)
-}
-
-/// The colour maps the check may use: every permutation of colours with equal
-/// forbidden graphs when `swap`, else the identity only.
-pub fn colour_maps(spec: &ramsift_encoder::RamseySpec, swap: bool) -> Vec<Vec<u8>> {
-    if swap {
-        let classes: Vec<String> = spec.forbidden().iter().map(|g| g.to_string()).collect();
-        crate::enumerate::canonical::colour_permutations(&classes)
-    } else {
-        vec![(0..=spec.colours() as u8).collect()]
-    }
 }
 
 /// What a certified hooked run produced.
@@ -71,7 +58,6 @@ pub struct HookedRun {
     pub outcome: Outcome,
     pub colouring: Option<Colouring>,
     pub proof_bytes: u64,
-    pub certificate_bytes: u64,
     pub solver: ramsift_cdcl::SolverStats,
     pub minimality: crate::minimality::hook::MinimalityStats,
 }
@@ -123,12 +109,11 @@ pub fn solve_certified(
         (outcome, colouring, solver.stats().clone())
     };
     let proof_bytes = sink.finish()?;
-    let certificate_bytes = hook.finish()?;
+    hook.finish()?;
     Ok(HookedRun {
         outcome,
         colouring,
         proof_bytes,
-        certificate_bytes,
         solver: solver_stats,
         minimality: hook.stats,
     })

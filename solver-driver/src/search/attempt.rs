@@ -10,7 +10,7 @@
 //! budgets are enforced, see [`crate::search::interrupt`]) usable.
 
 use std::io::{self, Write};
-use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
+use std::sync::atomic::{AtomicBool, AtomicU64};
 use std::time::{Duration, Instant};
 
 use rand::seq::SliceRandom;
@@ -195,7 +195,7 @@ fn load(
     deadline: Option<Instant>,
 ) -> Option<StopReason> {
     let interrupted = || {
-        if stop.load(Ordering::Relaxed) || crate::search::interrupt::interrupted() {
+        if crate::search::interrupt::stop_requested(stop) {
             Some(StopReason::Stopped)
         } else {
             deadline

@@ -215,10 +215,7 @@ pub fn structured_stage(
     // The same caps with and without --timeout; a timeout only cuts them short.
     let structured_deadline = earliest(Some(started + STRUCTURED_CAP), job.deadline_from(started));
     for orbits in structured_families(order) {
-        if stop.load(Ordering::Relaxed)
-            || super::interrupt::interrupted()
-            || structured_deadline.is_some_and(|d| Instant::now() >= d)
-        {
+        if super::interrupt::should_stop(stop, structured_deadline) {
             return Ok(None);
         }
         job.progress.attempts.fetch_add(1, Ordering::Relaxed);
@@ -390,10 +387,7 @@ fn local_and_seeded_rounds(
     let mut starts = Some(starts);
     let mut slice = Duration::from_secs(1);
     let mut round = 0u64;
-    while !stop.load(Ordering::Relaxed)
-        && !super::interrupt::interrupted()
-        && deadline.is_none_or(|d| Instant::now() < d)
-    {
+    while !super::interrupt::should_stop(stop, deadline) {
         round += 1;
         let local_options = LocalOptions {
             threads: helpers,

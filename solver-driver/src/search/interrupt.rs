@@ -23,6 +23,16 @@ pub fn interrupted() -> bool {
     INTERRUPTED.load(Ordering::Relaxed)
 }
 
+/// Whether the caller's `stop` flag is raised or an interrupting signal has arrived.
+pub fn stop_requested(stop: &AtomicBool) -> bool {
+    stop.load(Ordering::Relaxed) || interrupted()
+}
+
+/// [`stop_requested`], or the `deadline` has passed.
+pub fn should_stop(stop: &AtomicBool, deadline: Option<Instant>) -> bool {
+    stop_requested(stop) || deadline.is_some_and(|d| Instant::now() >= d)
+}
+
 /// Why a run ended without an answer, in words: interrupted or out of time.
 pub fn stopped_because() -> &'static str {
     if interrupted() {
@@ -89,7 +99,7 @@ impl<'a, W: Write> InterruptSink<'a, W> {
     }
 
     fn check(&self) -> Option<StopReason> {
-        if self.limits.stop.load(Ordering::Relaxed) || interrupted() {
+        if stop_requested(self.limits.stop) {
             return Some(StopReason::Stopped);
         }
         if self.limits.deadline.is_some_and(|d| Instant::now() >= d) {

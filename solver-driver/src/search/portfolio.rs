@@ -126,10 +126,7 @@ fn seeded_worker(
     let mut rng = ChaCha8Rng::seed_from_u64(job.options.seed);
     rng.set_stream(worker as u64);
     for attempt in 1u64.. {
-        if stop.load(Ordering::Relaxed)
-            || super::interrupt::interrupted()
-            || deadline.is_some_and(|d| Instant::now() >= d)
-        {
+        if super::interrupt::should_stop(stop, deadline) {
             return Ok(None);
         }
         let seed = draw_seed(job.order(), job.instance.colours(), &mut rng);
