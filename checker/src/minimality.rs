@@ -20,6 +20,7 @@
 
 use crate::claim::ClaimGraph;
 use crate::input_error::InputError;
+use crate::regenerate::lit;
 
 /// The first line.
 pub const FORMAT_LINE: &str = "ramsift minimality clauses 1";
@@ -95,18 +96,12 @@ fn verify_line(line: &str, forbidden: &[ClaimGraph], n: usize) -> Result<Vec<i32
         }
         alpha[var] = if l > 0 { -1 } else { 1 };
     }
+    // The colour α fixes for edge {a,b}: the first colour whose literal (the
+    // regenerated formula's variable map) α makes true, those before it false.
     let colour_of = |a: usize, b: usize| -> u8 {
-        let (i, j) = (a.min(b), a.max(b));
-        let e = j * (j - 1) / 2 + i;
-        if r == 2 {
-            return match alpha[e + 1] {
-                1 => 1,
-                -1 => 2,
-                _ => 0,
-            };
-        }
         for c in 1..=r {
-            match alpha[e * r + c] {
+            let l = lit(r, a, b, c);
+            match alpha[l.unsigned_abs() as usize] * l.signum() as i8 {
                 1 => return c as u8,
                 -1 => continue,
                 _ => return 0,

@@ -46,7 +46,7 @@ pub struct Regenerated {
 }
 
 /// "edge {a,b} has colour c" with two colours, "may have colour c" with r >= 3.
-fn lit(colours: usize, a: usize, b: usize, colour: usize) -> i32 {
+pub(crate) fn lit(colours: usize, a: usize, b: usize, colour: usize) -> i32 {
     let (i, j) = (a.min(b), a.max(b));
     let e = j * (j - 1) / 2 + i;
     match (colours, colour) {

@@ -1,6 +1,6 @@
-//! Making and editing bundles on disk for mutation tests: refuting, copying, changing its
-//! manifest, and re-recording a file's SHA-256 so a mutant reaches the check it
-//! is meant to meet instead of failing at the hash.
+//! Making and editing bundles on disk for mutation tests: refuting, copying,
+//! changing a manifest, and writing a changed file's new SHA-256 into it, so that
+//! a mutant reaches the check it is meant to meet instead of failing at the hash.
 
 use std::path::Path;
 use std::sync::atomic::{AtomicBool, AtomicU64};
@@ -51,6 +51,24 @@ pub fn edit_manifest(dir: &Path, edit: impl FnOnce(&mut serde_json::Value)) {
         serde_json::from_str(&std::fs::read_to_string(&path).unwrap()).unwrap();
     edit(&mut value);
     std::fs::write(&path, serde_json::to_string_pretty(&value).unwrap()).unwrap();
+}
+
+/// Whether the bundle's own proof passes the checker (premises may be assumed);
+/// a bundle it cannot read does not pass.
+pub fn passes(dir: &Path) -> bool {
+    ramsift_checker::bundle::check_bundle(dir, &[])
+        .map(|v| v.passed())
+        .unwrap_or(false)
+}
+
+/// Removes every file of `role` from the manifest's list (the files stay on disk).
+pub fn unlist_role(dir: &Path, role: &str) {
+    edit_manifest(dir, |m| {
+        m["files"]
+            .as_array_mut()
+            .unwrap()
+            .retain(|f| f["role"] != role)
+    });
 }
 
 /// Records the current SHA-256 of `file` in the manifest.

@@ -8,12 +8,9 @@
 use std::path::Path;
 
 use ramsift_checker::bundle::check_bundle;
-use ramsift_tests::bundle_files::{copy_dir, edit_manifest, make_bundle, set_hash};
-
-/// The bundle's own proof holds (premises may be assumed here).
-fn passes(dir: &Path) -> bool {
-    check_bundle(dir, &[]).map(|v| v.passed()).unwrap_or(false)
-}
+use ramsift_tests::bundle_files::{
+    copy_dir, edit_manifest, make_bundle, passes, set_hash, unlist_role,
+};
 
 /// Clause lines of the certificate: (vertex map, colour map, clause), as text.
 fn clause_lines(dir: &Path) -> (Vec<String>, Vec<[String; 3]>) {
@@ -180,14 +177,7 @@ fn damaged_minimality_certificates_are_rejected() {
     ));
     mutants.push((
         "the clauses left out of the manifest (the trace needs them)",
-        Box::new(|d| {
-            edit_manifest(d, |m| {
-                m["files"]
-                    .as_array_mut()
-                    .unwrap()
-                    .retain(|f| f["role"] != "minimality-clauses")
-            })
-        }),
+        Box::new(|d| unlist_role(d, "minimality-clauses")),
     ));
     mutants.push((
         "clauses given while the symmetry does not list minimality",

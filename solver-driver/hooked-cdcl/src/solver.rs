@@ -163,9 +163,7 @@ impl<'p> Solver<'p> {
             .max()
             .unwrap_or(0);
         self.reserve_variables(max_var);
-        let mut lits: Vec<Lit> = dimacs.iter().map(|&l| Lit::from_dimacs(l)).collect();
-        lits.sort_unstable();
-        lits.dedup();
+        let mut lits = sorted_literals(dimacs);
         if lits.windows(2).any(|w| w[0] == !w[1]) || lits.iter().any(|&l| self.value(l) == 1) {
             return true;
         }
@@ -431,9 +429,7 @@ impl<'p> Solver<'p> {
 
     /// Adds a clause from the hook, falsified by the current assignment.
     fn add_axiom(&mut self, dimacs: &[i32]) -> AxiomEffect {
-        let mut lits: Vec<Lit> = dimacs.iter().map(|&l| Lit::from_dimacs(l)).collect();
-        lits.sort_unstable();
-        lits.dedup();
+        let mut lits = sorted_literals(dimacs);
         assert!(
             lits.iter()
                 .all(|&l| l.var() < self.values.len() && self.value(l) == -1),
@@ -608,6 +604,14 @@ impl<'p> Solver<'p> {
             }
         }
     }
+}
+
+/// A clause's literals, sorted, without repeats.
+fn sorted_literals(dimacs: &[i32]) -> Vec<Lit> {
+    let mut lits: Vec<Lit> = dimacs.iter().map(|&l| Lit::from_dimacs(l)).collect();
+    lits.sort_unstable();
+    lits.dedup();
+    lits
 }
 
 /// 1 true, -1 false, 0 unassigned, from the per-variable values.

@@ -26,8 +26,6 @@ pub const CERTIFICATE_FILE: &str = "minimality.txt";
 /// Writes the file line by line.
 pub struct CertificateWriter<W: Write> {
     out: W,
-    pub clauses: u64,
-    pub bytes: u64,
 }
 
 impl<W: Write> CertificateWriter<W> {
@@ -36,11 +34,7 @@ impl<W: Write> CertificateWriter<W> {
             "{CERTIFICATE_FORMAT}\nvertices {order} colours {colours} order {MATRIX_ORDER}\n"
         );
         out.write_all(header.as_bytes())?;
-        Ok(CertificateWriter {
-            out,
-            clauses: 0,
-            bytes: header.len() as u64,
-        })
+        Ok(CertificateWriter { out })
     }
 
     pub fn write(&mut self, witness: &Witness, clause: &[i32]) -> io::Result<()> {
@@ -60,10 +54,7 @@ impl<W: Write> CertificateWriter<W> {
             line.push_str(&l.to_string());
         }
         line.push_str(" 0\n");
-        self.out.write_all(line.as_bytes())?;
-        self.clauses += 1;
-        self.bytes += line.len() as u64;
-        Ok(())
+        self.out.write_all(line.as_bytes())
     }
 
     pub fn finish(mut self) -> io::Result<W> {

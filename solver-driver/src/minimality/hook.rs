@@ -62,18 +62,14 @@ impl<'w> MinimalityHook<'w> {
     }
 
     /// Flushes the certificate; the first write error, if any, is returned here.
-    pub fn finish(&mut self) -> io::Result<u64> {
+    pub fn finish(&mut self) -> io::Result<()> {
         if let Some(e) = self.write_error.take() {
             return Err(e);
         }
-        match self.certificate.take() {
-            Some(writer) => {
-                let bytes = writer.bytes;
-                writer.finish()?;
-                Ok(bytes)
-            }
-            None => Ok(0),
+        if let Some(writer) = self.certificate.take() {
+            writer.finish()?;
         }
+        Ok(())
     }
 }
 

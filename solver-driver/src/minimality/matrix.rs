@@ -10,6 +10,12 @@ use ramsift_cdcl::Assignment;
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::VariableMap;
 
+/// The index of edge {a, b}, a != b, in either order.
+#[inline]
+pub fn edge_of(a: usize, b: usize) -> usize {
+    edge_index(a.min(b), a.max(b))
+}
+
 /// Known colours of the edges (0: unknown), indexed by edge index.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct PartialMatrix {
@@ -58,16 +64,12 @@ impl PartialMatrix {
     /// The known colour of edge {a, b}, a != b (0: unknown).
     #[inline]
     pub fn get(&self, a: usize, b: usize) -> u8 {
-        self.colour[edge_index(a.min(b), a.max(b))]
+        self.colour[edge_of(a, b)]
     }
 
     #[inline]
     pub fn edge(&self, e: usize) -> u8 {
         self.colour[e]
-    }
-
-    pub fn is_complete(&self) -> bool {
-        self.colour.iter().all(|&c| c != 0)
     }
 
     /// The literals, true now, that make edge `e` known (empty when unknown).

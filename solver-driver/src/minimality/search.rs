@@ -15,7 +15,7 @@
 //! is unknown and the search, run without a budget, is exact: it finds a smaller
 //! relabelling whenever one exists.
 
-use crate::minimality::matrix::PartialMatrix;
+use crate::minimality::matrix::{edge_of, PartialMatrix};
 
 /// A relabelling shown to make the matrix smaller.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -185,10 +185,6 @@ impl Walk<'_> {
 
 fn same_edge(a: (usize, usize), b: (usize, usize)) -> bool {
     (a.0 == b.0 && a.1 == b.1) || (a.0 == b.1 && a.1 == b.0)
-}
-
-fn edge_of(a: usize, b: usize) -> usize {
-    ramsift_encoder::edges::edge_index(a.min(b), a.max(b))
 }
 
 /// The matrix relabelled by a witness's maps, as colours by edge index (unknown

@@ -108,7 +108,6 @@ impl Propagator {
     }
 
     /// Clears the trail and assigns the formula's unit clauses.
-    /// Clears the trail and assigns the formula's unit clauses.
     pub fn reset(&mut self) -> Result<(), Conflict> {
         self.undo_to(0);
         if self.has_empty {
