@@ -10,6 +10,7 @@ pub mod moves;
 pub mod pattern;
 pub mod search;
 pub mod state;
+pub mod weighting;
 
 pub use pattern::Pattern;
 pub use search::{local_search, LocalMethod, LocalOptions, LocalReport};

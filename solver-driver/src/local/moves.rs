@@ -33,6 +33,22 @@ impl TabuList {
             step: 0,
         }
     }
+
+    /// Starts a new step and returns its number.
+    pub fn advance(&mut self) -> u64 {
+        self.step += 1;
+        self.step
+    }
+
+    /// Whether edge `e` may be recoloured at step `step`.
+    pub fn free_at(&self, e: usize, step: u64) -> bool {
+        self.until[e] <= step
+    }
+
+    /// Makes edge `e` tabu until step `until`.
+    pub fn forbid(&mut self, e: usize, until: u64) {
+        self.until[e] = until;
+    }
 }
 
 /// The tabu rule over the recolourings of `edges`: the best move whose edge is
@@ -110,6 +126,26 @@ pub fn focused_tabu_step(
     tabu_move(state, tabu, best_cost, bad, (2, span), rng)
 }
 
+/// A kick of a near-solution, to restart local search from it: every edge in a
+/// remaining monochromatic copy is recoloured to a random other colour with
+/// probability 1/2 (the perturbation of iterated local search, Lourenço, Martin &
+/// Stützle, "Iterated local search", Handbook of Metaheuristics 2003), the rest
+/// kept. Returns the kicked colouring.
+pub fn kick(state: &mut LocalState, rng: &mut impl Rng) -> ramsift_encoder::Colouring {
+    let r = state.colours() as u8;
+    for (u, v) in state.bad_edges() {
+        if r > 1 && rng.gen_bool(0.5) {
+            let from = state.colour(u, v);
+            let mut to = rng.gen_range(1..r);
+            if to >= from {
+                to += 1;
+            }
+            state.recolour(u, v, to);
+        }
+    }
+    state.to_colouring()
+}
+
 /// One annealing step at temperature `temperature`; returns whether the move was kept.
 pub fn anneal_step(state: &mut LocalState, temperature: f64, rng: &mut impl Rng) -> bool {
     let n = state.order();
@@ -161,6 +197,32 @@ mod tests {
                 assert!(state.bad_edges().is_empty());
             }
         }
+    }
+
+    #[test]
+    fn a_kick_changes_only_edges_of_remaining_copies() {
+        let mut rng = ChaCha8Rng::seed_from_u64(9);
+        let patterns = Pattern::cliques(&[3, 4]);
+        let mut state = LocalState::random(12, &patterns, &mut rng);
+        let before = state.to_colouring();
+        let bad = state.bad_edges();
+        let kicked = kick(&mut state, &mut rng);
+        let mut changed = 0;
+        for v in 0..12 {
+            for u in 0..v {
+                if kicked.colour(u, v) != before.colour(u, v) {
+                    assert!(bad.contains(&(u, v)), "{{{u},{v}}} was in no copy");
+                    changed += 1;
+                }
+            }
+        }
+        // About half of the bad edges move (a random colouring of K12 has many).
+        assert!(
+            changed > 0 && changed < bad.len(),
+            "{changed} of {}",
+            bad.len()
+        );
+        assert_eq!(state.cost(), state.recount());
     }
 
     #[test]

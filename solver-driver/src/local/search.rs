@@ -16,6 +16,7 @@ use ramsift_encoder::{Colouring, Instance};
 use super::moves::{anneal_step, focused_tabu_step, tabu_step, TabuList};
 use super::pattern::Pattern;
 use super::state::{LocalState, MAX_LOCAL_ORDER};
+use super::weighting::{weighted_step, CliqueWeights};
 use crate::certify::witness_check::verify_witness;
 use crate::search::first_answer::worker_pool;
 use crate::search::job::SearchError;
@@ -26,6 +27,8 @@ pub enum LocalMethod {
     Tabu,
     /// Tabu search over the bad edges only.
     Focused,
+    /// Breakout clique weighting over the bad edges.
+    Weighted,
     Anneal,
 }
 
@@ -34,6 +37,7 @@ impl std::fmt::Display for LocalMethod {
         f.write_str(match self {
             LocalMethod::Tabu => "tabu search",
             LocalMethod::Focused => "focused tabu search",
+            LocalMethod::Weighted => "clique-weighted search",
             LocalMethod::Anneal => "simulated annealing",
         })
     }
@@ -235,6 +239,7 @@ fn run_once(
     let mut best = state.to_colouring();
     let mut since_best = 0u64;
     let mut tabu = TabuList::new(state.order());
+    let mut weights = CliqueWeights::new();
     // A tabu step evaluates every edge; an annealing step evaluates one. Annealing
     // runs cool geometrically from 2.0 to 0.05 over (edges / 4 + 1) times the stall
     // length, then end (the restart reheats).
@@ -244,7 +249,7 @@ fn run_once(
     let mut steps = 0u64;
     while best_cost > 0 {
         let ended = match method {
-            LocalMethod::Tabu | LocalMethod::Focused => since_best >= stall,
+            LocalMethod::Tabu | LocalMethod::Focused | LocalMethod::Weighted => since_best >= stall,
             LocalMethod::Anneal => steps >= anneal_length,
         };
         if ended {
@@ -265,6 +270,11 @@ fn run_once(
             }
             LocalMethod::Focused => {
                 if !focused_tabu_step(state, &mut tabu, best_cost, rng) {
+                    break;
+                }
+            }
+            LocalMethod::Weighted => {
+                if !weighted_step(state, &mut weights, &mut tabu, best_cost, rng) {
                     break;
                 }
             }

@@ -112,6 +112,32 @@ impl LocalState {
         self.patterns[c].copies_through(self.graph(c), self.all(), u, v)
     }
 
+    /// Visits, as vertex sets, the cliques of colour `c` (1-based) that edge
+    /// {u, v} is in or would complete if it had colour c; returns false (visiting
+    /// nothing) when colour c forbids a graph other than a clique.
+    pub fn for_each_clique_through(
+        &self,
+        u: usize,
+        v: usize,
+        c: u8,
+        visit: &mut dyn FnMut(u128),
+    ) -> bool {
+        let c = c as usize - 1;
+        let Pattern::Clique(k) = self.patterns[c] else {
+            return false;
+        };
+        let graph = self.graph(c);
+        let ends = (1u128 << u) | (1u128 << v);
+        for_each_clique(
+            graph,
+            graph[u] & graph[v],
+            k - 2,
+            &mut Vec::new(),
+            &mut |s| visit(s.iter().fold(ends, |set, &x| set | 1u128 << x)),
+        );
+        true
+    }
+
     /// Change of the cost if edge {u, v} were recoloured `to` (1-based).
     pub fn delta(&self, u: usize, v: usize, to: u8) -> i64 {
         let from = self.colour(u, v);

@@ -19,7 +19,9 @@
 //!    helper threads; if it does not reach zero, each of its best near-solutions
 //!    becomes seeds for SAT attempts: all edges in no remaining monochromatic clique
 //!    fixed, then the same with a random fifth of them released. The slice doubles
-//!    each round.
+//!    each round, and the next slice starts from the near-solutions that the SAT
+//!    attempts could not finish, each kicked (half of its edges in remaining
+//!    copies recoloured at random), before random colourings.
 //!
 //! Specifications with forbidden graphs other than cliques go to the SAT portfolio
 //! ([`crate::search::portfolio`]) alone (the structured families are for cliques),
@@ -41,8 +43,9 @@ use super::formula::Formula;
 use super::job::{SearchError, SearchJob, SearchReport, SearchResult};
 use super::portfolio::{complete_worker, search_until};
 use super::seeding::{near_solution_seeds, seeded_attempt, Seed, SeedKind};
+use crate::local::moves::kick;
 use crate::local::search::LocalProgress;
-use crate::local::{local_search, LocalOptions, Pattern, MAX_LOCAL_ORDER};
+use crate::local::{local_search, LocalOptions, LocalState, Pattern, MAX_LOCAL_ORDER};
 use crate::structured::{
     family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
 };
@@ -198,7 +201,7 @@ fn structured_families(order: usize) -> Vec<EdgeOrbits> {
         tries.extend(EdgeOrbits::cayley(&group).ok());
     }
     tries.extend(
-        FamilyChoice::BlockCirculant(None)
+        FamilyChoice::BlockCirculant(None, 0)
             .families(order)
             .unwrap_or_default(),
     );
@@ -412,9 +415,10 @@ fn local_and_seeded_rounds(
         if let Some((colouring, by)) = report.found {
             return verified(job.spec(), colouring, format!("{by}, round {round}")).map(Some);
         }
+        let patterns = Pattern::for_spec(job.spec());
+        let mut next_starts = Vec::new();
         for (_, near) in &report.near {
-            for seed in near_solution_seeds(near, &Pattern::for_spec(job.spec()), &mut attempts.rng)
-            {
+            for seed in near_solution_seeds(near, &patterns, &mut attempts.rng) {
                 if stop.load(Ordering::Relaxed) {
                     return Ok(None);
                 }
@@ -422,7 +426,12 @@ fn local_and_seeded_rounds(
                     return Ok(Some(found));
                 }
             }
+            next_starts.push(kick(
+                &mut LocalState::new(near, &patterns),
+                &mut attempts.rng,
+            ));
         }
+        starts = Some(next_starts);
         slice *= 2;
     }
     Ok(None)
