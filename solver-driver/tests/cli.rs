@@ -382,6 +382,60 @@ fn circulant_find_reports_found_and_none_in_family() {
 }
 
 #[test]
+fn fixed_vertices_and_clique_weights_find_checked_colourings() {
+    // The Paley colouring of K17 has an automorphism of order 8 with two orbits
+    // and one fixed vertex (x -> 2x mod 17), so the 2-block, 1-fixed family holds
+    // a (4,4)-colouring of K17 (Greenwood & Gleason 1955; Radziszowski DS1).
+    let out = ramsift(&[
+        "find",
+        "4,4",
+        "17",
+        "--method",
+        "block-circulant",
+        "--blocks",
+        "2",
+        "--fixed",
+        "1",
+        "-q",
+    ]);
+    assert_eq!(out.status.code(), Some(10), "{}", stderr(&out));
+    assert!(
+        stdout(&out).contains("block-circulant (2 blocks, 1 fixed)"),
+        "{}",
+        stdout(&out)
+    );
+    let out = ramsift(&[
+        "scan",
+        "4,4",
+        "--family",
+        "fixed-vertices",
+        "--from",
+        "17",
+        "--to",
+        "18",
+        "--json",
+        "-q",
+    ]);
+    let report: serde_json::Value = serde_json::from_str(&stdout(&out)).unwrap();
+    // R(4,4) = 18 (DS1): found at 17, none at 18 in every family of the choice.
+    assert_eq!(report["largest_found"], 17, "{report}");
+    // R(4,4) = 18: (4,4;16) colourings exist; the weighted rule finds one.
+    let out = ramsift(&[
+        "find",
+        "4,4",
+        "16",
+        "--method",
+        "local",
+        "--rule",
+        "weighted",
+        "--threads",
+        "1",
+        "-q",
+    ]);
+    assert_eq!(out.status.code(), Some(10), "{}", stderr(&out));
+}
+
+#[test]
 fn scan_reports_every_order_and_writes_witnesses() {
     let dir = tempfile::tempdir().unwrap();
     let out = dir.path().join("scan");
@@ -453,6 +507,24 @@ fn bad_structured_options_are_refused() {
             "3",
         ],
         "divisible by 3",
+    );
+    assert_bad_input(
+        &["find", "3,3", "5", "--fixed", "1"],
+        "--blocks and --fixed go with --method block-circulant",
+    );
+    assert_bad_input(
+        &[
+            "find",
+            "4,4",
+            "17",
+            "--method",
+            "block-circulant",
+            "--blocks",
+            "3",
+            "--fixed",
+            "1",
+        ],
+        "less 1 to be divisible by 3",
     );
     assert_bad_input(
         &["find", "3,3", "200", "--method", "local"],

@@ -6,6 +6,7 @@ use std::time::Duration;
 
 use ramsift_checker::{check_colouring, Claim};
 use ramsift_driver::certify::witness_check::to_matrix;
+use ramsift_driver::enumerate::canonical::{canonical_form, colour_maps, ColourTable};
 use ramsift_driver::local::search::LocalProgress;
 use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
 use ramsift_driver::search::formula::Formula;
@@ -172,6 +173,54 @@ fn block_circulant_search_is_exhaustive_and_sound() {
         panic!("expected a 2-block (4,4)-colouring of K16");
     };
     assert!(is_valid(&colouring, &[4, 4]));
+}
+
+#[test]
+fn paley_17_has_the_shape_of_two_blocks_and_a_fixed_vertex() {
+    // x -> 2x is an automorphism of the Paley colouring of K17 (2 = 6^2 is a
+    // square mod 17, so it maps squares to squares); it fixes 0 and its orbits on
+    // the other 16 elements are {2^i} and {3 * 2^i} (2 has order 8 mod 17).
+    // Vertex (p, i) of the family is (1 or 3) * 2^i, vertex 16 is 0: the Paley
+    // colouring so labelled is constant on the family's orbits.
+    let element = |v: usize| -> usize {
+        if v == 16 {
+            return 0;
+        }
+        let base = if v < 8 { 1 } else { 3 };
+        (0..v % 8).fold(base, |x, _| x * 2 % 17)
+    };
+    let squares = ramsift_tests::constructions::quadratic_residues(17);
+    let orbits = EdgeOrbits::block_circulant_fixed(17, 2, 1).unwrap();
+    let mut orbit_colour = vec![0u8; orbits.orbit_count];
+    for v in 0..17 {
+        for u in 0..v {
+            let difference = (element(v) + 17 - element(u)) % 17;
+            let colour = if squares.contains(&difference) { 1 } else { 2 };
+            let orbit = orbits.orbit_of_edge[ramsift_encoder::edges::edge_index(u, v)] as usize;
+            assert!(
+                orbit_colour[orbit] == 0 || orbit_colour[orbit] == colour,
+                "orbit {orbit} holds both colours"
+            );
+            orbit_colour[orbit] = colour;
+        }
+    }
+    // So the family search finds a (4,4)-colouring of K17; there is exactly one
+    // (4,4;17) colouring up to isomorphism (McKay's data, as in
+    // tests/enumeration.rs), so what it finds is Paley's, relabelled, as the
+    // canonical forms show.
+    let FamilyOutcome::Found { colouring, .. } = family(&orbits, &[4, 4]) else {
+        panic!("the 2-block, 1-fixed family holds the Paley colouring");
+    };
+    assert!(is_valid(&colouring, &[4, 4]));
+    let canonical = |c: &ramsift_encoder::Colouring| {
+        let table = ColourTable::from_fn(17, |i, j| c.colour(i, j));
+        canonical_form(&table, &colour_maps(&spec(&[4, 4]), true))
+    };
+    assert_eq!(canonical(&colouring), canonical(&paley(17)));
+    // With no fixed vertex there is no 2-block colouring of K17 to speak of (17
+    // is odd), and a fixed vertex more than the order allows is refused.
+    assert!(EdgeOrbits::block_circulant_fixed(17, 2, 0).is_err());
+    assert!(EdgeOrbits::block_circulant_fixed(17, 1, 16).is_err());
 }
 
 #[test]

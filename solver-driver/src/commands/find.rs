@@ -46,8 +46,13 @@ pub struct FindArgs {
     /// With --method block-circulant: only this many blocks (default: 2 and 3).
     #[arg(long, value_name = "COUNT")]
     pub blocks: Option<usize>,
+    /// With --method block-circulant: this many fixed vertices after the blocks,
+    /// joined to each block by one colour (default: 0).
+    #[arg(long, value_name = "COUNT")]
+    pub fixed: Option<usize>,
     /// With --method local: focused (default; tabu over the edges of the remaining
-    /// monochromatic copies), tabu (over every edge's recolourings) or anneal.
+    /// monochromatic copies), weighted (focused, with clique weights that grow
+    /// while a copy persists), tabu (over every edge's recolourings) or anneal.
     #[arg(long, value_enum, default_value_t = Rule::Focused)]
     pub rule: Rule,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
@@ -118,6 +123,9 @@ pub enum Rule {
     Tabu,
     /// Tabu search over the edges of the remaining monochromatic copies only.
     Focused,
+    /// Focused search whose monochromatic cliques gain weight while they persist
+    /// (breakout clique weighting).
+    Weighted,
     Anneal,
 }
 
@@ -145,8 +153,9 @@ impl FindArgs {
             "--group goes with --method cayley"
         );
         anyhow::ensure!(
-            self.blocks.is_none() || self.method() == Method::BlockCirculant,
-            "--blocks goes with --method block-circulant"
+            (self.blocks.is_none() && self.fixed.is_none())
+                || self.method() == Method::BlockCirculant,
+            "--blocks and --fixed go with --method block-circulant"
         );
         Ok(match self.method() {
             Method::Circulant => Some(FamilyChoice::Circulant),
@@ -157,7 +166,10 @@ impl FindArgs {
                     .transpose()
                     .context("--group")?,
             )),
-            Method::BlockCirculant => Some(FamilyChoice::BlockCirculant(self.blocks)),
+            Method::BlockCirculant => Some(FamilyChoice::BlockCirculant(
+                self.blocks,
+                self.fixed.unwrap_or(0),
+            )),
             Method::Structured => Some(FamilyChoice::All),
             _ => None,
         })
@@ -519,6 +531,7 @@ fn find_by_local_search(
         method: match args.rule {
             Rule::Anneal => LocalMethod::Anneal,
             Rule::Focused => LocalMethod::Focused,
+            Rule::Weighted => LocalMethod::Weighted,
             Rule::Tabu => LocalMethod::Tabu,
         },
         threads: job.threads(),

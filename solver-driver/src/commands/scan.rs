@@ -35,7 +35,8 @@ pub struct ScanArgs {
     /// Last order of the range.
     #[arg(long, value_name = "N")]
     pub to: usize,
-    /// Family: circulant (default), cayley, block-circulant or structured (all three).
+    /// Family: circulant (default), cayley, block-circulant, fixed-vertices
+    /// (block-circulant with 1 to 4 fixed vertices) or structured (the first three).
     #[arg(long, default_value = "circulant", value_parser = parse_family)]
     pub family: FamilyChoice,
     /// Shorthand for --family circulant.

@@ -10,7 +10,13 @@
 //! * **Block-circulant colourings** with b blocks of m vertices: vertex (p, i) is
 //!   p·m + i, and the colour of {(p, i), (q, j)} (p ≤ q) depends only on p, q and
 //!   j − i mod m (up to sign when p = q). The group is Z_m rotating every block
-//!   at once.
+//!   at once. With f *fixed vertices* added after the blocks (order b·m + f), the
+//!   rotation fixes them: the colour of an edge from a fixed vertex to block p is
+//!   one unknown, and each edge between fixed vertices is its own. These are the
+//!   colourings with a cyclic automorphism of order m having b orbits of size m
+//!   and f fixed points, the shape of many published Ramsey colourings found by
+//!   search (Exoo, "On the Ramsey number R(4,6)", EJC 19 (2012) #P66: a colouring
+//!   of K35 whose automorphisms fix one vertex).
 //!
 //! Each family also lists its *anchors*: a set of (vertex, companions) pairs such
 //! that every clique of K_n is mapped by the group onto a clique made of one anchor
@@ -47,8 +53,12 @@ pub enum FamilyError {
     },
     #[error("structured searches handle specifications in which every colour forbids a clique; {spec} forbids other graphs")]
     NeedsCliques { spec: String },
-    #[error("block-circulant colourings with {blocks} blocks need an order divisible by {blocks} (and blocks of at least 2 vertices); {order} is not")]
-    BlockOrder { blocks: usize, order: usize },
+    #[error("block-circulant colourings with {blocks} blocks and {fixed} fixed vertices need the order less {fixed} to be divisible by {blocks} (with blocks of at least 2 vertices); {order} is not")]
+    BlockOrder {
+        blocks: usize,
+        fixed: usize,
+        order: usize,
+    },
 }
 
 /// A finite abelian group given as a product of cyclic factors.
@@ -186,7 +196,7 @@ impl FromStr for AbelianGroup {
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum FamilyKind {
     Cayley(AbelianGroup),
-    BlockCirculant { blocks: usize },
+    BlockCirculant { blocks: usize, fixed: usize },
 }
 
 impl fmt::Display for FamilyKind {
@@ -196,7 +206,15 @@ impl fmt::Display for FamilyKind {
                 write!(f, "circulant ({g})")
             }
             FamilyKind::Cayley(g) => write!(f, "Cayley ({g})"),
-            FamilyKind::BlockCirculant { blocks } => write!(f, "block-circulant ({blocks} blocks)"),
+            FamilyKind::BlockCirculant { blocks, fixed: 0 } => {
+                write!(f, "block-circulant ({blocks} blocks)")
+            }
+            FamilyKind::BlockCirculant { blocks: 1, fixed } => {
+                write!(f, "block-circulant (1 block, {fixed} fixed)")
+            }
+            FamilyKind::BlockCirculant { blocks, fixed } => {
+                write!(f, "block-circulant ({blocks} blocks, {fixed} fixed)")
+            }
         }
     }
 }
@@ -252,20 +270,38 @@ impl EdgeOrbits {
 
     /// Block-circulant colourings with `blocks` blocks of order / blocks vertices.
     pub fn block_circulant(order: usize, blocks: usize) -> Result<Self, FamilyError> {
-        if blocks == 0 || order % blocks != 0 || order / blocks < 2 {
-            return Err(FamilyError::BlockOrder { blocks, order });
+        Self::block_circulant_fixed(order, blocks, 0)
+    }
+
+    /// Block-circulant colourings with `blocks` blocks of (order − fixed) / blocks
+    /// vertices and `fixed` fixed vertices after them.
+    pub fn block_circulant_fixed(
+        order: usize,
+        blocks: usize,
+        fixed: usize,
+    ) -> Result<Self, FamilyError> {
+        let moved = order.saturating_sub(fixed);
+        if blocks == 0 || fixed >= order || moved % blocks != 0 || moved / blocks < 2 {
+            return Err(FamilyError::BlockOrder {
+                blocks,
+                fixed,
+                order,
+            });
         }
-        let m = order / blocks;
+        let m = moved / blocks;
         let mut ids = std::collections::HashMap::new();
         let mut orbit_of_edge = vec![0u32; edge_count(order)];
         for v in 0..order {
             for u in 0..v {
-                let (p, i, q, j) = (u / m, u % m, v / m, v % m);
-                let d = (j + m - i) % m;
-                let key = if p == q {
-                    (p, q, d.min(m - d))
-                } else {
-                    (p, q, d)
+                // (block or fixed-vertex number, position, ...) of each end.
+                let key = match (u < moved, v < moved) {
+                    (true, true) => {
+                        let (p, i, q, j) = (u / m, u % m, v / m, v % m);
+                        let d = (j + m - i) % m;
+                        (0, p, q, if p == q { d.min(m - d) } else { d })
+                    }
+                    (true, false) => (1, u / m, v, 0),
+                    _ => (2, u, v, 0),
                 };
                 let next = ids.len() as u32;
                 let id = *ids.entry(key).or_insert(next);
@@ -273,12 +309,15 @@ impl EdgeOrbits {
             }
         }
         // A clique's lowest block p holds some (p, i); rotating by −i moves it to (p, 0),
-        // keeping the other vertices in blocks ≥ p.
+        // keeping the other vertices in blocks ≥ p or fixed. A clique of fixed
+        // vertices only is its own image; its least vertex anchors it.
         let anchors = (0..blocks)
-            .map(|p| (p * m, (p * m + 1..order).collect()))
+            .map(|p| p * m)
+            .chain(moved..order)
+            .map(|a| (a, (a + 1..order).collect()))
             .collect();
         Self::checked(EdgeOrbits {
-            kind: FamilyKind::BlockCirculant { blocks },
+            kind: FamilyKind::BlockCirculant { blocks, fixed },
             order,
             orbit_count: ids.len(),
             orbit_of_edge,
@@ -394,5 +433,34 @@ mod tests {
         // Within each block: ⌊m/2⌋ = 2 classes; between two blocks: m = 4 classes.
         assert_eq!(orbits.orbit_count, 3 * 2 + 3 * 4);
         assert!(EdgeOrbits::block_circulant(13, 3).is_err());
+    }
+
+    #[test]
+    fn fixed_vertices_stay_put_under_the_rotation() {
+        // 3 blocks of 4 and 2 fixed vertices (12, 13).
+        let orbits = EdgeOrbits::block_circulant_fixed(14, 3, 2).unwrap();
+        let m = 4;
+        let rotate = |v: usize| {
+            if v >= 12 {
+                v
+            } else {
+                (v / m) * m + (v % m + 1) % m
+            }
+        };
+        for v in 0..14 {
+            for u in 0..v {
+                assert_eq!(
+                    orbits.orbit_of_edge[edge_index(u, v)],
+                    orbits.orbit_of_edge
+                        [edge_index(rotate(u).min(rotate(v)), rotate(u).max(rotate(v)))]
+                );
+            }
+        }
+        // As without fixed vertices (18), plus one class per (fixed vertex, block)
+        // and the edge between the two fixed vertices.
+        assert_eq!(orbits.orbit_count, 18 + 2 * 3 + 1);
+        assert_eq!(orbits.anchors.len(), 3 + 2);
+        assert!(EdgeOrbits::block_circulant_fixed(14, 4, 3).is_err());
+        assert!(EdgeOrbits::block_circulant_fixed(3, 1, 3).is_err());
     }
 }

@@ -28,6 +28,11 @@ use ramsift_encoder::RamseySpec;
 pub use families::{AbelianGroup, EdgeOrbits, FamilyError, FamilyKind};
 pub use solve::{family_colourings, search_family, FamilyOutcome, FamilyReport, FamilySearchError};
 
+/// The most fixed vertices `fixed-vertices` tries.
+pub const MAX_FIXED: usize = 4;
+/// The most blocks `fixed-vertices` tries.
+pub const MAX_FIXED_BLOCKS: usize = 5;
+
 /// Which families a structured search tries at an order.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub enum FamilyChoice {
@@ -36,8 +41,13 @@ pub enum FamilyChoice {
     /// Cayley colourings of every product of cyclic groups of order n (Z_n first),
     /// or of one given group.
     Cayley(Option<AbelianGroup>),
-    /// Block-circulant colourings with the given number of blocks, or with 2 and 3.
-    BlockCirculant(Option<usize>),
+    /// Block-circulant colourings with the given number of blocks (or with 2 and
+    /// 3) and the given number of fixed vertices (usually 0).
+    BlockCirculant(Option<usize>, usize),
+    /// Block-circulant colourings with fixed vertices: for each number of fixed
+    /// vertices 1..=[`MAX_FIXED`] and of blocks 1..=[`MAX_FIXED_BLOCKS`] that fits
+    /// the order, within [`families::MAX_ORBITS`] orbits.
+    FixedVertices,
     /// All of the above, in that order.
     All,
 }
@@ -48,8 +58,13 @@ impl fmt::Display for FamilyChoice {
             FamilyChoice::Circulant => f.write_str("circulant"),
             FamilyChoice::Cayley(None) => f.write_str("cayley"),
             FamilyChoice::Cayley(Some(g)) => write!(f, "cayley {g}"),
-            FamilyChoice::BlockCirculant(None) => f.write_str("block-circulant"),
-            FamilyChoice::BlockCirculant(Some(b)) => write!(f, "block-circulant {b}"),
+            FamilyChoice::BlockCirculant(None, 0) => f.write_str("block-circulant"),
+            FamilyChoice::BlockCirculant(Some(b), 0) => write!(f, "block-circulant {b}"),
+            FamilyChoice::BlockCirculant(None, x) => write!(f, "block-circulant, {x} fixed"),
+            FamilyChoice::BlockCirculant(Some(b), x) => {
+                write!(f, "block-circulant {b}, {x} fixed")
+            }
+            FamilyChoice::FixedVertices => f.write_str("fixed-vertices"),
             FamilyChoice::All => f.write_str("structured"),
         }
     }
@@ -63,10 +78,11 @@ impl FromStr for FamilyChoice {
         match text {
             "circulant" => Ok(FamilyChoice::Circulant),
             "cayley" => Ok(FamilyChoice::Cayley(None)),
-            "block-circulant" => Ok(FamilyChoice::BlockCirculant(None)),
+            "block-circulant" => Ok(FamilyChoice::BlockCirculant(None, 0)),
+            "fixed-vertices" => Ok(FamilyChoice::FixedVertices),
             "structured" => Ok(FamilyChoice::All),
             other => Err(format!(
-                "family {other:?}: expected circulant, cayley, block-circulant or structured"
+                "family {other:?}: expected circulant, cayley, block-circulant, fixed-vertices or structured"
             )),
         }
     }
@@ -95,19 +111,29 @@ impl FamilyChoice {
                     out.push(EdgeOrbits::cayley(&group)?);
                 }
             }
-            FamilyChoice::BlockCirculant(Some(blocks)) => {
-                out.push(EdgeOrbits::block_circulant(order, *blocks)?)
+            FamilyChoice::BlockCirculant(Some(blocks), fixed) => {
+                out.push(EdgeOrbits::block_circulant_fixed(order, *blocks, *fixed)?)
             }
-            FamilyChoice::BlockCirculant(None) => {
+            FamilyChoice::BlockCirculant(None, fixed) => {
                 for blocks in [2, 3] {
-                    if let Ok(orbits) = EdgeOrbits::block_circulant(order, blocks) {
+                    if let Ok(orbits) = EdgeOrbits::block_circulant_fixed(order, blocks, *fixed) {
                         out.push(orbits);
+                    }
+                }
+            }
+            FamilyChoice::FixedVertices => {
+                for fixed in 1..=MAX_FIXED {
+                    for blocks in 1..=MAX_FIXED_BLOCKS {
+                        if let Ok(orbits) = EdgeOrbits::block_circulant_fixed(order, blocks, fixed)
+                        {
+                            out.push(orbits);
+                        }
                     }
                 }
             }
             FamilyChoice::All => {
                 out.extend(FamilyChoice::Cayley(None).families(order)?);
-                out.extend(FamilyChoice::BlockCirculant(None).families(order)?);
+                out.extend(FamilyChoice::BlockCirculant(None, 0).families(order)?);
             }
         }
         Ok(out)
