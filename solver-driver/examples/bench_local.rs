@@ -51,7 +51,10 @@ fn run(
         &LocalProgress::default(),
     )
     .expect("local search runs");
-    let seconds = report.found.is_some().then(|| report.elapsed.as_secs_f64());
+    let seconds = report
+        .found
+        .is_some()
+        .then_some(report.elapsed.as_secs_f64());
     (seconds, report.best_cost)
 }
 

@@ -4,9 +4,12 @@
 use std::process::Command;
 use std::sync::atomic::AtomicBool;
 
+use ramsift_driver::certify::witness_check::verify_witness;
 use ramsift_driver::enumerate::{enumerate, EnumerateOptions};
 use ramsift_driver::search::extension::{extend, Extension};
 use ramsift_driver::search::formula::Formula;
+use ramsift_driver::search::job::SearchResult;
+use ramsift_driver::search::loosening::{extend_loosened, Loosened};
 use ramsift_encoder::{Colouring, EncodingLimits, Instance, RamseyEncoding, RamseySpec};
 use ramsift_tests::binaries::workspace_binary;
 
@@ -43,6 +46,32 @@ fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
         })
         .count();
     assert_eq!(extended, 1);
+    // Freeing old vertices nearest the obstruction, every class reaches a
+    // (3,5;13) colouring (checked here; McKay's data says it is the one); the
+    // eleven that do not extend as they are need at least one vertex freed.
+    let mut needed = Vec::new();
+    for base in &classes {
+        let Loosened::Extended { result, freed } =
+            extend_loosened(&formula, base, 12, &AtomicBool::new(false), None).unwrap()
+        else {
+            panic!("a (3,5;13) colouring exists, so freeing enough vertices finds it");
+        };
+        let SearchResult::Found { colouring, .. } = result else {
+            panic!("found");
+        };
+        assert!(verify_witness(&RamseySpec::cliques(&[3, 5]).unwrap(), &colouring).is_valid());
+        for j in 0..12 {
+            for i in 0..j {
+                if !freed.contains(&i) && !freed.contains(&j) {
+                    assert_eq!(colouring.colour(i, j), base.colour(i, j));
+                }
+            }
+        }
+        needed.push(freed.len());
+    }
+    assert_eq!(needed.iter().filter(|&&k| k == 0).count(), 1, "{needed:?}");
+    assert!(needed.iter().all(|&k| k < 12), "{needed:?}");
+    eprintln!("vertices freed per (3,5;12) class: {needed:?}");
 }
 
 #[test]

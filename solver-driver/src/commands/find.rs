@@ -60,6 +60,11 @@ pub struct FindArgs {
     /// input). "None extends" concerns this colouring only.
     #[arg(long, value_name = "FILE", conflicts_with = "repair")]
     pub from: Option<PathBuf>,
+    /// With --from: when a step finds no extension, free up to this many old
+    /// vertices (all their edges become unknowns), the one most involved in the
+    /// solver's refutation first, one more per round.
+    #[arg(long, value_name = "COUNT", default_value_t = 0, requires = "from")]
+    pub free: usize,
     /// Repair this near-solution of K_N by SAT: free the edges of its remaining
     /// monochromatic forbidden copies, then every edge at their vertices, then all
     /// edges, until a colouring is found (e.g. local search's near-solution).
@@ -278,6 +283,7 @@ fn find_by_extension(args: &FindArgs, from: &Path, job: &SearchJob) -> Result<Fo
     let chain = extend_chain(
         instance,
         &base,
+        args.free,
         &AtomicBool::new(false),
         job.deadline_from(started),
         admit,
@@ -289,10 +295,15 @@ fn find_by_extension(args: &FindArgs, from: &Path, job: &SearchJob) -> Result<Fo
         Chain::StuckAt(last) => (
             SearchResult::Unknown,
             Some(format!(
-                "the chain of extensions from the colouring of K_{} in {name} stops at K_{}: no colouring of K_{} extends it",
+                "the chain of extensions from the colouring of K_{} in {name} stops at K_{}: no colouring of K_{} extends it{}",
                 base.order(),
                 last.order(),
-                last.order() + 1
+                last.order() + 1,
+                if args.free > 0 {
+                    format!(" with up to {} of its vertices freed", args.free)
+                } else {
+                    String::new()
+                }
             )),
         ),
     };

@@ -13,6 +13,7 @@ use crate::search::attempt::AttemptOutcome;
 use crate::search::first_answer::verified;
 use crate::search::formula::Formula;
 use crate::search::job::{SearchError, SearchResult};
+use crate::search::loosening::{extend_loosened, Loosened};
 use crate::search::seeding::extension_seed;
 
 /// What extending a colouring found.
@@ -73,11 +74,15 @@ pub enum Chain {
 }
 
 /// Extends `base` one vertex at a time, K_m → K_(m+1) → … → K_N, to the order of
-/// `target`. `admit` is asked about each step's encoding before its formula is
-/// built (a memory limit, say) and may refuse it.
+/// `target`. A step that finds no extension frees up to `free` old vertices,
+/// nearest the obstruction first ([`crate::search::loosening`]); with `free` 0
+/// every step keeps the colouring reached so far. `admit` is asked about each
+/// step's encoding before its formula is built (a memory limit, say) and may
+/// refuse it.
 pub fn extend_chain<E: From<SearchError>>(
     target: &Instance,
     base: &Colouring,
+    free: usize,
     stop: &AtomicBool,
     deadline: Option<Instant>,
     mut admit: impl FnMut(&RamseyEncoding) -> Result<(), E>,
@@ -89,7 +94,18 @@ pub fn extend_chain<E: From<SearchError>>(
         let encoding =
             RamseyEncoding::new(&step, &EncodingLimits::default()).map_err(SearchError::from)?;
         admit(&encoding)?;
-        match extend(&Formula::from_encoding(&encoding), &current, stop, deadline)? {
+        let formula = Formula::from_encoding(&encoding);
+        let step = match extend(&formula, &current, stop, deadline)? {
+            Extension::None if free > 0 => {
+                match extend_loosened(&formula, &current, free, stop, deadline)? {
+                    Loosened::Extended { result, .. } => Extension::Extended(result),
+                    Loosened::None { .. } => Extension::None,
+                    Loosened::Stopped { .. } => Extension::Stopped,
+                }
+            }
+            other => other,
+        };
+        match step {
             Extension::Extended(SearchResult::Found {
                 colouring,
                 found_by: by,

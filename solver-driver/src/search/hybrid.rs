@@ -13,8 +13,9 @@
 //! 2. **Circulant neighbour seeds**: up to 16 distinct circulant colourings at
 //!    n − 1, if any exist; each fixes every edge among the first n − 1 vertices and
 //!    the SAT driver colours the edges of the last vertex (one extension attempt
-//!    each). They are also the first starts of local search, with the last
-//!    vertex's edges drawn at random.
+//!    each); where none extends, old vertices are freed nearest the obstruction,
+//!    one more per round, up to n/4 of them (20 s in all). They are also the
+//!    first starts of local search, with the last vertex's edges drawn at random.
 //! 3. **Local search and seeded SAT, alternating**: a slice of focused tabu search on the
 //!    helper threads; if it does not reach zero, each of its best near-solutions
 //!    becomes seeds for SAT attempts: all edges in no remaining monochromatic clique
@@ -41,6 +42,7 @@ use ramsift_encoder::Colouring;
 use super::first_answer::{verified, FirstAnswer};
 use super::formula::Formula;
 use super::job::{SearchError, SearchJob, SearchReport, SearchResult};
+use super::loosening::{extend_loosened, Loosened};
 use super::portfolio::{complete_worker, search_until};
 use super::seeding::{near_solution_seeds, seeded_attempt, Seed, SeedKind};
 use crate::local::moves::kick;
@@ -343,8 +345,12 @@ fn helper_stages(
     local_and_seeded_rounds(&mut attempts, starts)
 }
 
+/// Time for the loosened extensions of stage 2, shared by the circulant colourings.
+const LOOSENED_CAP: Duration = Duration::from_secs(20);
+
 /// Stage 2: up to 16 distinct circulant colourings of K_(n−1), each tried as a
-/// seed (all its edges fixed). `Ok` with a colouring found, or `Err` with the
+/// seed (all its edges fixed), then with up to n/4 of its vertices freed nearest
+/// the obstruction ([`extend_loosened`]; [`LOOSENED_CAP`] for all of them). `Ok` with a colouring found, or `Err` with the
 /// local-search starts they give (the last vertex's edges drawn at random).
 fn circulant_neighbour_stage(
     attempts: &mut SeededAttempts<'_>,
@@ -361,10 +367,18 @@ fn circulant_neighbour_stage(
     let structured_deadline = earliest(Some(Instant::now() + STRUCTURED_CAP), attempts.deadline);
     let neighbours =
         family_colourings(&orbits, job.spec(), 16, stop, structured_deadline).unwrap_or_default();
+    let slice = LOOSENED_CAP / neighbours.len().max(1) as u32;
     for colouring in neighbours {
         let seed = Seed::from_colouring(SeedKind::CirculantNeighbour, &colouring, |_, _| true);
         if let Some(found) = attempts.try_seed(&seed)? {
             return Ok(Ok(found));
+        }
+        let until = earliest(Some(Instant::now() + slice), attempts.deadline);
+        attempts.attempts += 1;
+        if let Loosened::Extended { result, .. } =
+            extend_loosened(attempts.formula, &colouring, order / 4, stop, until)?
+        {
+            return Ok(Ok(result));
         }
         let r = colouring.colours() as u8;
         let rng = &mut attempts.rng;

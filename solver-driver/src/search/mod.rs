@@ -22,6 +22,7 @@ pub mod formula;
 pub mod hybrid;
 pub mod interrupt;
 pub mod job;
+pub mod loosening;
 pub mod memory;
 pub mod portfolio;
 pub mod repair;
