@@ -51,6 +51,50 @@ impl TabuList {
     }
 }
 
+/// The candidate with the least score among those offered, ties broken
+/// uniformly at random (reservoir sampling over the tied ones).
+pub struct LeastOf<T> {
+    least: Option<(i64, T)>,
+    ties: u32,
+}
+
+impl<T> LeastOf<T> {
+    pub fn new() -> Self {
+        LeastOf {
+            least: None,
+            ties: 0,
+        }
+    }
+
+    /// Offers `item` with `score`.
+    pub fn offer(&mut self, score: i64, item: T, rng: &mut impl Rng) {
+        match &self.least {
+            Some((least, _)) if score > *least => {}
+            Some((least, _)) if score == *least => {
+                self.ties += 1;
+                if rng.gen_range(0..self.ties) == 0 {
+                    self.least = Some((score, item));
+                }
+            }
+            _ => {
+                self.ties = 1;
+                self.least = Some((score, item));
+            }
+        }
+    }
+
+    /// The chosen candidate and its score, if any was offered.
+    pub fn least(self) -> Option<(i64, T)> {
+        self.least
+    }
+}
+
+impl<T> Default for LeastOf<T> {
+    fn default() -> Self {
+        Self::new()
+    }
+}
+
 /// The tabu rule over the recolourings of `edges`: the best move whose edge is
 /// not tabu (or that reaches a new best cost), ties broken uniformly at random;
 /// the edge is then tabu for `tenure.0` plus a random 0..=`tenure.1` more steps.
@@ -65,8 +109,7 @@ fn tabu_move(
 ) -> bool {
     let r = state.colours() as u8;
     tabu.step += 1;
-    let mut best: Option<(i64, usize, usize, u8)> = None;
-    let mut ties = 0u32;
+    let mut best = LeastOf::new();
     for (u, v) in edges {
         let e = edge_index(u, v);
         let (from, loss) = (state.colour(u, v), state.through(u, v) as i64);
@@ -74,23 +117,12 @@ fn tabu_move(
             let delta = state.copies_through(u, v, to) as i64 - loss;
             let allowed =
                 tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
-            match best {
-                _ if !allowed => {}
-                Some((d, ..)) if delta > d => {}
-                Some((d, ..)) if delta == d => {
-                    ties += 1;
-                    if rng.gen_range(0..ties) == 0 {
-                        best = Some((delta, u, v, to));
-                    }
-                }
-                _ => {
-                    ties = 1;
-                    best = Some((delta, u, v, to));
-                }
+            if allowed {
+                best.offer(delta, (u, v, to), rng);
             }
         }
     }
-    let Some((_, u, v, to)) = best else {
+    let Some((_, (u, v, to))) = best.least() else {
         return false;
     };
     state.recolour(u, v, to);

@@ -23,7 +23,7 @@ use rand::Rng;
 
 use ramsift_encoder::edges::edge_index;
 
-use super::moves::TabuList;
+use super::moves::{LeastOf, TabuList};
 use super::state::LocalState;
 
 /// Weight increases between two smoothing passes.
@@ -146,8 +146,7 @@ pub fn weighted_step(
     }
     let r = state.colours() as u8;
     let step = tabu.advance();
-    let mut best: Option<(i64, usize, usize, u8)> = None;
-    let mut ties = 0u32;
+    let mut best = LeastOf::new();
     for &(u, v) in &bad {
         let from = state.colour(u, v);
         let loss = weights.through(state, u, v, from) as i64;
@@ -161,23 +160,11 @@ pub fn weighted_step(
                 continue;
             }
             let change = weights.through(state, u, v, to) as i64 - loss;
-            match best {
-                Some((d, ..)) if change > d => {}
-                Some((d, ..)) if change == d => {
-                    ties += 1;
-                    if rng.gen_range(0..ties) == 0 {
-                        best = Some((change, u, v, to));
-                    }
-                }
-                _ => {
-                    ties = 1;
-                    best = Some((change, u, v, to));
-                }
-            }
+            best.offer(change, (u, v, to), rng);
         }
     }
-    match best {
-        Some((change, u, v, to)) if change < 0 => {
+    match best.least() {
+        Some((change, (u, v, to))) if change < 0 => {
             state.recolour(u, v, to);
             let tenure = tabu_tenure(state.order(), bad.len());
             tabu.forbid(
