@@ -2,7 +2,7 @@
 //! 16) is extended to K_N with old vertices freed nearest the obstruction, each
 //! for at most CAP seconds; prints how many vertices were freed and the time.
 //!
-//! `cargo run --release --example loosening_probe -- SPEC N CAP`
+//! `cargo run --release --example loosening_probe -- SPEC N CAP [SEED]`
 
 use ramsift_driver::search::formula::Formula;
 use ramsift_driver::search::loosening::{extend_loosened, Loosened};
@@ -15,6 +15,7 @@ fn main() {
     let spec: RamseySpec = a[0].parse().unwrap();
     let n: usize = a[1].parse().unwrap();
     let cap: u64 = a[2].parse().unwrap();
+    let seed: u64 = a.get(3).map_or(1, |s| s.parse().unwrap());
     let stop = AtomicBool::new(false);
     let bases = family_colourings(
         &EdgeOrbits::circulant(n - 1).unwrap(),
@@ -37,6 +38,7 @@ fn main() {
             &formula,
             base,
             n - 1,
+            seed,
             &stop,
             Some(Instant::now() + Duration::from_secs(cap)),
         )

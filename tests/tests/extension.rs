@@ -52,7 +52,7 @@ fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
     let mut needed = Vec::new();
     for base in &classes {
         let Loosened::Extended { result, freed } =
-            extend_loosened(&formula, base, 12, &AtomicBool::new(false), None).unwrap()
+            extend_loosened(&formula, base, 12, 5, &AtomicBool::new(false), None).unwrap()
         else {
             panic!("a (3,5;13) colouring exists, so freeing enough vertices finds it");
         };
@@ -67,6 +67,9 @@ fn exactly_one_colouring_of_k12_extends_to_a_3_5_colouring_of_k13() {
                 }
             }
         }
+        // The same colouring gives the same rounds again.
+        let again = extend_loosened(&formula, base, 12, 5, &AtomicBool::new(false), None).unwrap();
+        assert!(matches!(again, Loosened::Extended { freed: f, .. } if f == freed));
         needed.push(freed.len());
     }
     assert_eq!(needed.iter().filter(|&&k| k == 0).count(), 1, "{needed:?}");

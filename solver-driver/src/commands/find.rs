@@ -284,6 +284,7 @@ fn find_by_extension(args: &FindArgs, from: &Path, job: &SearchJob) -> Result<Fo
         instance,
         &base,
         args.free,
+        args.seed,
         &AtomicBool::new(false),
         job.deadline_from(started),
         admit,

@@ -76,13 +76,15 @@ pub enum Chain {
 /// Extends `base` one vertex at a time, K_m → K_(m+1) → … → K_N, to the order of
 /// `target`. A step that finds no extension frees up to `free` old vertices,
 /// nearest the obstruction first ([`crate::search::loosening`]); with `free` 0
-/// every step keeps the colouring reached so far. `admit` is asked about each
+/// every step keeps the colouring reached so far (`seed` orders the solver's
+/// assumptions there). `admit` is asked about each
 /// step's encoding before its formula is built (a memory limit, say) and may
 /// refuse it.
 pub fn extend_chain<E: From<SearchError>>(
     target: &Instance,
     base: &Colouring,
     free: usize,
+    seed: u64,
     stop: &AtomicBool,
     deadline: Option<Instant>,
     mut admit: impl FnMut(&RamseyEncoding) -> Result<(), E>,
@@ -97,7 +99,7 @@ pub fn extend_chain<E: From<SearchError>>(
         let formula = Formula::from_encoding(&encoding);
         let step = match extend(&formula, &current, stop, deadline)? {
             Extension::None if free > 0 => {
-                match extend_loosened(&formula, &current, free, stop, deadline)? {
+                match extend_loosened(&formula, &current, free, seed, stop, deadline)? {
                     Loosened::Extended { result, .. } => Extension::Extended(result),
                     Loosened::None { .. } => Extension::None,
                     Loosened::Stopped { .. } => Extension::Stopped,

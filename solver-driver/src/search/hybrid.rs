@@ -375,9 +375,14 @@ fn circulant_neighbour_stage(
         }
         let until = earliest(Some(Instant::now() + slice), attempts.deadline);
         attempts.attempts += 1;
-        if let Loosened::Extended { result, .. } =
-            extend_loosened(attempts.formula, &colouring, order / 4, stop, until)?
-        {
+        if let Loosened::Extended { result, .. } = extend_loosened(
+            attempts.formula,
+            &colouring,
+            order / 4,
+            job.options.seed,
+            stop,
+            until,
+        )? {
             return Ok(Ok(result));
         }
         let r = colouring.colours() as u8;

@@ -18,6 +18,9 @@ use std::collections::HashMap;
 use std::sync::atomic::AtomicBool;
 use std::time::Instant;
 
+use rand::seq::SliceRandom;
+use rand::SeedableRng;
+use rand_chacha::ChaCha8Rng;
 use varisat::{ExtendFormula, Lit};
 
 use ramsift_encoder::edges::{edge_endpoints, edge_index};
@@ -46,13 +49,16 @@ pub enum Loosened {
 
 /// Extends `base` (a colouring of K_(n−1)) to K_n, freeing up to `max_freed` old
 /// vertices, nearest the obstruction first; `formula` is the plain formula at n.
+/// `seed` orders the assumptions (and so chooses among equally near vertices).
 pub fn extend_loosened(
     formula: &Formula,
     base: &Colouring,
     max_freed: usize,
+    seed: u64,
     stop: &AtomicBool,
     deadline: Option<Instant>,
 ) -> Result<Loosened, SearchError> {
+    let mut rng = ChaCha8Rng::seed_from_u64(seed);
     let n = formula.variables().order();
     if base.order() + 1 != n {
         return Err(SearchError::ExtensionOrder {
@@ -85,10 +91,15 @@ pub fn extend_loosened(
                 edge_of.insert(lit, edge);
             }
         }
-        let assumptions: Vec<Lit> = edge_of
+        // The core depends on the order of the assumptions: in edge order it
+        // leans to the first vertices, so the order is shuffled, from `seed` so
+        // that a run repeats itself.
+        let mut assumptions: Vec<Lit> = edge_of
             .keys()
             .map(|&l| Lit::from_dimacs(l as isize))
             .collect();
+        assumptions.sort_unstable_by_key(|l| (l.var().index(), l.is_negative()));
+        assumptions.shuffle(&mut rng);
         solver.assume(&assumptions);
         match solver.solve() {
             Ok(true) => {
@@ -185,7 +196,7 @@ mod tests {
         let f = formula(&[3, 3], 5);
         let stop = AtomicBool::new(false);
         let Loosened::Extended { result, freed } =
-            extend_loosened(&f, &c4, 2, &stop, None).unwrap()
+            extend_loosened(&f, &c4, 2, 1, &stop, None).unwrap()
         else {
             panic!("freeing a vertex of the 4-cycle colouring gives the pentagon");
         };
@@ -203,7 +214,7 @@ mod tests {
         }
         // With nothing allowed to be freed the answer is none.
         assert!(matches!(
-            extend_loosened(&f, &c4, 0, &stop, None).unwrap(),
+            extend_loosened(&f, &c4, 0, 1, &stop, None).unwrap(),
             Loosened::None { .. }
         ));
     }
@@ -220,7 +231,8 @@ mod tests {
             }
         });
         let stop = AtomicBool::new(false);
-        let Loosened::None { freed } = extend_loosened(&f, &base, 8, &stop, None).unwrap() else {
+        let Loosened::None { freed } = extend_loosened(&f, &base, 8, 1, &stop, None).unwrap()
+        else {
             panic!("R(3,4) = 9: no (3,4)-colouring of K9");
         };
         assert!(freed.len() <= 8);
