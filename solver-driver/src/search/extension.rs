@@ -75,11 +75,10 @@ pub enum Chain {
 
 /// Extends `base` one vertex at a time, K_m → K_(m+1) → … → K_N, to the order of
 /// `target`. A step that finds no extension frees up to `free` old vertices,
-/// nearest the obstruction first ([`crate::search::loosening`]); with `free` 0
-/// every step keeps the colouring reached so far (`seed` orders the solver's
-/// assumptions there). `admit` is asked about each
-/// step's encoding before its formula is built (a memory limit, say) and may
-/// refuse it.
+/// nearest the obstruction first ([`crate::search::loosening`], its assumptions
+/// ordered by `seed`); with `free` 0 every step keeps the colouring reached so
+/// far. `admit` is asked about each step's encoding before its formula is built
+/// (a memory limit, say) and may refuse it.
 pub fn extend_chain<E: From<SearchError>>(
     target: &Instance,
     base: &Colouring,

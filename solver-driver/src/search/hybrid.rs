@@ -350,8 +350,9 @@ const LOOSENED_CAP: Duration = Duration::from_secs(20);
 
 /// Stage 2: up to 16 distinct circulant colourings of K_(n−1), each tried as a
 /// seed (all its edges fixed), then with up to n/4 of its vertices freed nearest
-/// the obstruction ([`extend_loosened`]; [`LOOSENED_CAP`] for all of them). `Ok` with a colouring found, or `Err` with the
-/// local-search starts they give (the last vertex's edges drawn at random).
+/// the obstruction ([`extend_loosened`]; [`LOOSENED_CAP`] for all of them). `Ok`
+/// with a colouring found, or `Err` with the local-search starts they give (the
+/// last vertex's edges drawn at random).
 fn circulant_neighbour_stage(
     attempts: &mut SeededAttempts<'_>,
 ) -> Result<Result<SearchResult, Vec<Colouring>>, SearchError> {
