@@ -77,12 +77,12 @@ pub fn extend_loosened(
     }
     let mut freed: Vec<usize> = Vec::new();
     loop {
-        let seed = Seed::from_colouring(SeedKind::Extension, base, |i, j| {
+        let kept = Seed::from_colouring(SeedKind::Extension, base, |i, j| {
             !freed.contains(&i) && !freed.contains(&j)
         });
         // Each assumption literal and the old edge it pins.
         let mut edge_of: HashMap<i32, usize> = HashMap::new();
-        for &(edge, colour) in &seed.fixed {
+        for &(edge, colour) in &kept.fixed {
             let one = Seed {
                 kind: SeedKind::Extension,
                 fixed: vec![(edge, colour)],
