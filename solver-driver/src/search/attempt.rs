@@ -187,7 +187,7 @@ pub fn run_attempt_with_proof<W: Write>(
 /// Gives the plan's clauses and units to the solver. Loading a large formula takes
 /// seconds and varisat only notices the limits once it writes proof steps, so they
 /// are checked before and during loading: `Some` when loading was cut short.
-fn load(
+pub(crate) fn load(
     solver: &mut Solver,
     formula: &Formula,
     plan: &AttemptPlan,
@@ -235,7 +235,7 @@ fn load(
 }
 
 /// The colouring of a model, in the formula's numbering.
-fn decode_model(solver: &Solver, formula: &Formula, plan: &AttemptPlan) -> Colouring {
+pub(crate) fn decode_model(solver: &Solver, formula: &Formula, plan: &AttemptPlan) -> Colouring {
     let mut values = vec![false; formula.variable_count() + 1];
     for lit in solver.model().unwrap_or_default() {
         let var = lit.var().to_dimacs() as usize;

@@ -21,16 +21,17 @@ use std::time::Instant;
 use rand::seq::SliceRandom;
 use rand::SeedableRng;
 use rand_chacha::ChaCha8Rng;
-use varisat::{ExtendFormula, Lit};
+use varisat::Lit;
 
 use ramsift_encoder::edges::{edge_endpoints, edge_index};
 use ramsift_encoder::Colouring;
 
+use crate::search::attempt::{decode_model, load, AttemptPlan};
 use crate::search::first_answer::verified;
 use crate::search::formula::Formula;
 use crate::search::interrupt::{limited_solver, SinkReport};
 use crate::search::job::{SearchError, SearchResult};
-use crate::search::seeding::{Seed, SeedKind};
+use crate::search::seeding::{edge_units, Seed, SeedKind};
 
 /// How a loosened extension ended.
 #[derive(Clone, Debug)]
@@ -68,14 +69,11 @@ pub fn extend_loosened(
     }
     let report = SinkReport::default();
     let mut solver = limited_solver(stop, deadline, &report);
-    for clause in formula.clauses() {
-        let lits: Vec<Lit> = clause
-            .iter()
-            .map(|&l| Lit::from_dimacs(l as isize))
-            .collect();
-        solver.add_clause(&lits);
-    }
+    let plain = AttemptPlan::default();
     let mut freed: Vec<usize> = Vec::new();
+    if load(&mut solver, formula, &plain, stop, deadline).is_some() {
+        return Ok(Loosened::Stopped { freed });
+    }
     loop {
         let kept = Seed::from_colouring(SeedKind::Extension, base, |i, j| {
             !freed.contains(&i) && !freed.contains(&j)
@@ -83,11 +81,7 @@ pub fn extend_loosened(
         // Each assumption literal and the old edge it pins.
         let mut edge_of: HashMap<i32, usize> = HashMap::new();
         for &(edge, colour) in &kept.fixed {
-            let one = Seed {
-                kind: SeedKind::Extension,
-                fixed: vec![(edge, colour)],
-            };
-            for lit in one.units(formula.variables()) {
+            for lit in edge_units(formula.variables(), edge, colour) {
                 edge_of.insert(lit, edge);
             }
         }
@@ -103,15 +97,7 @@ pub fn extend_loosened(
         solver.assume(&assumptions);
         match solver.solve() {
             Ok(true) => {
-                let model = solver.model().unwrap_or_default();
-                let mut values = vec![false; formula.variable_count() + 1];
-                for lit in model {
-                    let var = lit.var().to_dimacs() as usize;
-                    if var < values.len() {
-                        values[var] = lit.is_positive();
-                    }
-                }
-                let colouring = formula.variables().decode(|var| values[var]);
+                let colouring = decode_model(&solver, formula, &plain);
                 let found_by = format!(
                     "SAT extension of a colouring of K_{} with {} old vertices freed nearest the obstruction",
                     n - 1,

@@ -107,24 +107,31 @@ impl Seed {
 
     /// Unit clauses pinning each fixed edge to its colour.
     pub fn units(&self, vars: &VariableMap) -> Vec<i32> {
-        let r = vars.colours();
         let mut units = Vec::new();
         for &(edge, colour) in &self.fixed {
-            if r == 2 {
-                units.push(vars.colour_literal(edge, colour));
-            } else {
-                units.extend((1..=r).map(|c| {
-                    let lit = vars.colour_literal(edge, c);
-                    if c == colour {
-                        lit
-                    } else {
-                        -lit
-                    }
-                }));
-            }
+            units.extend(edge_units(vars, edge, colour));
         }
         units
     }
+}
+
+/// The literals that pin edge `edge` to `colour`: one with two colours, one per
+/// colour otherwise.
+pub fn edge_units(
+    vars: &VariableMap,
+    edge: usize,
+    colour: usize,
+) -> impl Iterator<Item = i32> + '_ {
+    let r = vars.colours();
+    let colours = if r == 2 { colour..=colour } else { 1..=r };
+    colours.map(move |c| {
+        let lit = vars.colour_literal(edge, c);
+        if c == colour {
+            lit
+        } else {
+            -lit
+        }
+    })
 }
 
 /// One budgeted attempt under `seed`: a random renaming and clause order from
