@@ -45,9 +45,10 @@ impl TabuList {
         self.until[e] <= step
     }
 
-    /// Makes edge `e` tabu until step `until`.
-    pub fn forbid(&mut self, e: usize, until: u64) {
-        self.until[e] = until;
+    /// Makes edge `e` tabu for `tenure.0` plus a random 0..=`tenure.1` more steps
+    /// after the current one.
+    pub fn forbid(&mut self, e: usize, tenure: (u64, u64), rng: &mut impl Rng) {
+        self.until[e] = self.step + tenure.0 + rng.gen_range(0..=tenure.1);
     }
 }
 
@@ -108,15 +109,14 @@ fn tabu_move(
     rng: &mut impl Rng,
 ) -> bool {
     let r = state.colours() as u8;
-    tabu.step += 1;
+    let step = tabu.advance();
     let mut best = LeastOf::new();
     for (u, v) in edges {
-        let e = edge_index(u, v);
+        let free = tabu.free_at(edge_index(u, v), step);
         let (from, loss) = (state.colour(u, v), state.through(u, v) as i64);
         for to in (1..=r).filter(|&c| c != from) {
             let delta = state.copies_through(u, v, to) as i64 - loss;
-            let allowed =
-                tabu.until[e] <= tabu.step || (state.cost() as i64 + delta) < best_cost as i64;
+            let allowed = free || (state.cost() as i64 + delta) < best_cost as i64;
             if allowed {
                 best.offer(delta, (u, v, to), rng);
             }
@@ -126,7 +126,7 @@ fn tabu_move(
         return false;
     };
     state.recolour(u, v, to);
-    tabu.until[edge_index(u, v)] = tabu.step + tenure.0 + rng.gen_range(0..=tenure.1);
+    tabu.forbid(edge_index(u, v), tenure, rng);
     true
 }
 
@@ -167,15 +167,21 @@ pub fn kick(state: &mut LocalState, rng: &mut impl Rng) -> ramsift_encoder::Colo
     let r = state.colours() as u8;
     for (u, v) in state.bad_edges() {
         if r > 1 && rng.gen_bool(0.5) {
-            let from = state.colour(u, v);
-            let mut to = rng.gen_range(1..r);
-            if to >= from {
-                to += 1;
-            }
+            let to = other_colour(state.colour(u, v), r, rng);
             state.recolour(u, v, to);
         }
     }
     state.to_colouring()
+}
+
+/// A colour of 1..=r other than `from`, uniformly at random (r ≥ 2).
+fn other_colour(from: u8, r: u8, rng: &mut impl Rng) -> u8 {
+    let to = rng.gen_range(1..r);
+    if to >= from {
+        to + 1
+    } else {
+        to
+    }
 }
 
 /// One annealing step at temperature `temperature`; returns whether the move was kept.
@@ -183,11 +189,7 @@ pub fn anneal_step(state: &mut LocalState, temperature: f64, rng: &mut impl Rng)
     let n = state.order();
     let r = state.colours() as u8;
     let (u, v) = edge_endpoints(rng.gen_range(0..edge_count(n)));
-    let from = state.colour(u, v);
-    let mut to = rng.gen_range(1..r);
-    if to >= from {
-        to += 1;
-    }
+    let to = other_colour(state.colour(u, v), r, rng);
     let delta = state.delta(u, v, to);
     let keep = delta <= 0 || rng.gen::<f64>() < (-(delta as f64) / temperature).exp();
     if keep {

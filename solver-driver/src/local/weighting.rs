@@ -167,10 +167,7 @@ pub fn weighted_step(
         Some((change, (u, v, to))) if change < 0 => {
             state.recolour(u, v, to);
             let tenure = tabu_tenure(state.order(), bad.len());
-            tabu.forbid(
-                edge_index(u, v),
-                step + tenure.0 + rng.gen_range(0..=tenure.1),
-            );
+            tabu.forbid(edge_index(u, v), tenure, rng);
         }
         _ => weights.raise_present(state),
     }
