@@ -48,7 +48,8 @@ pub enum FamilyChoice {
     /// vertices 1..=[`MAX_FIXED`] and of blocks 1..=[`MAX_FIXED_BLOCKS`] that fits
     /// the order, within [`families::MAX_ORBITS`] orbits.
     FixedVertices,
-    /// All of the above, in that order.
+    /// Cayley (circulant first) and block-circulant without fixed vertices, in
+    /// that order.
     All,
 }
 
