@@ -9,7 +9,7 @@ use clap::{Args, ValueEnum};
 
 use ramsift_driver::certify::witness_check::verify_witness;
 use ramsift_driver::local::search::LocalProgress;
-use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
+use ramsift_driver::local::{local_search, LocalMethod, LocalOptions, VertexCycles};
 use ramsift_driver::output::records::{FindResult, FindSummary};
 use ramsift_driver::output::summary::{write_summary, SUMMARY_FILE};
 use ramsift_driver::output::witness::{colouring_text, write_witness_files};
@@ -55,6 +55,12 @@ pub struct FindArgs {
     /// while a copy persists), tabu (over every edge's recolourings) or anneal.
     #[arg(long, value_enum, default_value_t = Rule::Focused)]
     pub rule: Rule,
+    /// With --method local: visit only colourings invariant under a vertex
+    /// permutation with these cycle lengths, e.g. 4x8,2 (eight 4-cycles on
+    /// vertices 0..31, then a 2-cycle; a length of 1 is a fixed vertex; the lengths
+    /// add up to N). Moves recolour whole edge orbits (rules focused and tabu).
+    #[arg(long, value_name = "CYCLES")]
+    pub automorphism: Option<VertexCycles>,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
     /// (a ramsift colouring file, or graph6 for two colours; - reads standard
     /// input). "None extends" concerns this colouring only.
@@ -337,6 +343,11 @@ fn job_of(args: &FindArgs) -> Result<SearchJob> {
 }
 
 pub fn run(args: &FindArgs) -> Result<u8> {
+    anyhow::ensure!(
+        args.automorphism.is_none()
+            || (args.method() == Method::Local && args.from.is_none() && args.repair.is_none()),
+        "--automorphism goes with --method local"
+    );
     let job = job_of(args)?;
     if let Some(dir) = &args.out {
         ramsift_driver::output::dir::prepare(dir, args.force)?;
@@ -549,6 +560,7 @@ fn find_by_local_search(
         threads: job.threads(),
         seed: job.options.seed,
         timeout: job.options.timeout,
+        automorphism: args.automorphism.clone(),
         ..LocalOptions::default()
     };
     let (instance, stop, progress) = (

@@ -27,9 +27,15 @@ pub struct TabuList {
 }
 
 impl TabuList {
+    /// A list over the edges of K_order.
     pub fn new(order: usize) -> Self {
+        Self::for_items(edge_count(order))
+    }
+
+    /// A list over `count` items numbered 0..count (edges, or edge orbits).
+    pub fn for_items(count: usize) -> Self {
         TabuList {
-            until: vec![0; edge_count(order)],
+            until: vec![0; count],
             step: 0,
         }
     }

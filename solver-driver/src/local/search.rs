@@ -13,6 +13,7 @@ use rand_chacha::ChaCha8Rng;
 use ramsift_encoder::edges::edge_count;
 use ramsift_encoder::{Colouring, Instance};
 
+use super::automorphism::{orbit_tabu_step, EdgeOrbitMoves, VertexCycles};
 use super::moves::{anneal_step, focused_tabu_step, tabu_step, TabuList};
 use super::pattern::Pattern;
 use super::state::{LocalState, MAX_LOCAL_ORDER};
@@ -53,10 +54,15 @@ pub struct LocalOptions {
     /// Starting colourings, used in turn by the restarts before random ones.
     pub starts: Vec<Colouring>,
     /// Restart after this many steps without a new best of the current run
-    /// (default: 50 times the number of edges).
+    /// (default: 50 times the number of edges, or of edge orbits with an
+    /// automorphism).
     pub stall_steps: Option<u64>,
     /// How many near-solutions (best colourings of distinct restarts) to keep.
     pub keep_near: usize,
+    /// Visit only colourings invariant under this vertex permutation: the moves
+    /// recolour edge orbits, the restarts draw random invariant colourings, and
+    /// `starts` are not used. Tabu and focused rules only.
+    pub automorphism: Option<VertexCycles>,
 }
 
 impl Default for LocalOptions {
@@ -69,6 +75,7 @@ impl Default for LocalOptions {
             starts: Vec::new(),
             stall_steps: None,
             keep_near: 8,
+            automorphism: None,
         }
     }
 }
@@ -110,6 +117,8 @@ struct Shared<'a> {
     patterns: &'a [Pattern],
     order: usize,
     stall: u64,
+    /// The edge orbits of the automorphism, if any.
+    orbits: Option<EdgeOrbitMoves>,
     stop: &'a AtomicBool,
     deadline: Option<Instant>,
     progress: &'a LocalProgress,
@@ -132,6 +141,24 @@ pub fn local_search(
             max: MAX_LOCAL_ORDER,
         });
     }
+    let orbits = match &options.automorphism {
+        None => None,
+        Some(cycles) => {
+            if cycles.order() != order {
+                return Err(SearchError::AutomorphismOrder {
+                    cycles: cycles.to_string(),
+                    moved: cycles.order(),
+                    order,
+                });
+            }
+            if !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused) {
+                return Err(SearchError::AutomorphismRule {
+                    rule: options.method.to_string(),
+                });
+            }
+            Some(EdgeOrbitMoves::new(cycles))
+        }
+    };
     let patterns = Pattern::for_spec(spec);
     let started = Instant::now();
     let threads = options.threads.max(1);
@@ -141,8 +168,13 @@ pub fn local_search(
         order,
         stall: options
             .stall_steps
-            .unwrap_or(50 * edge_count(order) as u64)
+            .unwrap_or(
+                50 * orbits
+                    .as_ref()
+                    .map_or(edge_count(order), |o| o.orbit_count()) as u64,
+            )
             .max(1),
+        orbits,
         stop,
         deadline: options.timeout.map(|t| started + t),
         progress,
@@ -189,14 +221,16 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     let stopped = || crate::search::interrupt::should_stop(shared.stop, shared.deadline);
     while !stopped() {
         let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
-        let mut state = match options.starts.get(index) {
-            Some(start) => LocalState::new(start, shared.patterns),
-            None => LocalState::random(shared.order, shared.patterns, &mut rng),
+        let mut state = match (&shared.orbits, options.starts.get(index)) {
+            (Some(orbits), _) => orbits.random_state(shared.patterns, &mut rng),
+            (None, Some(start)) => LocalState::new(start, shared.patterns),
+            (None, None) => LocalState::random(shared.order, shared.patterns, &mut rng),
         };
         shared.progress.restarts.fetch_add(1, Ordering::Relaxed);
         let (cost, best) = run_once(
             &mut state,
             options.method,
+            shared.orbits.as_ref(),
             shared.stall,
             &mut rng,
             &stopped,
@@ -208,11 +242,20 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
             if slot.is_none() {
                 *slot = Some((
                     best,
-                    format!(
-                        "{} (thread {worker}, restart {})",
-                        options.method,
-                        index + 1
-                    ),
+                    match &shared.orbits {
+                        None => format!(
+                            "{} (thread {worker}, restart {})",
+                            options.method,
+                            index + 1
+                        ),
+                        Some(orbits) => format!(
+                            "{} over the {} edge orbits of an automorphism with cycles {} (thread {worker}, restart {})",
+                            options.method,
+                            orbits.orbit_count(),
+                            orbits.cycles(),
+                            index + 1
+                        ),
+                    },
                 ));
             }
             shared.stop.store(true, Ordering::SeqCst);
@@ -230,6 +273,7 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
 fn run_once(
     state: &mut LocalState,
     method: LocalMethod,
+    orbits: Option<&EdgeOrbitMoves>,
     stall: u64,
     rng: &mut ChaCha8Rng,
     stopped: &dyn Fn() -> bool,
@@ -238,7 +282,10 @@ fn run_once(
     let mut best_cost = state.cost();
     let mut best = state.to_colouring();
     let mut since_best = 0u64;
-    let mut tabu = TabuList::new(state.order());
+    let mut tabu = match orbits {
+        Some(orbits) => TabuList::for_items(orbits.orbit_count()),
+        None => TabuList::new(state.order()),
+    };
     let mut weights = CliqueWeights::new();
     // A tabu step evaluates every edge; an annealing step evaluates one. Annealing
     // runs cool geometrically from 2.0 to 0.05 over (edges / 4 + 1) times the stall
@@ -262,25 +309,32 @@ fn run_once(
             }
         }
         steps += 1;
-        match method {
-            LocalMethod::Tabu => {
-                if !tabu_step(state, &mut tabu, best_cost, rng) {
-                    break;
-                }
+        if let Some(orbits) = orbits {
+            let focused = method == LocalMethod::Focused;
+            if !orbit_tabu_step(state, orbits, &mut tabu, best_cost, focused, rng) {
+                break;
             }
-            LocalMethod::Focused => {
-                if !focused_tabu_step(state, &mut tabu, best_cost, rng) {
-                    break;
+        } else {
+            match method {
+                LocalMethod::Tabu => {
+                    if !tabu_step(state, &mut tabu, best_cost, rng) {
+                        break;
+                    }
                 }
-            }
-            LocalMethod::Weighted => {
-                if !weighted_step(state, &mut weights, &mut tabu, best_cost, rng) {
-                    break;
+                LocalMethod::Focused => {
+                    if !focused_tabu_step(state, &mut tabu, best_cost, rng) {
+                        break;
+                    }
                 }
-            }
-            LocalMethod::Anneal => {
-                anneal_step(state, temperature, rng);
-                temperature *= cooling;
+                LocalMethod::Weighted => {
+                    if !weighted_step(state, &mut weights, &mut tabu, best_cost, rng) {
+                        break;
+                    }
+                }
+                LocalMethod::Anneal => {
+                    anneal_step(state, temperature, rng);
+                    temperature *= cooling;
+                }
             }
         }
         if state.cost() < best_cost {

@@ -147,6 +147,42 @@ impl LocalState {
         self.copies_through(u, v, to) as i64 - self.copies_through(u, v, from) as i64
     }
 
+    /// The cost if every edge of `edges` (distinct) were recoloured `to`
+    /// (1-based), one after the other; the state is left as it was. Only the
+    /// neighbourhoods change while the edges are tried, not the per-edge counts,
+    /// so this is cheaper than recolouring and back.
+    pub fn cost_if_recoloured(&mut self, edges: &[(usize, usize)], to: u8) -> u64 {
+        let to0 = to as usize - 1;
+        let mut cost = self.cost as i64;
+        let mut undo: Vec<(usize, usize, usize)> = Vec::with_capacity(edges.len());
+        for &(u, v) in edges {
+            let from = self.colour[edge_index(u, v)] as usize;
+            if from == to0 {
+                continue;
+            }
+            cost += self.copies_through(u, v, to) as i64
+                - self.copies_through(u, v, from as u8 + 1) as i64;
+            self.move_edge(u, v, from, to0);
+            undo.push((u, v, from));
+        }
+        for &(u, v, from) in undo.iter().rev() {
+            self.move_edge(u, v, to0, from);
+        }
+        debug_assert!(cost >= 0);
+        cost as u64
+    }
+
+    /// Moves {u, v} from colour `from` to `to` (0-based) in the neighbourhoods
+    /// and the colour table only.
+    fn move_edge(&mut self, u: usize, v: usize, from: usize, to: usize) {
+        let n = self.order;
+        self.neighbours[from * n + u] &= !(1 << v);
+        self.neighbours[from * n + v] &= !(1 << u);
+        self.neighbours[to * n + u] |= 1 << v;
+        self.neighbours[to * n + v] |= 1 << u;
+        self.colour[edge_index(u, v)] = to as u8;
+    }
+
     /// Recolours edge {u, v}, updating the cost by the delta.
     pub fn recolour(&mut self, u: usize, v: usize, to: u8) {
         let delta = self.delta(u, v, to);
@@ -156,12 +192,7 @@ impl LocalState {
             return;
         }
         self.update_through(u, v, from, -1);
-        let n = self.order;
-        self.neighbours[from * n + u] &= !(1 << v);
-        self.neighbours[from * n + v] &= !(1 << u);
-        self.neighbours[to0 * n + u] |= 1 << v;
-        self.neighbours[to0 * n + v] |= 1 << u;
-        self.colour[edge_index(u, v)] = to0 as u8;
+        self.move_edge(u, v, from, to0);
         self.cost = (self.cost as i64 + delta) as u64;
         self.update_through(u, v, to0, 1);
         let clique = |c: usize| matches!(self.patterns[c], Pattern::Clique(_));
@@ -408,6 +439,41 @@ mod tests {
                 })
                 .sum();
             prop_assert_eq!(state.cost(), expected);
+        }
+    }
+
+    proptest! {
+        /// Trying a set of recolourings gives the cost that making them gives, and
+        /// leaves the state as it was (for cliques and for other graphs).
+        #[test]
+        fn trying_a_set_of_recolourings_predicts_and_restores(
+            spec in prop::sample::select(vec!["3,3", "3,4", "3,3,3", "4,4", "C4,K3"]),
+            n in 5usize..=14,
+            seed in any::<u64>(),
+            size in 1usize..8,
+        ) {
+            let spec: ramsift_encoder::RamseySpec = spec.parse().unwrap();
+            let patterns = Pattern::for_spec(&spec);
+            let mut rng = ChaCha8Rng::seed_from_u64(seed);
+            let mut state = LocalState::random(n, &patterns, &mut rng);
+            let mut edges = Vec::new();
+            while edges.len() < size {
+                let v = rng.gen_range(1..n);
+                let u = rng.gen_range(0..v);
+                if !edges.contains(&(u, v)) {
+                    edges.push((u, v));
+                }
+            }
+            let to = rng.gen_range(1..=state.colours() as u8);
+            let before = state.to_colouring();
+            let predicted = state.cost_if_recoloured(&edges, to);
+            prop_assert_eq!(state.to_colouring(), before);
+            prop_assert_eq!(state.cost(), state.recount());
+            for &(u, v) in &edges {
+                state.recolour(u, v, to);
+            }
+            prop_assert_eq!(predicted, state.cost());
+            prop_assert_eq!(predicted, state.recount());
         }
     }
 }
