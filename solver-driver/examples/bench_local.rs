@@ -5,6 +5,10 @@
 //!
 //! `cargo run --release --example bench_local -- [--cap SECONDS] [--repeats R]
 //!  [--rules focused,weighted] [SPEC:N ...]`
+//!
+//! A rule may run over the edge orbits of an automorphism: `focused@4x8+2` is the
+//! focused rule over colourings invariant under eight 4-cycles and a 2-cycle
+//! (`+` stands for the `,` of `--automorphism`).
 
 #[path = "common/bench_util.rs"]
 mod bench_util;
@@ -13,12 +17,30 @@ use std::sync::atomic::AtomicBool;
 use std::time::Duration;
 
 use ramsift_driver::local::search::LocalProgress;
-use ramsift_driver::local::{local_search, LocalMethod, LocalOptions};
+use ramsift_driver::local::{local_search, LocalMethod, LocalOptions, VertexCycles};
 use ramsift_encoder::{Instance, RamseySpec};
 
 const DEFAULT_INSTANCES: &[&str] = &["3,8:27", "4,5:24", "3,9:35", "5,5:41", "4,6:34"];
 
-fn rule(name: &str) -> LocalMethod {
+/// A rule, optionally over the edge orbits of an automorphism: `focused` or
+/// `focused@4x8+2` (cycle lengths with `+` for `,`).
+fn rule(text: &str) -> (LocalMethod, Option<VertexCycles>) {
+    let (name, cycles) = match text.split_once('@') {
+        Some((name, cycles)) => (
+            name,
+            Some(
+                cycles
+                    .replace('+', ",")
+                    .parse::<VertexCycles>()
+                    .expect("cycle lengths after @"),
+            ),
+        ),
+        None => (text, None),
+    };
+    (method(name), cycles)
+}
+
+fn method(name: &str) -> LocalMethod {
     match name {
         "tabu" => LocalMethod::Tabu,
         "focused" => LocalMethod::Focused,
@@ -31,7 +53,7 @@ fn rule(name: &str) -> LocalMethod {
 /// One single-threaded run: (seconds to a colouring or None, fewest copies).
 fn run(
     instance: &Instance,
-    method: LocalMethod,
+    (method, automorphism): (LocalMethod, Option<VertexCycles>),
     seed: u64,
     cap: f64,
     stall: Option<u64>,
@@ -42,6 +64,7 @@ fn run(
         threads: 1,
         seed,
         timeout: Some(Duration::from_secs_f64(cap)),
+        automorphism,
         ..LocalOptions::default()
     };
     let report = local_search(

@@ -436,6 +436,88 @@ fn fixed_vertices_and_clique_weights_find_checked_colourings() {
 }
 
 #[test]
+fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
+    // R(4,5) = 25 (DS1) with a circulant (4,5;24) colouring; rotating Z_24 by 3
+    // has three 8-cycles, so an automorphism with three 8-cycles admits one.
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("found");
+    let o = ramsift(&[
+        "find",
+        "4,5",
+        "24",
+        "--method",
+        "local",
+        "--automorphism",
+        "8x3",
+        "--threads",
+        "1",
+        "--json",
+        "--out",
+        out.to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert!(
+        summary["found_by"]
+            .as_str()
+            .is_some_and(|s| s.contains("edge orbits of an automorphism with cycles 8x3")),
+        "{summary}"
+    );
+    let file = parse_colouring_file(
+        "w",
+        &std::fs::read_to_string(out.join("witness.colouring")).unwrap(),
+    )
+    .unwrap();
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    // Invariant under v -> v + 1 within each block of 8 vertices.
+    let sigma = |v: usize| v / 8 * 8 + (v % 8 + 1) % 8;
+    for u in 0..24 {
+        for v in 0..24 {
+            if u != v {
+                assert_eq!(
+                    file.matrix.colour(u, v),
+                    file.matrix.colour(sigma(u), sigma(v)),
+                    "{{{u},{v}}}"
+                );
+            }
+        }
+    }
+    // The cycles must cover the order, and go with local search.
+    let o = ramsift(&[
+        "find",
+        "4,5",
+        "24",
+        "--method",
+        "local",
+        "--automorphism",
+        "8x2",
+    ]);
+    assert_eq!(o.status.code(), Some(2), "{}", stderr(&o));
+    assert!(
+        stderr(&o).contains("move 16 vertices, but K_24 has 24"),
+        "{}",
+        stderr(&o)
+    );
+    let o = ramsift(&["find", "4,5", "24", "--automorphism", "8x3"]);
+    assert!(stderr(&o).contains("--automorphism goes with --method local"));
+    let o = ramsift(&[
+        "find",
+        "4,5",
+        "24",
+        "--method",
+        "local",
+        "--automorphism",
+        "8x",
+    ]);
+    assert!(
+        stderr(&o).contains("expected a comma list of lengths"),
+        "{}",
+        stderr(&o)
+    );
+}
+
+#[test]
 fn scan_reports_every_order_and_writes_witnesses() {
     let dir = tempfile::tempdir().unwrap();
     let out = dir.path().join("scan");
