@@ -500,7 +500,7 @@ fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
         stderr(&o)
     );
     let o = ramsift(&["find", "4,5", "24", "--automorphism", "8x3"]);
-    assert!(stderr(&o).contains("--automorphism goes with --method local"));
+    assert!(stderr(&o).contains("--automorphism goes with --method local or automorphism"));
     let o = ramsift(&[
         "find",
         "4,5",
@@ -512,6 +512,52 @@ fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
     ]);
     assert!(
         stderr(&o).contains("expected a comma list of lengths"),
+        "{}",
+        stderr(&o)
+    );
+}
+
+#[test]
+fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
+    // R(4,4) = 18 (DS1). Paley's (4,4;17) colouring has the automorphism x -> 2x
+    // (2 is a square mod 17), with two 8-cycles and the fixed vertex 0: the family
+    // of two 8-cycles and a fixed vertex holds a colouring, checked here.
+    let o = ramsift(&[
+        "find",
+        "4,4",
+        "17",
+        "--method",
+        "automorphism",
+        "--automorphism",
+        "8x2,1",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let file = parse_colouring_file("stdout", &stdout(&o)).unwrap();
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    assert!(
+        stdout(&o).contains("invariant under cycles 8x2,1"),
+        "{}",
+        stdout(&o)
+    );
+    // No (4,4;18) colouring exists at all, so none with three 6-cycles.
+    let o = ramsift(&[
+        "find",
+        "4,4",
+        "18",
+        "--method",
+        "automorphism",
+        "--automorphism",
+        "6x3",
+        "--json",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["result"], "none-in-family", "{summary}");
+    let o = ramsift(&["find", "4,4", "17", "--method", "automorphism"]);
+    assert!(
+        stderr(&o).contains("--method automorphism needs --automorphism CYCLES"),
         "{}",
         stderr(&o)
     );

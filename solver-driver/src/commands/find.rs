@@ -33,8 +33,9 @@ pub struct FindArgs {
     pub instance: InstanceArgs,
     /// Search method. auto: structured families, then local search feeding SAT, with
     /// a complete SAT worker throughout; sat: the SAT portfolio alone; circulant,
-    /// cayley, block-circulant, structured: exhaustive within those families; local:
-    /// local search alone (focused tabu search; see --rule).
+    /// cayley, block-circulant, structured: exhaustive within those families;
+    /// automorphism: exhaustive among the colourings invariant under
+    /// --automorphism; local: local search alone (focused tabu search; see --rule).
     #[arg(long, value_enum, default_value_t = Method::Auto)]
     pub method: Method,
     /// Shorthand for --method circulant.
@@ -55,10 +56,11 @@ pub struct FindArgs {
     /// while a copy persists), tabu (over every edge's recolourings) or anneal.
     #[arg(long, value_enum, default_value_t = Rule::Focused)]
     pub rule: Rule,
-    /// With --method local: visit only colourings invariant under a vertex
-    /// permutation with these cycle lengths, e.g. 4x8,2 (eight 4-cycles on
+    /// With --method local or automorphism: only colourings invariant under a
+    /// vertex permutation with these cycle lengths, e.g. 4x8,2 (eight 4-cycles on
     /// vertices 0..31, then a 2-cycle; a length of 1 is a fixed vertex; the lengths
-    /// add up to N). Moves recolour whole edge orbits (rules focused and tabu).
+    /// add up to N). Local search moves recolour whole edge orbits (rules focused
+    /// and tabu); --method automorphism searches the family exhaustively.
     #[arg(long, value_name = "CYCLES")]
     pub automorphism: Option<VertexCycles>,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
@@ -117,6 +119,7 @@ pub enum Method {
     Cayley,
     BlockCirculant,
     Structured,
+    Automorphism,
     Local,
 }
 
@@ -182,6 +185,11 @@ impl FindArgs {
                 self.fixed.unwrap_or(0),
             )),
             Method::Structured => Some(FamilyChoice::All),
+            Method::Automorphism => Some(FamilyChoice::Automorphism(
+                self.automorphism
+                    .clone()
+                    .context("--method automorphism needs --automorphism CYCLES")?,
+            )),
             _ => None,
         })
     }
@@ -345,8 +353,10 @@ fn job_of(args: &FindArgs) -> Result<SearchJob> {
 pub fn run(args: &FindArgs) -> Result<u8> {
     anyhow::ensure!(
         args.automorphism.is_none()
-            || (args.method() == Method::Local && args.from.is_none() && args.repair.is_none()),
-        "--automorphism goes with --method local"
+            || (matches!(args.method(), Method::Local | Method::Automorphism)
+                && args.from.is_none()
+                && args.repair.is_none()),
+        "--automorphism goes with --method local or automorphism"
     );
     let job = job_of(args)?;
     if let Some(dir) = &args.out {

@@ -42,7 +42,7 @@ pub enum CyclesError {
 /// A vertex permutation given by the lengths of its cycles: vertices
 /// 0..l₁ form the first cycle (v ↦ v + 1, the last back to the first), the next
 /// l₂ the second, and so on; cycles of length 1 are fixed vertices.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub struct VertexCycles {
     lengths: Vec<usize>,
 }
@@ -178,6 +178,11 @@ impl EdgeOrbitMoves {
 
     pub fn orbit(&self, index: usize) -> &[(usize, usize)] {
         &self.orbits[index]
+    }
+
+    /// The orbit of each edge, by edge index.
+    pub fn orbit_of_edge(&self) -> &[u32] {
+        &self.orbit_of_edge
     }
 
     /// A uniformly random invariant colouring.

@@ -18,6 +18,11 @@
 //!   search (Exoo, "On the Ramsey number R(4,6)", EJC 19 (2012) #P66: a colouring
 //!   of K35 whose automorphisms fix one vertex).
 //!
+//! * **Colourings with a prescribed automorphism**: invariant under one vertex
+//!   permutation given by its cycle lengths (any mix, fixed vertices included),
+//!   the edge orbits being those of the cyclic group it generates. The
+//!   block-circulant families are the cases of equal cycles plus fixed vertices.
+//!
 //! Each family also lists its *anchors*: a set of (vertex, companions) pairs such
 //! that every clique of K_n is mapped by the group onto a clique made of one anchor
 //! vertex and some of its companions. Only those cliques need clauses.
@@ -30,8 +35,10 @@ use thiserror::Error;
 use ramsift_encoder::edges::{edge_count, edge_index};
 use ramsift_encoder::Colouring;
 
-/// The most orbits a family may have: clause sets are kept as 128-bit masks.
-pub const MAX_ORBITS: usize = 128;
+use crate::local::automorphism::{EdgeOrbitMoves, VertexCycles};
+
+/// The most orbits a family may have: clause sets are kept as 256-bit masks.
+pub const MAX_ORBITS: usize = 256;
 
 #[derive(Debug, Error, PartialEq, Eq)]
 pub enum FamilyError {
@@ -50,6 +57,12 @@ pub enum FamilyError {
         family: String,
         order: usize,
         orbits: usize,
+    },
+    #[error("the automorphism's cycles {cycles} move {moved} vertices, but K_{order} has {order}")]
+    CyclesOrder {
+        cycles: String,
+        moved: usize,
+        order: usize,
     },
     #[error("structured searches handle specifications in which every colour forbids a clique; {spec} forbids other graphs")]
     NeedsCliques { spec: String },
@@ -196,7 +209,12 @@ impl FromStr for AbelianGroup {
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum FamilyKind {
     Cayley(AbelianGroup),
-    BlockCirculant { blocks: usize, fixed: usize },
+    BlockCirculant {
+        blocks: usize,
+        fixed: usize,
+    },
+    /// Invariant under one vertex permutation given by its cycle lengths.
+    Automorphism(VertexCycles),
 }
 
 impl fmt::Display for FamilyKind {
@@ -215,6 +233,7 @@ impl fmt::Display for FamilyKind {
             FamilyKind::BlockCirculant { blocks, fixed } => {
                 write!(f, "block-circulant ({blocks} blocks, {fixed} fixed)")
             }
+            FamilyKind::Automorphism(cycles) => write!(f, "invariant under cycles {cycles}"),
         }
     }
 }
@@ -321,6 +340,29 @@ impl EdgeOrbits {
             order,
             orbit_count: ids.len(),
             orbit_of_edge,
+            anchors,
+        })
+    }
+
+    /// Colourings invariant under the vertex permutation with these cycles
+    /// (vertices 0..l₁ the first cycle, and so on; [`VertexCycles`]).
+    pub fn invariant_under(cycles: &VertexCycles) -> Result<Self, FamilyError> {
+        let moves = EdgeOrbitMoves::new(cycles);
+        // A clique's lowest cycle holds some vertex; the power of the permutation
+        // that takes it to the cycle's first vertex keeps every other vertex in its
+        // own cycle, so all of them come after that first vertex.
+        let order = cycles.order();
+        let mut anchors = Vec::new();
+        let mut first = 0;
+        for &length in cycles.lengths() {
+            anchors.push((first, (first + 1..order).collect()));
+            first += length;
+        }
+        Self::checked(EdgeOrbits {
+            kind: FamilyKind::Automorphism(cycles.clone()),
+            order,
+            orbit_of_edge: moves.orbit_of_edge().to_vec(),
+            orbit_count: moves.orbit_count(),
             anchors,
         })
     }
@@ -462,5 +504,30 @@ mod tests {
         assert_eq!(orbits.anchors.len(), 3 + 2);
         assert!(EdgeOrbits::block_circulant_fixed(14, 4, 3).is_err());
         assert!(EdgeOrbits::block_circulant_fixed(3, 1, 3).is_err());
+    }
+
+    #[test]
+    fn a_prescribed_automorphism_with_equal_cycles_is_a_block_circulant_family() {
+        // Two 8-cycles and a fixed vertex: the same edge partition as two blocks
+        // of 8 and one fixed vertex (the same vertex labels, the same rotation).
+        let cycles: VertexCycles = "8x2,1".parse().unwrap();
+        let invariant = EdgeOrbits::invariant_under(&cycles).unwrap();
+        let blocks = EdgeOrbits::block_circulant_fixed(17, 2, 1).unwrap();
+        assert_eq!(invariant.orbit_count, blocks.orbit_count);
+        for e in 0..edge_count(17) {
+            for f in 0..edge_count(17) {
+                assert_eq!(
+                    invariant.orbit_of_edge[e] == invariant.orbit_of_edge[f],
+                    blocks.orbit_of_edge[e] == blocks.orbit_of_edge[f]
+                );
+            }
+        }
+        assert_eq!(invariant.anchors.len(), 3);
+        assert_eq!(invariant.kind.to_string(), "invariant under cycles 8x2,1");
+        // Eight 4-cycles and a 2-cycle on 34 vertices: 145 orbits, held since
+        // clause sets grew to 256 bits.
+        let exoo_shape = EdgeOrbits::invariant_under(&"4x8,2".parse().unwrap()).unwrap();
+        assert_eq!(exoo_shape.orbit_count, 145);
+        assert!(EdgeOrbits::invariant_under(&"1x40".parse().unwrap()).is_err());
     }
 }

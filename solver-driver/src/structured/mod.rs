@@ -1,5 +1,6 @@
 //! Structured searches for lower bounds: colourings invariant under a group acting
-//! on the vertices (circulant, Cayley over abelian groups, block-circulant).
+//! on the vertices (circulant, Cayley over abelian groups, block-circulant, or the
+//! cyclic group of one prescribed vertex permutation).
 //!
 //! The unknowns are the edge orbits, not the edges, so the formulas are small and
 //! the searches exhaustive *within the family*: "no circulant colouring exists at
@@ -48,6 +49,8 @@ pub enum FamilyChoice {
     /// vertices 1..=[`MAX_FIXED`] and of blocks 1..=[`MAX_FIXED_BLOCKS`] that fits
     /// the order, within [`families::MAX_ORBITS`] orbits.
     FixedVertices,
+    /// Colourings invariant under one vertex permutation given by its cycles.
+    Automorphism(crate::local::VertexCycles),
     /// Cayley (circulant first) and block-circulant without fixed vertices, in
     /// that order.
     All,
@@ -66,6 +69,7 @@ impl fmt::Display for FamilyChoice {
                 write!(f, "block-circulant {b}, {x} fixed")
             }
             FamilyChoice::FixedVertices => f.write_str("fixed-vertices"),
+            FamilyChoice::Automorphism(cycles) => write!(f, "automorphism {cycles}"),
             FamilyChoice::All => f.write_str("structured"),
         }
     }
@@ -131,6 +135,16 @@ impl FamilyChoice {
                         }
                     }
                 }
+            }
+            FamilyChoice::Automorphism(cycles) => {
+                if cycles.order() != order {
+                    return Err(FamilyError::CyclesOrder {
+                        cycles: cycles.to_string(),
+                        moved: cycles.order(),
+                        order,
+                    });
+                }
+                out.push(EdgeOrbits::invariant_under(cycles)?);
             }
             FamilyChoice::All => {
                 out.extend(FamilyChoice::Cayley(None).families(order)?);

@@ -14,7 +14,7 @@ use std::collections::HashSet;
 use ramsift_encoder::edges::edge_index;
 use ramsift_encoder::RamseySpec;
 
-use super::families::EdgeOrbits;
+use super::families::{EdgeOrbits, MAX_ORBITS};
 
 /// The orbit formula of one family and specification.
 #[derive(Clone, Debug)]
@@ -65,7 +65,7 @@ impl OrbitFormula {
         }
         // The orbit sets of all k-cliques are the same for every colour with clique
         // size k: compute them once per size.
-        let mut by_size: Vec<(usize, Vec<u128>)> = Vec::new();
+        let mut by_size: Vec<(usize, Vec<OrbitSet>)> = Vec::new();
         for &k in &sizes {
             if by_size.iter().any(|(size, _)| *size == k) {
                 continue;
@@ -80,10 +80,9 @@ impl OrbitFormula {
                 .find(|(size, _)| *size == k)
                 .expect("computed")
                 .1;
-            for &mask in masks {
+            for mask in masks {
                 clauses.push(
-                    (0..orbits.orbit_count)
-                        .filter(|&o| mask >> o & 1 == 1)
+                    mask.members()
                         .map(|o| -orbit_literal(o, colour + 1, r))
                         .collect(),
                 );
@@ -105,7 +104,7 @@ fn orbit_sets_of_cliques(
     orbits: &EdgeOrbits,
     k: usize,
     deadline: Option<std::time::Instant>,
-) -> Option<(Vec<u128>, u64)> {
+) -> Option<(Vec<OrbitSet>, u64)> {
     let mut walk = CliqueWalk {
         orbits,
         k,
@@ -119,15 +118,43 @@ fn orbit_sets_of_cliques(
         for (anchor, companions) in &orbits.anchors {
             walk.chosen.clear();
             walk.chosen.push(*anchor);
-            walk.extend(companions, 0, 0);
+            walk.extend(companions, 0, OrbitSet::default());
         }
     }
     if walk.late {
         return None;
     }
-    let mut masks: Vec<u128> = walk.seen.into_iter().collect();
+    let mut masks: Vec<OrbitSet> = walk.seen.into_iter().collect();
     masks.sort_unstable();
     Some((masks, walk.count))
+}
+
+/// A set of orbits (at most [`MAX_ORBITS`]), as a bit set whose words run from
+/// the highest orbits to the lowest, so that sets compare as the numbers they
+/// spell (and clauses keep the order they had as 128-bit masks).
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Hash, PartialOrd, Ord)]
+struct OrbitSet([u64; WORDS]);
+
+const WORDS: usize = MAX_ORBITS / 64;
+
+impl OrbitSet {
+    fn insert(&mut self, orbit: usize) {
+        self.0[WORDS - 1 - orbit / 64] |= 1 << (orbit % 64);
+    }
+
+    /// The orbits in the set, in increasing order.
+    fn members(&self) -> impl Iterator<Item = usize> + '_ {
+        (0..WORDS).flat_map(move |w| {
+            let mut bits = self.0[WORDS - 1 - w];
+            std::iter::from_fn(move || {
+                (bits != 0).then(|| {
+                    let low = bits.trailing_zeros() as usize;
+                    bits &= bits - 1;
+                    w * 64 + low
+                })
+            })
+        })
+    }
 }
 
 /// Depth-first enumeration of cliques through one anchor, over increasing
@@ -136,7 +163,7 @@ struct CliqueWalk<'a> {
     orbits: &'a EdgeOrbits,
     k: usize,
     chosen: Vec<usize>,
-    seen: HashSet<u128>,
+    seen: HashSet<OrbitSet>,
     count: u64,
     deadline: Option<std::time::Instant>,
     /// Set once the deadline has passed; the walk then unwinds.
@@ -144,7 +171,7 @@ struct CliqueWalk<'a> {
 }
 
 impl CliqueWalk<'_> {
-    fn extend(&mut self, companions: &[usize], start: usize, mask: u128) {
+    fn extend(&mut self, companions: &[usize], start: usize, mask: OrbitSet) {
         if self.late {
             return;
         }
@@ -168,7 +195,7 @@ impl CliqueWalk<'_> {
             let v = companions[index];
             let mut next = mask;
             for &u in &self.chosen {
-                next |= 1u128 << self.orbits.orbit_of_edge[edge_index(u, v)];
+                next.insert(self.orbits.orbit_of_edge[edge_index(u, v)] as usize);
             }
             self.chosen.push(v);
             self.extend(companions, index + 1, next);
@@ -195,5 +222,19 @@ mod tests {
         let mut clauses = formula.clauses.clone();
         clauses.sort();
         assert_eq!(clauses, vec![vec![-1, -2], vec![1, 2]]);
+    }
+
+    #[test]
+    fn orbit_sets_list_their_members_and_order_as_numbers() {
+        let mut low = OrbitSet::default();
+        low.insert(0);
+        low.insert(63);
+        low.insert(64);
+        let mut high = OrbitSet::default();
+        high.insert(200);
+        assert_eq!(low.members().collect::<Vec<_>>(), vec![0, 63, 64]);
+        assert_eq!(high.members().collect::<Vec<_>>(), vec![200]);
+        // {200} spells a larger number than {0, 63, 64}.
+        assert!(low < high);
     }
 }
