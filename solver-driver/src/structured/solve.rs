@@ -247,4 +247,46 @@ mod tests {
             FamilyOutcome::NoneInFamily
         );
     }
+
+    proptest::proptest! {
+        /// Within a prescribed automorphism's family the orbit formula (anchored
+        /// at each cycle's first vertex) is exact: SAT finds a colouring exactly
+        /// when trying every orbit colouring with the checker's code finds one.
+        #[test]
+        fn automorphism_families_agree_with_trying_every_orbit_colouring(
+            lengths in proptest::collection::vec(1usize..=5, 1..=4),
+            sizes in proptest::sample::select(vec![vec![3, 3], vec![3, 4], vec![4, 4], vec![3, 3, 3]]),
+        ) {
+            let cycles = crate::local::VertexCycles::new(lengths);
+            proptest::prop_assume!(cycles.order() >= 3);
+            let orbits = EdgeOrbits::invariant_under(&cycles).unwrap();
+            proptest::prop_assume!(orbits.orbit_count <= 12);
+            let spec = RamseySpec::cliques(&sizes).unwrap();
+            let r = sizes.len();
+            let mut exists = false;
+            let mut colours = vec![1u8; orbits.orbit_count];
+            'all: loop {
+                if verify_witness(&spec, &orbits.expand(&colours, r)).is_valid() {
+                    exists = true;
+                    break;
+                }
+                for slot in colours.iter_mut() {
+                    if (*slot as usize) < r {
+                        *slot += 1;
+                        continue 'all;
+                    }
+                    *slot = 1;
+                }
+                break;
+            }
+            let outcome = run(&orbits, &sizes);
+            proptest::prop_assert_eq!(
+                matches!(outcome, FamilyOutcome::Found { .. }),
+                exists,
+                "{}: {:?}",
+                cycles,
+                outcome
+            );
+        }
+    }
 }
