@@ -218,9 +218,9 @@ impl EdgeOrbitMoves {
     }
 }
 
-/// The tabu tenure of an orbit: this many steps, plus a random 0..=`.1` more (a
-/// probe at (4,6;34) with eight 4-cycles and a 2-cycle found 5 + 0..=4 better
-/// than 2 + 0..=2; the orbits are fewer and coarser than edges).
+/// The tabu tenure of an orbit: this many steps, plus a random 0..=`.1` more.
+/// The value of the first probes at (4,6;34), kept; no other tenure was
+/// compared (BENCHMARKS.md says so).
 const ORBIT_TENURE: (u64, u64) = (5, 4);
 
 /// One tabu step over the recolourings of whole orbits: of the orbits in a
