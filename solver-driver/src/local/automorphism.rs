@@ -8,9 +8,10 @@
 //! Many record lower-bound colourings have a nontrivial automorphism of this kind
 //! and were found by searches restricted to one (Exoo, "On the Ramsey number
 //! R(4,6)", EJC 19 (2012) #P66: the most symmetric of its colourings of K35 has an
-//! automorphism group of order 4 with one fixed point). The structured families
-//! ([`crate::structured`]) decide such restrictions exactly while the orbits are
-//! few (at most 128); this search handles any number of them, heuristically.
+//! automorphism group of order 4 with one fixed point). The structured search
+//! (`find --method automorphism`, [`crate::structured`]) decides such a
+//! restriction exactly by SAT over at most 256 orbits, when the solver gets
+//! through; this search handles any number of them, heuristically.
 
 use std::fmt;
 use std::str::FromStr;
