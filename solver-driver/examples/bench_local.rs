@@ -64,7 +64,7 @@ fn run(
         threads: 1,
         seed,
         timeout: Some(Duration::from_secs_f64(cap)),
-        automorphism,
+        automorphisms: automorphism.into_iter().collect(),
         ..LocalOptions::default()
     };
     let report = local_search(

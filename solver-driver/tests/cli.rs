@@ -555,6 +555,39 @@ fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
     assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
     let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
     assert_eq!(summary["result"], "none-in-family", "{summary}");
+    // Aut(Paley 17) = {x -> ax + b, a a nonzero square} has no element of order
+    // 16, so a 16-cycle and a fixed vertex admit no (4,4;17) colouring; given
+    // first, that family is tried and found empty, then the next one holds one.
+    let o = ramsift(&[
+        "find",
+        "4,4",
+        "17",
+        "--method",
+        "automorphism",
+        "--automorphism",
+        "16,1",
+        "--automorphism",
+        "8x2,1",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    assert!(
+        stdout(&o).contains("2 attempts, invariant under cycles 8x2,1"),
+        "{}",
+        stdout(&o)
+    );
+    let o = ramsift(&[
+        "find",
+        "4,4",
+        "17",
+        "--method",
+        "automorphism",
+        "--automorphism",
+        "16,1",
+        "--json",
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
     let o = ramsift(&["find", "4,4", "17", "--method", "automorphism"]);
     assert!(
         stderr(&o).contains("--method automorphism needs --automorphism CYCLES"),

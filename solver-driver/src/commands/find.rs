@@ -60,9 +60,11 @@ pub struct FindArgs {
     /// vertex permutation with these cycle lengths, e.g. 4x8,2 (eight 4-cycles on
     /// vertices 0..31, then a 2-cycle; a length of 1 is a fixed vertex; the lengths
     /// add up to N). Local search moves recolour whole edge orbits (rules focused
-    /// and tabu); --method automorphism searches the family exhaustively.
+    /// and tabu); --method automorphism searches the family exhaustively. Give it
+    /// again for more permutations: local search threads take them in turn, the
+    /// exhaustive search tries them one after the other.
     #[arg(long, value_name = "CYCLES")]
-    pub automorphism: Option<VertexCycles>,
+    pub automorphism: Vec<VertexCycles>,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
     /// (a ramsift colouring file, or graph6 for two colours; - reads standard
     /// input). "None extends" concerns this colouring only.
@@ -185,11 +187,13 @@ impl FindArgs {
                 self.fixed.unwrap_or(0),
             )),
             Method::Structured => Some(FamilyChoice::All),
-            Method::Automorphism => Some(FamilyChoice::Automorphism(
-                self.automorphism
-                    .clone()
-                    .context("--method automorphism needs --automorphism CYCLES")?,
-            )),
+            Method::Automorphism => {
+                anyhow::ensure!(
+                    !self.automorphism.is_empty(),
+                    "--method automorphism needs --automorphism CYCLES"
+                );
+                Some(FamilyChoice::Automorphism(self.automorphism.clone()))
+            }
             _ => None,
         })
     }
@@ -352,7 +356,7 @@ fn job_of(args: &FindArgs) -> Result<SearchJob> {
 
 pub fn run(args: &FindArgs) -> Result<u8> {
     anyhow::ensure!(
-        args.automorphism.is_none()
+        args.automorphism.is_empty()
             || (matches!(args.method(), Method::Local | Method::Automorphism)
                 && args.from.is_none()
                 && args.repair.is_none()),
@@ -570,7 +574,7 @@ fn find_by_local_search(
         threads: job.threads(),
         seed: job.options.seed,
         timeout: job.options.timeout,
-        automorphism: args.automorphism.clone(),
+        automorphisms: args.automorphism.clone(),
         ..LocalOptions::default()
     };
     let (instance, stop, progress) = (

@@ -59,10 +59,11 @@ pub struct LocalOptions {
     pub stall_steps: Option<u64>,
     /// How many near-solutions (best colourings of distinct restarts) to keep.
     pub keep_near: usize,
-    /// Visit only colourings invariant under this vertex permutation: the moves
+    /// Visit only colourings invariant under a vertex permutation: the moves
     /// recolour edge orbits, the restarts draw random invariant colourings, and
-    /// `starts` are not used. Tabu and focused rules only.
-    pub automorphism: Option<VertexCycles>,
+    /// `starts` are not used. With several, thread w takes the (w mod count)-th.
+    /// Tabu and focused rules only. Empty: every colouring.
+    pub automorphisms: Vec<VertexCycles>,
 }
 
 impl Default for LocalOptions {
@@ -75,7 +76,7 @@ impl Default for LocalOptions {
             starts: Vec::new(),
             stall_steps: None,
             keep_near: 8,
-            automorphism: None,
+            automorphisms: Vec::new(),
         }
     }
 }
@@ -116,9 +117,10 @@ struct Shared<'a> {
     options: &'a LocalOptions,
     patterns: &'a [Pattern],
     order: usize,
-    stall: u64,
-    /// The edge orbits of the automorphism, if any.
-    orbits: Option<EdgeOrbitMoves>,
+    /// Restart after this many steps without a new best, if given.
+    stall: Option<u64>,
+    /// The edge orbits of each automorphism.
+    orbits: Vec<EdgeOrbitMoves>,
     stop: &'a AtomicBool,
     deadline: Option<Instant>,
     progress: &'a LocalProgress,
@@ -141,24 +143,22 @@ pub fn local_search(
             max: MAX_LOCAL_ORDER,
         });
     }
-    let orbits = match &options.automorphism {
-        None => None,
-        Some(cycles) => {
-            if cycles.order() != order {
-                return Err(SearchError::AutomorphismOrder {
-                    cycles: cycles.to_string(),
-                    moved: cycles.order(),
-                    order,
-                });
-            }
-            if !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused) {
-                return Err(SearchError::AutomorphismRule {
-                    rule: options.method.to_string(),
-                });
-            }
-            Some(EdgeOrbitMoves::new(cycles))
+    let mut orbits = Vec::new();
+    for cycles in &options.automorphisms {
+        if cycles.order() != order {
+            return Err(SearchError::AutomorphismOrder {
+                cycles: cycles.to_string(),
+                moved: cycles.order(),
+                order,
+            });
         }
-    };
+        if !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused) {
+            return Err(SearchError::AutomorphismRule {
+                rule: options.method.to_string(),
+            });
+        }
+        orbits.push(EdgeOrbitMoves::new(cycles));
+    }
     let patterns = Pattern::for_spec(spec);
     let started = Instant::now();
     let threads = options.threads.max(1);
@@ -166,14 +166,7 @@ pub fn local_search(
         options,
         patterns: &patterns,
         order,
-        stall: options
-            .stall_steps
-            .unwrap_or(
-                50 * orbits
-                    .as_ref()
-                    .map_or(edge_count(order), |o| o.orbit_count()) as u64,
-            )
-            .max(1),
+        stall: options.stall_steps,
         orbits,
         stop,
         deadline: options.timeout.map(|t| started + t),
@@ -219,9 +212,17 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
     rng.set_stream(worker as u64 + 1000);
     let stopped = || crate::search::interrupt::should_stop(shared.stop, shared.deadline);
+    let orbits = match shared.orbits.len() {
+        0 => None,
+        count => Some(&shared.orbits[worker % count]),
+    };
+    let stall = shared
+        .stall
+        .unwrap_or(50 * orbits.map_or(edge_count(shared.order), |o| o.orbit_count()) as u64)
+        .max(1);
     while !stopped() {
         let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
-        let mut state = match (&shared.orbits, options.starts.get(index)) {
+        let mut state = match (orbits, options.starts.get(index)) {
             (Some(orbits), _) => orbits.random_state(shared.patterns, &mut rng),
             (None, Some(start)) => LocalState::new(start, shared.patterns),
             (None, None) => LocalState::random(shared.order, shared.patterns, &mut rng),
@@ -230,8 +231,8 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
         let (cost, best) = run_once(
             &mut state,
             options.method,
-            shared.orbits.as_ref(),
-            shared.stall,
+            orbits,
+            stall,
             &mut rng,
             &stopped,
             shared.progress,
@@ -242,7 +243,7 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
             if slot.is_none() {
                 *slot = Some((
                     best,
-                    match &shared.orbits {
+                    match orbits {
                         None => format!(
                             "{} (thread {worker}, restart {})",
                             options.method,
@@ -402,5 +403,47 @@ mod tests {
         // Goodman 1959: every 2-colouring of K6 has at least 2 monochromatic triangles.
         assert!(report.best_cost >= 2, "{}", report.best_cost);
         assert!(!report.near.is_empty());
+    }
+
+    #[test]
+    fn threads_take_the_automorphisms_in_turn_and_a_seed_repeats_a_run() {
+        // R(4,4) = 18 and the one (4,4;17) colouring is Paley's (DS1; McKay's
+        // data), whose automorphisms x -> ax + b (a a nonzero square) include no
+        // 16-cycle: thread 0 searches an empty family, thread 1 the circulants.
+        let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 17).unwrap();
+        let options = LocalOptions {
+            threads: 2,
+            seed: 4,
+            timeout: Some(Duration::from_secs(60)),
+            automorphisms: vec!["16,1".parse().unwrap(), "17".parse().unwrap()],
+            ..LocalOptions::default()
+        };
+        let report = local_search(
+            &instance,
+            &options,
+            &AtomicBool::new(false),
+            &LocalProgress::default(),
+        )
+        .unwrap();
+        let (_, by) = report.found.expect("the circulant thread finds Paley's colouring");
+        assert!(by.contains("cycles 17 (thread 1"), "{by}");
+        // One thread, the same seed: the same colouring twice.
+        let options = LocalOptions {
+            threads: 1,
+            automorphisms: vec!["8x2,1".parse().unwrap()],
+            ..options
+        };
+        let run = || {
+            local_search(
+                &instance,
+                &options,
+                &AtomicBool::new(false),
+                &LocalProgress::default(),
+            )
+            .unwrap()
+            .found
+            .expect("found")
+        };
+        assert_eq!(run(), run());
     }
 }

@@ -49,8 +49,9 @@ pub enum FamilyChoice {
     /// vertices 1..=[`MAX_FIXED`] and of blocks 1..=[`MAX_FIXED_BLOCKS`] that fits
     /// the order, within [`families::MAX_ORBITS`] orbits.
     FixedVertices,
-    /// Colourings invariant under one vertex permutation given by its cycles.
-    Automorphism(crate::local::VertexCycles),
+    /// Colourings invariant under a vertex permutation given by its cycles, for
+    /// each permutation in turn.
+    Automorphism(Vec<crate::local::VertexCycles>),
     /// Cayley (circulant first) and block-circulant without fixed vertices, in
     /// that order.
     All,
@@ -69,7 +70,10 @@ impl fmt::Display for FamilyChoice {
                 write!(f, "block-circulant {b}, {x} fixed")
             }
             FamilyChoice::FixedVertices => f.write_str("fixed-vertices"),
-            FamilyChoice::Automorphism(cycles) => write!(f, "automorphism {cycles}"),
+            FamilyChoice::Automorphism(all) => {
+                let names: Vec<String> = all.iter().map(|c| c.to_string()).collect();
+                write!(f, "automorphism {}", names.join(" / "))
+            }
             FamilyChoice::All => f.write_str("structured"),
         }
     }
@@ -136,15 +140,17 @@ impl FamilyChoice {
                     }
                 }
             }
-            FamilyChoice::Automorphism(cycles) => {
-                if cycles.order() != order {
-                    return Err(FamilyError::CyclesOrder {
-                        cycles: cycles.to_string(),
-                        moved: cycles.order(),
-                        order,
-                    });
+            FamilyChoice::Automorphism(all) => {
+                for cycles in all {
+                    if cycles.order() != order {
+                        return Err(FamilyError::CyclesOrder {
+                            cycles: cycles.to_string(),
+                            moved: cycles.order(),
+                            order,
+                        });
+                    }
+                    out.push(EdgeOrbits::invariant_under(cycles)?);
                 }
-                out.push(EdgeOrbits::invariant_under(cycles)?);
             }
             FamilyChoice::All => {
                 out.extend(FamilyChoice::Cayley(None).families(order)?);
