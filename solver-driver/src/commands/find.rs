@@ -582,13 +582,20 @@ fn find_by_local_search(
         AtomicBool::new(false),
         LocalProgress::default(),
     );
+    let symmetry = match local_options.automorphisms.as_slice() {
+        [] => String::new(),
+        all => {
+            let names: Vec<String> = all.iter().map(|c| c.to_string()).collect();
+            format!(" over the edge orbits of cycles {}", names.join(" / "))
+        }
+    };
     let report =
         line.run_while(
             || local_search(instance, &local_options, &stop, &progress),
             |elapsed| {
                 let best = progress.best_cost.load(Ordering::Relaxed);
                 format!(
-                "{instance}: {}, {} steps, {} restarts, fewest monochromatic copies {}, {} elapsed",
+                "{instance}: {}{symmetry}, {} steps, {} restarts, fewest monochromatic copies {}, {} elapsed",
                 local_options.method,
                 progress.steps.load(Ordering::Relaxed),
                 progress.restarts.load(Ordering::Relaxed),

@@ -425,7 +425,9 @@ mod tests {
             &LocalProgress::default(),
         )
         .unwrap();
-        let (_, by) = report.found.expect("the circulant thread finds Paley's colouring");
+        let (_, by) = report
+            .found
+            .expect("the circulant thread finds Paley's colouring");
         assert!(by.contains("cycles 17 (thread 1"), "{by}");
         // One thread, the same seed: the same colouring twice.
         let options = LocalOptions {
