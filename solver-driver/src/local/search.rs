@@ -21,6 +21,7 @@ use super::weighting::{weighted_step, CliqueWeights};
 use crate::certify::witness_check::verify_witness;
 use crate::search::first_answer::worker_pool;
 use crate::search::job::SearchError;
+use crate::structured::FamilyError;
 
 /// Which move rule.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -146,11 +147,11 @@ pub fn local_search(
     let mut orbits = Vec::new();
     for cycles in &options.automorphisms {
         if cycles.order() != order {
-            return Err(SearchError::AutomorphismOrder {
+            return Err(SearchError::Family(FamilyError::CyclesOrder {
                 cycles: cycles.to_string(),
                 moved: cycles.order(),
                 order,
-            });
+            }));
         }
         if !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused) {
             return Err(SearchError::AutomorphismRule {

@@ -155,12 +155,6 @@ pub enum SearchError {
     Family(#[from] crate::structured::FamilyError),
     #[error("local search handles orders 2 to {max}; {order} is outside")]
     LocalOrder { order: usize, max: usize },
-    #[error("the automorphism's cycles {cycles} move {moved} vertices, but K_{order} has {order}")]
-    AutomorphismOrder {
-        cycles: String,
-        moved: usize,
-        order: usize,
-    },
     #[error("with an automorphism, local search runs tabu or focused moves over edge orbits; {rule} is not available")]
     AutomorphismRule { rule: String },
 }
