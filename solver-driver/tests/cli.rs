@@ -597,6 +597,51 @@ fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
 }
 
 #[test]
+fn distance_colourings_reach_the_paley_order() {
+    // R(4,4) = 18 (DS1); Paley's (4,4;17) colouring is circulant, hence a
+    // distance colouring (Kuznetsov, arXiv:1505.07186: circulants are the
+    // distance colourings with symmetric masks). None at 18, as none at all.
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("scan");
+    let o = ramsift(&[
+        "scan",
+        "4,4",
+        "--family",
+        "distance",
+        "--from",
+        "16",
+        "--to",
+        "18",
+        "--json",
+        "--out",
+        out.to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(0), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    assert_eq!(summary["largest_found"], 17, "{summary}");
+    let verdicts: Vec<&str> = summary["orders"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|o| o["result"].as_str().unwrap())
+        .collect();
+    assert_eq!(verdicts, ["found", "found", "none"]);
+    let file = parse_colouring_file(
+        "w",
+        &std::fs::read_to_string(out.join("order-17/witness.colouring")).unwrap(),
+    )
+    .unwrap();
+    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    // The colour of {i, j} depends on |i - j| only.
+    for j in 1..17 {
+        for i in 0..j {
+            assert_eq!(file.matrix.colour(i, j), file.matrix.colour(0, j - i));
+        }
+    }
+}
+
+#[test]
 fn scan_reports_every_order_and_writes_witnesses() {
     let dir = tempfile::tempdir().unwrap();
     let out = dir.path().join("scan");

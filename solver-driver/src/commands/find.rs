@@ -35,7 +35,9 @@ pub struct FindArgs {
     /// a complete SAT worker throughout; sat: the SAT portfolio alone; circulant,
     /// cayley, block-circulant, structured: exhaustive within those families;
     /// automorphism: exhaustive among the colourings invariant under
-    /// --automorphism; local: local search alone (focused tabu search; see --rule).
+    /// --automorphism; distance: exhaustive among the colourings where the colour
+    /// of {i, j} depends on |i − j| only; local: local search alone (focused tabu
+    /// search; see --rule).
     #[arg(long, value_enum, default_value_t = Method::Auto)]
     pub method: Method,
     /// Shorthand for --method circulant.
@@ -122,6 +124,7 @@ pub enum Method {
     BlockCirculant,
     Structured,
     Automorphism,
+    Distance,
     Local,
 }
 
@@ -187,6 +190,7 @@ impl FindArgs {
                 self.fixed.unwrap_or(0),
             )),
             Method::Structured => Some(FamilyChoice::All),
+            Method::Distance => Some(FamilyChoice::Distance),
             Method::Automorphism => {
                 anyhow::ensure!(
                     !self.automorphism.is_empty(),

@@ -36,7 +36,8 @@ pub struct ScanArgs {
     #[arg(long, value_name = "N")]
     pub to: usize,
     /// Family: circulant (default), cayley, block-circulant, fixed-vertices
-    /// (block-circulant with 1 to 4 fixed vertices) or structured (the first three).
+    /// (block-circulant with 1 to 4 fixed vertices), distance (the colour of {i, j}
+    /// depends on |i − j| only) or structured (the first three).
     #[arg(long, default_value = "circulant", value_parser = parse_family)]
     pub family: FamilyChoice,
     /// Shorthand for --family circulant.

@@ -18,6 +18,13 @@
 //!   search (Exoo, "On the Ramsey number R(4,6)", EJC 19 (2012) #P66: a colouring
 //!   of K35 whose automorphisms fix one vertex).
 //!
+//! * **Distance colourings** (Kuznetsov, "Computational lower limits on small
+//!   Ramsey numbers", arXiv:1505.07186): the colour of {i, j} depends only on
+//!   |i − j|, with vertices on a line rather than a cycle. No group acts, but
+//!   translating a clique keeps its distances, so every clique has the orbit set
+//!   of one through vertex 0 and the formula stays exact. The circulant
+//!   colourings of K_n are the distance colourings whose colour of d equals that
+//!   of n − d, and the first m vertices of a distance colouring are one of K_m.
 //! * **Colourings with a prescribed automorphism**: invariant under one vertex
 //!   permutation given by its cycle lengths (any mix, fixed vertices included),
 //!   the edge orbits being those of the cyclic group it generates. The
@@ -215,6 +222,8 @@ pub enum FamilyKind {
     },
     /// Invariant under one vertex permutation given by its cycle lengths.
     Automorphism(VertexCycles),
+    /// The colour of {i, j} depends on |i − j| only.
+    Distance,
 }
 
 impl fmt::Display for FamilyKind {
@@ -234,6 +243,7 @@ impl fmt::Display for FamilyKind {
                 write!(f, "block-circulant ({blocks} blocks, {fixed} fixed)")
             }
             FamilyKind::Automorphism(cycles) => write!(f, "invariant under cycles {cycles}"),
+            FamilyKind::Distance => f.write_str("distance"),
         }
     }
 }
@@ -344,6 +354,24 @@ impl EdgeOrbits {
         })
     }
 
+    /// Distance colourings of K_n: orbit d − 1 holds the edges {i, i + d}.
+    pub fn distance(order: usize) -> Result<Self, FamilyError> {
+        let mut orbit_of_edge = vec![0u32; edge_count(order)];
+        for j in 0..order {
+            for i in 0..j {
+                orbit_of_edge[edge_index(i, j)] = (j - i - 1) as u32;
+            }
+        }
+        Self::checked(EdgeOrbits {
+            kind: FamilyKind::Distance,
+            order,
+            orbit_of_edge,
+            orbit_count: order.saturating_sub(1),
+            // Translating a clique down to vertex 0 keeps every distance.
+            anchors: vec![(0, (1..order).collect())],
+        })
+    }
+
     /// Colourings invariant under the vertex permutation with these cycles
     /// (vertices 0..l₁ the first cycle, and so on; [`VertexCycles`]).
     pub fn invariant_under(cycles: &VertexCycles) -> Result<Self, FamilyError> {
@@ -387,8 +415,21 @@ impl EdgeOrbits {
 
     /// Human-readable description of a colouring in this family: for Cayley
     /// colourings the group elements (differences) of each colour, one of each pair
-    /// ±g ("colour 1: distances {1,2,4,8}" for circulants, coordinates otherwise).
+    /// ±g ("colour 1: distances {1,2,4,8}" for circulants, coordinates otherwise);
+    /// for distance colourings the distances of each colour.
     pub fn describe(&self, orbit_colours: &[u8], colours: usize) -> String {
+        if self.kind == FamilyKind::Distance {
+            let parts: Vec<String> = (1..=colours as u8)
+                .map(|c| {
+                    let members: Vec<String> = (1..self.order)
+                        .filter(|&d| orbit_colours[d - 1] == c)
+                        .map(|d| d.to_string())
+                        .collect();
+                    format!("colour {c}: distances {{{}}}", members.join(","))
+                })
+                .collect();
+            return parts.join("; ");
+        }
         let FamilyKind::Cayley(group) = &self.kind else {
             return format!("{} orbits", self.orbit_count);
         };
@@ -529,5 +570,28 @@ mod tests {
         let exoo_shape = EdgeOrbits::invariant_under(&"4x8,2".parse().unwrap()).unwrap();
         assert_eq!(exoo_shape.orbit_count, 145);
         assert!(EdgeOrbits::invariant_under(&"1x40".parse().unwrap()).is_err());
+    }
+
+    #[test]
+    fn distance_classes_hold_the_circulants() {
+        let orbits = EdgeOrbits::distance(17).unwrap();
+        assert_eq!(orbits.orbit_count, 16);
+        let of = |i, j| orbits.orbit_of_edge[edge_index(i, j)];
+        assert_eq!(of(0, 3), of(5, 8));
+        // Distance 3 and 14 are apart here (on a line), together for circulants.
+        assert_ne!(of(0, 3), of(0, 14));
+        let circulant = EdgeOrbits::circulant(17).unwrap();
+        for e in 0..edge_count(17) {
+            for f in 0..edge_count(17) {
+                if orbits.orbit_of_edge[e] == orbits.orbit_of_edge[f] {
+                    assert_eq!(circulant.orbit_of_edge[e], circulant.orbit_of_edge[f]);
+                }
+            }
+        }
+        let colours: Vec<u8> = (1..17).map(|d| if d % 2 == 0 { 1 } else { 2 }).collect();
+        assert_eq!(
+            EdgeOrbits::distance(5).unwrap().describe(&colours[..4], 2),
+            "colour 1: distances {2,4}; colour 2: distances {1,3}"
+        );
     }
 }

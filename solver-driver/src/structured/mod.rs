@@ -49,6 +49,8 @@ pub enum FamilyChoice {
     /// vertices 1..=[`MAX_FIXED`] and of blocks 1..=[`MAX_FIXED_BLOCKS`] that fits
     /// the order, within [`families::MAX_ORBITS`] orbits.
     FixedVertices,
+    /// Distance colourings: the colour of {i, j} depends on |i − j| only.
+    Distance,
     /// Colourings invariant under a vertex permutation given by its cycles, for
     /// each permutation in turn.
     Automorphism(Vec<crate::local::VertexCycles>),
@@ -70,6 +72,7 @@ impl fmt::Display for FamilyChoice {
                 write!(f, "block-circulant {b}, {x} fixed")
             }
             FamilyChoice::FixedVertices => f.write_str("fixed-vertices"),
+            FamilyChoice::Distance => f.write_str("distance"),
             FamilyChoice::Automorphism(all) => {
                 let names: Vec<String> = all.iter().map(|c| c.to_string()).collect();
                 write!(f, "automorphism {}", names.join(" / "))
@@ -82,16 +85,18 @@ impl fmt::Display for FamilyChoice {
 impl FromStr for FamilyChoice {
     type Err = String;
 
-    /// `circulant`, `cayley`, `block-circulant`, `structured`.
+    /// `circulant`, `cayley`, `block-circulant`, `fixed-vertices`, `distance`,
+    /// `structured`.
     fn from_str(text: &str) -> Result<Self, String> {
         match text {
             "circulant" => Ok(FamilyChoice::Circulant),
             "cayley" => Ok(FamilyChoice::Cayley(None)),
             "block-circulant" => Ok(FamilyChoice::BlockCirculant(None, 0)),
             "fixed-vertices" => Ok(FamilyChoice::FixedVertices),
+            "distance" => Ok(FamilyChoice::Distance),
             "structured" => Ok(FamilyChoice::All),
             other => Err(format!(
-                "family {other:?}: expected circulant, cayley, block-circulant, fixed-vertices or structured"
+                "family {other:?}: expected circulant, cayley, block-circulant, fixed-vertices, distance or structured"
             )),
         }
     }
@@ -140,6 +145,7 @@ impl FamilyChoice {
                     }
                 }
             }
+            FamilyChoice::Distance => out.push(EdgeOrbits::distance(order)?),
             FamilyChoice::Automorphism(all) => {
                 for cycles in all {
                     if cycles.order() != order {

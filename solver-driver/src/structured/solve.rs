@@ -261,32 +261,53 @@ mod tests {
             proptest::prop_assume!(cycles.order() >= 3);
             let orbits = EdgeOrbits::invariant_under(&cycles).unwrap();
             proptest::prop_assume!(orbits.orbit_count <= 12);
-            let spec = RamseySpec::cliques(&sizes).unwrap();
-            let r = sizes.len();
-            let mut exists = false;
-            let mut colours = vec![1u8; orbits.orbit_count];
-            'all: loop {
-                if verify_witness(&spec, &orbits.expand(&colours, r)).is_valid() {
-                    exists = true;
-                    break;
-                }
-                for slot in colours.iter_mut() {
-                    if (*slot as usize) < r {
-                        *slot += 1;
-                        continue 'all;
-                    }
-                    *slot = 1;
-                }
+            agrees_with_trying_every_orbit_colouring(&orbits, &sizes)?;
+        }
+
+        /// The same for distance colourings, where no group acts and the
+        /// formula's exactness rests on translating cliques.
+        #[test]
+        fn distance_families_agree_with_trying_every_orbit_colouring(
+            order in 3usize..=12,
+            sizes in proptest::sample::select(vec![vec![3, 3], vec![3, 4], vec![4, 4], vec![3, 3, 3]]),
+        ) {
+            let orbits = EdgeOrbits::distance(order).unwrap();
+            agrees_with_trying_every_orbit_colouring(&orbits, &sizes)?;
+        }
+    }
+
+    /// SAT over the orbit formula finds a colouring of the family exactly when
+    /// one of its orbit colourings passes the checker's code.
+    fn agrees_with_trying_every_orbit_colouring(
+        orbits: &EdgeOrbits,
+        sizes: &[usize],
+    ) -> Result<(), proptest::test_runner::TestCaseError> {
+        let spec = RamseySpec::cliques(sizes).unwrap();
+        let r = sizes.len();
+        let mut exists = false;
+        let mut colours = vec![1u8; orbits.orbit_count];
+        'all: loop {
+            if verify_witness(&spec, &orbits.expand(&colours, r)).is_valid() {
+                exists = true;
                 break;
             }
-            let outcome = run(&orbits, &sizes);
-            proptest::prop_assert_eq!(
-                matches!(outcome, FamilyOutcome::Found { .. }),
-                exists,
-                "{}: {:?}",
-                cycles,
-                outcome
-            );
+            for slot in colours.iter_mut() {
+                if (*slot as usize) < r {
+                    *slot += 1;
+                    continue 'all;
+                }
+                *slot = 1;
+            }
+            break;
         }
+        let outcome = run(orbits, sizes);
+        proptest::prop_assert_eq!(
+            matches!(outcome, FamilyOutcome::Found { .. }),
+            exists,
+            "{}: {:?}",
+            orbits.kind,
+            outcome
+        );
+        Ok(())
     }
 }
