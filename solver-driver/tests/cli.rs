@@ -4,7 +4,7 @@ use std::path::Path;
 use std::process::{Command, Output};
 
 use ramsift_checker::check_colouring;
-use ramsift_checker::colouring_file::parse_colouring_file;
+use ramsift_checker::colouring_file::{parse_colouring_file, ColouringFile};
 use ramsift_checker::graph6::decode_graph6_file;
 
 fn ramsift(args: &[&str]) -> Output {
@@ -22,6 +22,24 @@ fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()
 }
 
+/// A colouring file's text, parsed, and passed by the checker's code.
+fn checked_colouring(name: &str, text: &str) -> ColouringFile {
+    let file = parse_colouring_file(name, text).unwrap();
+    assert!(
+        check_colouring(&file.matrix, &file.claim).is_valid(),
+        "{name}"
+    );
+    file
+}
+
+/// The colouring file at `path`, parsed, and passed by the checker's code.
+fn checked_witness(path: &Path) -> ColouringFile {
+    checked_colouring(
+        &path.display().to_string(),
+        &std::fs::read_to_string(path).unwrap(),
+    )
+}
+
 #[test]
 fn find_reports_found_with_exit_10_and_writes_checkable_files() {
     let dir = tempfile::tempdir().unwrap();
@@ -31,9 +49,8 @@ fn find_reports_found_with_exit_10_and_writes_checkable_files() {
     assert!(stdout(&o).contains("R(3,5) > 13"));
     // R(3,5) = 14 (Greenwood & Gleason 1955; Radziszowski DS1): the witness must check.
     let path = out.join("witness.colouring");
-    let file = parse_colouring_file("w", &std::fs::read_to_string(&path).unwrap()).unwrap();
+    let file = checked_witness(&path);
     assert_eq!(file.claim.clique_sizes(), Some(vec![3, 5]));
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
     let graphs =
         decode_graph6_file("g", &std::fs::read(out.join("witness-colour1.g6")).unwrap()).unwrap();
     assert_eq!(graphs[0], file.matrix);
@@ -70,8 +87,7 @@ fn three_colour_search_prints_the_matrix() {
     assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
     let text = stdout(&o);
     let body = &text[text.find("ramsift-colouring").unwrap()..];
-    let file = parse_colouring_file("stdout", body).unwrap();
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    checked_colouring("stdout", body);
 }
 
 #[test]
@@ -464,12 +480,7 @@ fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
             .is_some_and(|s| s.contains("edge orbits of an automorphism with cycles 8x3")),
         "{summary}"
     );
-    let file = parse_colouring_file(
-        "w",
-        &std::fs::read_to_string(out.join("witness.colouring")).unwrap(),
-    )
-    .unwrap();
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    let file = checked_witness(&out.join("witness.colouring"));
     // Invariant under v -> v + 1 within each block of 8 vertices.
     let sigma = |v: usize| v / 8 * 8 + (v % 8 + 1) % 8;
     for u in 0..24 {
@@ -533,8 +544,7 @@ fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
         "-q",
     ]);
     assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
-    let file = parse_colouring_file("stdout", &stdout(&o)).unwrap();
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    checked_colouring("stdout", &stdout(&o));
     assert!(
         stdout(&o).contains("invariant under cycles 8x2,1"),
         "{}",
@@ -627,12 +637,7 @@ fn distance_colourings_reach_the_paley_order() {
         .map(|o| o["result"].as_str().unwrap())
         .collect();
     assert_eq!(verdicts, ["found", "found", "none"]);
-    let file = parse_colouring_file(
-        "w",
-        &std::fs::read_to_string(out.join("order-17/witness.colouring")).unwrap(),
-    )
-    .unwrap();
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    let file = checked_witness(&out.join("order-17/witness.colouring"));
     // The colour of {i, j} depends on |i - j| only.
     for j in 1..17 {
         for i in 0..j {
@@ -668,12 +673,7 @@ fn scan_reports_every_order_and_writes_witnesses() {
         .collect();
     assert_eq!(verdicts[1..], ["found", "none"]);
     assert_eq!(summary["largest_found"], 13);
-    let file = parse_colouring_file(
-        "w",
-        &std::fs::read_to_string(out.join("order-13/witness.colouring")).unwrap(),
-    )
-    .unwrap();
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
+    checked_witness(&out.join("order-13/witness.colouring"));
     assert!(out.join("scan.json").exists());
 }
 
@@ -766,13 +766,8 @@ fn forbidden_graphs_work_end_to_end_and_bad_ones_are_refused() {
     let out = dir.path().join("w");
     let o = ramsift(&["find", "C4,C4", "5", "--out", out.to_str().unwrap(), "-q"]);
     assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
-    let file = parse_colouring_file(
-        "w",
-        &std::fs::read_to_string(out.join("witness.colouring")).unwrap(),
-    )
-    .unwrap();
+    let file = checked_witness(&out.join("witness.colouring"));
     assert_eq!(file.claim.to_string(), "C4,C4");
-    assert!(check_colouring(&file.matrix, &file.claim).is_valid());
     assert_eq!(
         ramsift(&["find", "C4,C4", "6", "-q"]).status.code(),
         Some(20)
