@@ -21,7 +21,7 @@ use super::weighting::{weighted_step, CliqueWeights};
 use crate::certify::witness_check::verify_witness;
 use crate::search::first_answer::worker_pool;
 use crate::search::job::SearchError;
-use crate::structured::FamilyError;
+use crate::structured::families::cycles_fit;
 
 /// Which move rule.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -144,20 +144,16 @@ pub fn local_search(
             max: MAX_LOCAL_ORDER,
         });
     }
+    if !options.automorphisms.is_empty()
+        && !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused)
+    {
+        return Err(SearchError::AutomorphismRule {
+            rule: options.method.to_string(),
+        });
+    }
     let mut orbits = Vec::new();
     for cycles in &options.automorphisms {
-        if cycles.order() != order {
-            return Err(SearchError::Family(FamilyError::CyclesOrder {
-                cycles: cycles.to_string(),
-                moved: cycles.order(),
-                order,
-            }));
-        }
-        if !matches!(options.method, LocalMethod::Tabu | LocalMethod::Focused) {
-            return Err(SearchError::AutomorphismRule {
-                rule: options.method.to_string(),
-            });
-        }
+        cycles_fit(cycles, order)?;
         orbits.push(EdgeOrbitMoves::new(cycles));
     }
     let patterns = Pattern::for_spec(spec);

@@ -212,6 +212,19 @@ impl FromStr for AbelianGroup {
     }
 }
 
+/// `Ok` when `cycles` permute exactly the vertices of K_order.
+pub fn cycles_fit(cycles: &VertexCycles, order: usize) -> Result<(), FamilyError> {
+    if cycles.order() == order {
+        Ok(())
+    } else {
+        Err(FamilyError::CyclesOrder {
+            cycles: cycles.to_string(),
+            moved: cycles.order(),
+            order,
+        })
+    }
+}
+
 /// Which kind of structured colouring.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum FamilyKind {
@@ -418,22 +431,13 @@ impl EdgeOrbits {
     /// ±g ("colour 1: distances {1,2,4,8}" for circulants, coordinates otherwise);
     /// for distance colourings the distances of each colour.
     pub fn describe(&self, orbit_colours: &[u8], colours: usize) -> String {
-        if self.kind == FamilyKind::Distance {
-            let parts: Vec<String> = (1..=colours as u8)
-                .map(|c| {
-                    let members: Vec<String> = (1..self.order)
-                        .filter(|&d| orbit_colours[d - 1] == c)
-                        .map(|d| d.to_string())
-                        .collect();
-                    format!("colour {c}: distances {{{}}}", members.join(","))
-                })
-                .collect();
-            return parts.join("; ");
-        }
-        let FamilyKind::Cayley(group) = &self.kind else {
-            return format!("{} orbits", self.orbit_count);
+        // The edges {0, g} meet every orbit of these families; g names its orbit,
+        // as a distance, or by its coordinates in a product of cyclic groups.
+        let coordinates = match &self.kind {
+            FamilyKind::Cayley(group) if group.factors().len() > 1 => Some(group),
+            FamilyKind::Cayley(_) | FamilyKind::Distance => None,
+            _ => return format!("{} orbits", self.orbit_count),
         };
-        let cyclic = group.factors().len() == 1;
         let mut parts = Vec::new();
         for c in 1..=colours as u8 {
             let mut seen = vec![false; self.orbit_count];
@@ -442,16 +446,21 @@ impl EdgeOrbits {
                 let orbit = self.orbit_of_edge[edge_index(0, g)] as usize;
                 if orbit_colours[orbit] == c && !seen[orbit] {
                     seen[orbit] = true;
-                    members.push(if cyclic {
-                        g.to_string()
-                    } else {
-                        let coords: Vec<String> =
-                            group.coordinates(g).iter().map(|x| x.to_string()).collect();
-                        format!("({})", coords.join(","))
+                    members.push(match coordinates {
+                        None => g.to_string(),
+                        Some(group) => {
+                            let coords: Vec<String> =
+                                group.coordinates(g).iter().map(|x| x.to_string()).collect();
+                            format!("({})", coords.join(","))
+                        }
                     });
                 }
             }
-            let noun = if cyclic { "distances" } else { "differences" };
+            let noun = if coordinates.is_some() {
+                "differences"
+            } else {
+                "distances"
+            };
             parts.push(format!("colour {c}: {noun} {{{}}}", members.join(",")));
         }
         parts.join("; ")

@@ -148,13 +148,7 @@ impl FamilyChoice {
             FamilyChoice::Distance => out.push(EdgeOrbits::distance(order)?),
             FamilyChoice::Automorphism(all) => {
                 for cycles in all {
-                    if cycles.order() != order {
-                        return Err(FamilyError::CyclesOrder {
-                            cycles: cycles.to_string(),
-                            moved: cycles.order(),
-                            order,
-                        });
-                    }
+                    families::cycles_fit(cycles, order)?;
                     out.push(EdgeOrbits::invariant_under(cycles)?);
                 }
             }
