@@ -588,10 +588,10 @@ fn find_by_local_search(
     );
     let symmetry = match local_options.automorphisms.as_slice() {
         [] => String::new(),
-        all => {
-            let names: Vec<String> = all.iter().map(|c| c.to_string()).collect();
-            format!(" over the edge orbits of cycles {}", names.join(" / "))
-        }
+        all => format!(
+            " over the edge orbits of cycles {}",
+            VertexCycles::list(all)
+        ),
     };
     let report =
         line.run_while(

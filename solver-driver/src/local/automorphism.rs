@@ -62,6 +62,12 @@ impl VertexCycles {
         &self.lengths
     }
 
+    /// Several permutations for messages: `4x8,2 / 2x16,1,1`.
+    pub fn list(all: &[VertexCycles]) -> String {
+        let names: Vec<String> = all.iter().map(VertexCycles::to_string).collect();
+        names.join(" / ")
+    }
+
     /// σ as an array: `permutation()[v]` is the image of v.
     pub fn permutation(&self) -> Vec<usize> {
         let mut image = Vec::with_capacity(self.order());

@@ -74,8 +74,7 @@ impl fmt::Display for FamilyChoice {
             FamilyChoice::FixedVertices => f.write_str("fixed-vertices"),
             FamilyChoice::Distance => f.write_str("distance"),
             FamilyChoice::Automorphism(all) => {
-                let names: Vec<String> = all.iter().map(|c| c.to_string()).collect();
-                write!(f, "automorphism {}", names.join(" / "))
+                write!(f, "automorphism {}", crate::local::VertexCycles::list(all))
             }
             FamilyChoice::All => f.write_str("structured"),
         }
