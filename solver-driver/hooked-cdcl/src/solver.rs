@@ -60,6 +60,8 @@ pub struct Solver<'p> {
     reason: Vec<ClauseRef>,
     /// Saved phases: the polarity (negated or not) of each variable's last value.
     phase: Vec<bool>,
+    /// Phases set by [`Solver::anchor`], restored at every restart.
+    anchor: Option<Vec<bool>>,
     trail: Vec<Lit>,
     trail_limits: Vec<usize>,
     propagated: usize,
@@ -90,6 +92,7 @@ impl<'p> Solver<'p> {
             level: Vec::new(),
             reason: Vec::new(),
             phase: Vec::new(),
+            anchor: None,
             trail: Vec::new(),
             trail_limits: Vec::new(),
             propagated: 0,
@@ -140,6 +143,31 @@ impl<'p> Solver<'p> {
 
     fn decision_level(&self) -> u32 {
         self.trail_limits.len() as u32
+    }
+
+    /// Anchors the search at a (partial) assignment, given as DIMACS literals:
+    /// each literal's value is the one first tried for its variable, and every
+    /// restart sets the saved phases back to them, so the search keeps returning
+    /// to this assignment (a near-solution, say) and explores around it. The
+    /// search stays complete: phases choose an order, never a clause.
+    pub fn anchor(&mut self, literals: &[i32]) {
+        let mut anchored = self.phase.clone();
+        for &lit in literals {
+            let var = lit.unsigned_abs() as usize;
+            assert!(
+                (1..=self.variables()).contains(&var),
+                "variable {var} not reserved"
+            );
+            anchored[var - 1] = lit < 0;
+        }
+        self.phase.copy_from_slice(&anchored);
+        self.anchor = Some(anchored);
+    }
+
+    fn restore_anchor(&mut self) {
+        if let Some(anchor) = &self.anchor {
+            self.phase[..anchor.len()].copy_from_slice(anchor);
+        }
     }
 
     /// The value of 1-based `var` in the last model (or the current assignment).
@@ -537,6 +565,7 @@ impl<'p> Solver<'p> {
         deadline: Option<Instant>,
     ) -> Outcome {
         self.backtrack(0);
+        self.restore_anchor();
         let mut restarts = 0u32;
         let mut restart_budget = luby(restarts) * RESTART_UNIT;
         let mut since_restart = 0u64;
@@ -593,6 +622,7 @@ impl<'p> Solver<'p> {
                 self.stats.restarts += 1;
                 restart_budget = luby(restarts) * RESTART_UNIT;
                 since_restart = 0;
+                self.restore_anchor();
             }
             if self.stats.conflicts >= self.next_reduce {
                 self.reduce_step += REDUCE_GROWTH;
