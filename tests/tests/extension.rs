@@ -187,7 +187,7 @@ fn a_circulant_4_5_colouring_less_a_vertex_extends_again_from_the_command_line()
 
 #[test]
 fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
-    use ramsift_driver::search::repair::{monochromatic_cliques, repair, Repair};
+    use ramsift_driver::search::repair::{monochromatic_cliques, repair, Repair, RepairStage};
     // The Paley colouring of order 17 is the unique (4,4;17) colouring (DS1); every
     // single recoloured edge gives monochromatic K4s (the Paley test in this crate).
     let paley = ramsift_tests::constructions::paley(17);
@@ -204,18 +204,72 @@ fn repair_mends_a_damaged_paley_colouring_and_knows_when_nothing_can() {
     match repair(&paley_formula, &near, &AtomicBool::new(false), None).unwrap() {
         Repair::Repaired(
             ramsift_driver::search::job::SearchResult::Found { colouring, .. },
-            radius,
+            stage,
         ) => {
-            assert_eq!(radius, 0, "freeing the damaged cliques' edges suffices");
+            assert_eq!(
+                stage,
+                RepairStage::CopyEdges,
+                "freeing the damaged cliques' edges suffices"
+            );
             assert!(monochromatic_cliques(&spec, &colouring).is_empty());
         }
         other => panic!("not repaired: {other:?}"),
     }
-    // At R(3,3) = 6 nothing can be repaired: the last radius is the whole formula.
+    // At R(3,3) = 6 nothing can be repaired: the anchored stage is the whole formula.
     let (small, _) = formula(&[3, 3], 6);
     let any = Colouring::from_fn(6, 2, |_, _| 1);
     assert!(matches!(
         repair(&small, &any, &AtomicBool::new(false), None).unwrap(),
         Repair::None
     ));
+}
+
+#[test]
+fn exoo_block_construction_is_a_4_6_34_near_solution_and_his_recolouring_completes_it() {
+    use ramsift_driver::search::repair::monochromatic_cliques;
+    use ramsift_tests::constructions::{exoo_4_6_34_blocks, EXOO_4_6_34_RECOLOURED};
+    let spec = RamseySpec::cliques(&[4, 6]).unwrap();
+    let blocks = exoo_4_6_34_blocks();
+    // Exoo's page: "exactly 2 monochromatic K4's in color zero and no K6's".
+    let copies = monochromatic_cliques(&spec, &blocks);
+    assert_eq!(copies.len(), 2, "{copies:?}");
+    assert!(copies
+        .iter()
+        .all(|(colour, s)| *colour == 1 && s.len() == 4));
+    assert!(!verify_witness(&spec, &blocks).is_valid());
+    // Invariant under 2i <-> 2i+1, as every block is.
+    for j in 0..34 {
+        for i in 0..j {
+            assert_eq!(blocks.colour(i, j), blocks.colour(i ^ 1, j ^ 1), "{i}-{j}");
+        }
+    }
+    let mut recoloured = blocks.clone();
+    for (i, j) in EXOO_4_6_34_RECOLOURED {
+        recoloured.set(i, j, 3 - blocks.colour(i, j));
+    }
+    assert!(verify_witness(&spec, &recoloured).is_valid());
+}
+
+#[test]
+fn anchored_repair_completes_exoo_near_solution_without_being_told_the_edges() {
+    use ramsift_driver::search::repair::{repair, Repair, RepairStage};
+    use ramsift_tests::constructions::exoo_4_6_34_blocks;
+    // The block colouring has two monochromatic K4s (Exoo's page, checked in the
+    // test above); no colouring differs from it on their edges alone, and a
+    // repair exists (Exoo recolours 11 edges, most of them away from the K4s).
+    let (formula, spec) = formula(&[4, 6], 34);
+    let near = exoo_4_6_34_blocks();
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(600);
+    match repair(&formula, &near, &AtomicBool::new(false), Some(deadline)).unwrap() {
+        Repair::Repaired(SearchResult::Found { colouring, .. }, stage) => {
+            assert_eq!(stage, RepairStage::Anchored);
+            assert!(verify_witness(&spec, &colouring).is_valid());
+            let changed = (0..34)
+                .flat_map(|j| (0..j).map(move |i| (i, j)))
+                .filter(|&(i, j)| colouring.colour(i, j) != near.colour(i, j))
+                .count();
+            assert!(changed > 0 && changed < 100, "{changed} edges changed");
+        }
+        other => panic!("not repaired: {other:?}"),
+    }
 }

@@ -164,10 +164,10 @@ fn local_search_finds_a_witness_below_each_graph_value() {
 
 #[test]
 fn repair_mends_a_damaged_graph_colouring() {
-    use ramsift_driver::search::repair::{repair, Repair};
+    use ramsift_driver::search::repair::{repair, Repair, RepairStage};
     // A (C4,K4;9) colouring (R(C4,K4) = 10, Chvátal & Harary 1972; DS1, from memory)
     // found by the SAT search, then damaged on one edge at a time until it has a
-    // monochromatic copy; repair at radius 0 or 1 must mend it.
+    // monochromatic copy; freeing the copies' edges must mend it.
     let below = instance("C4,4", 9);
     let encoding = RamseyEncoding::new(&below, &EncodingLimits::default()).unwrap();
     let formula = Formula::from_encoding(&encoding);
@@ -195,8 +195,8 @@ fn repair_mends_a_damaged_graph_colouring() {
     }
     assert!(!ramsift_checker::check_colouring(&to_matrix(&near), &claim).is_valid());
     match repair(&formula, &near, &AtomicBool::new(false), None).unwrap() {
-        Repair::Repaired(SearchResult::Found { colouring, .. }, radius) => {
-            assert!(radius <= 1, "radius {radius}");
+        Repair::Repaired(SearchResult::Found { colouring, .. }, stage) => {
+            assert_eq!(stage, RepairStage::CopyEdges);
             assert!(ramsift_checker::check_colouring(&to_matrix(&colouring), &claim).is_valid());
         }
         other => panic!("not repaired: {other:?}"),

@@ -78,8 +78,9 @@ pub struct FindArgs {
     #[arg(long, value_name = "COUNT", default_value_t = 0, requires = "from")]
     pub free: usize,
     /// Repair this near-solution of K_N by SAT: free the edges of its remaining
-    /// monochromatic forbidden copies, then every edge at their vertices, then all
-    /// edges, until a colouring is found (e.g. local search's near-solution).
+    /// monochromatic forbidden copies; failing that, search the whole formula with
+    /// CDCL anchored at the near-solution (every descent starts from it), until a
+    /// colouring is found or none exists (e.g. local search's near-solution).
     #[arg(long, value_name = "FILE")]
     pub repair: Option<PathBuf>,
     /// Worker threads (default: all cores).
@@ -266,7 +267,7 @@ fn find_by_repair(args: &FindArgs, near_file: &Path, job: &SearchJob) -> Result<
         job.deadline_from(started),
     )? {
         Repair::Repaired(result, _) => result,
-        // The last radius is the whole plain formula: none exists at all.
+        // The anchored stage searches the whole plain formula: none exists at all.
         Repair::None => SearchResult::NoneExists,
         Repair::Stopped => SearchResult::Unknown,
     };

@@ -11,9 +11,11 @@
 //! * [`first_answer`] collects the first answer of parallel workers, whatever the
 //!   backend; [`portfolio`] is the parallel SAT search; [`hybrid`] combines
 //!   structured families, local search and SAT (the default of `ramsift find`).
-//! * [`extension`] and [`repair`] solve for part of a given colouring.
+//! * [`extension`] and [`repair`] solve for part of a given colouring;
+//!   [`anchored`] searches the whole formula starting from a given colouring.
 //! * [`backends`] holds the optional second solver.
 
+pub mod anchored;
 pub mod attempt;
 pub mod backends;
 pub mod extension;

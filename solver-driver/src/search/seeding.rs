@@ -173,19 +173,12 @@ pub fn extension_seed(base: &Colouring) -> Seed {
     Seed::from_colouring(SeedKind::Extension, base, |_, _| true)
 }
 
-/// The edges of a near-solution kept at repair radius `radius` around its `bad`
-/// edges (those in a monochromatic forbidden copy, i < j): radius 0 frees the bad
-/// edges, 1 every edge at one of their endpoints, 2 and above every edge.
-pub fn repair_seed(near: &Colouring, bad: &[(usize, usize)], radius: usize) -> Seed {
-    let mut touched = vec![false; near.order()];
-    bad.iter()
-        .for_each(|&(i, j)| (touched[i], touched[j]) = (true, true));
-    let free = |i: usize, j: usize| match radius {
-        0 => bad.contains(&(i.min(j), i.max(j))),
-        1 => touched[i] || touched[j],
-        _ => true,
-    };
-    Seed::from_colouring(SeedKind::NearSolution, near, |i, j| !free(i, j))
+/// The edges of a near-solution that repair keeps: all but its `bad` edges (those
+/// in a monochromatic forbidden copy, i < j).
+pub fn repair_seed(near: &Colouring, bad: &[(usize, usize)]) -> Seed {
+    Seed::from_colouring(SeedKind::NearSolution, near, |i, j| {
+        !bad.contains(&(i.min(j), i.max(j)))
+    })
 }
 
 /// Seeds from a near-solution: every edge in no monochromatic forbidden copy
