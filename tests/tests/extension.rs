@@ -268,7 +268,8 @@ fn anchored_repair_completes_exoo_near_solution_without_being_told_the_edges() {
                 .flat_map(|j| (0..j).map(move |i| (i, j)))
                 .filter(|&(i, j)| colouring.colour(i, j) != near.colour(i, j))
                 .count();
-            assert!(changed > 0 && changed < 100, "{changed} edges changed");
+            // Exoo recolours 11 edges; the anchored search stays as near (9 when written).
+            assert!(changed > 0 && changed <= 20, "{changed} edges changed");
         }
         other => panic!("not repaired: {other:?}"),
     }
