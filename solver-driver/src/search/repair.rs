@@ -117,3 +117,48 @@ pub fn repair(
         AnchoredOutcome::Stopped => Repair::Stopped,
     })
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use proptest::prelude::*;
+    use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding};
+
+    fn formula(sizes: &[usize], n: usize) -> Formula {
+        let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
+        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
+    }
+
+    fn colouring_from_bits(n: usize, bits: u64) -> Colouring {
+        let mut k = 0;
+        Colouring::from_fn(n, 2, |_, _| {
+            k += 1;
+            1 + ((bits >> (k - 1)) & 1) as u8
+        })
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(48))]
+
+        /// Repair is complete: from any colouring of K8 it finds a (3,4;8)
+        /// colouring, which exists, and from any colouring of K9 it answers that
+        /// none exists (R(3,4) = 9, Greenwood & Gleason 1955; DS1).
+        #[test]
+        fn repair_answers_from_any_start(bits in any::<u64>()) {
+            let stop = AtomicBool::new(false);
+            let spec = RamseySpec::cliques(&[3, 4]).unwrap();
+            let near = colouring_from_bits(8, bits);
+            match repair(&formula(&[3, 4], 8), &near, &stop, None).unwrap() {
+                Repair::Repaired(SearchResult::Found { colouring, .. }, _) => {
+                    prop_assert!(monochromatic_cliques(&spec, &colouring).is_empty());
+                }
+                other => prop_assert!(false, "not repaired: {:?}", other),
+            }
+            let near = colouring_from_bits(9, bits.rotate_left(7) ^ bits);
+            prop_assert!(matches!(
+                repair(&formula(&[3, 4], 9), &near, &stop, None).unwrap(),
+                Repair::None
+            ));
+        }
+    }
+}
