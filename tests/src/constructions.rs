@@ -27,8 +27,8 @@ pub fn paley(p: usize) -> Colouring {
     circulant(p, &quadratic_residues(p))
 }
 
-/// Exoo's two-stage construction of a (4,6;34) colouring ("R(4,6) > 34", Geoffrey
-/// Exoo's Ramsey construction pages, Indiana State University): 2×2 blocks
+/// Exoo's two-stage construction of a (4,6;34) colouring (Geoffrey Exoo's Ramsey
+/// construction pages, Indiana State University, ginger.indstate.edu/ge/RAMSEY/r.4.6.html): 2×2 blocks
 /// A = [0 0; 0 0], B = [1 0; 0 1], C = [0 1; 1 0], D = [1 1; 1 1] fill a 17×17
 /// block array (upper triangle below, row by row, the diagonal block first) to give
 /// a colouring of K34 with exactly two monochromatic K4s in colour 0 and no K6 in
