@@ -16,9 +16,9 @@ use std::time::Instant;
 use ramsift_cdcl::{NoHook, Outcome, Solver, SolverStats};
 use ramsift_encoder::Colouring;
 
+use crate::minimality::solve::model_colouring;
 use crate::search::formula::Formula;
 use crate::search::interrupt::stop_requested;
-use crate::search::seeding::{Seed, SeedKind};
 
 /// How an anchored search ended.
 #[derive(Clone, Debug)]
@@ -39,7 +39,10 @@ pub fn anchored_search(
     deadline: Option<Instant>,
 ) -> (AnchoredOutcome, SolverStats) {
     let vars = formula.variables();
-    let literals = Seed::from_colouring(SeedKind::NearSolution, anchor, |_, _| true).units(vars);
+    let literals: Vec<i32> = (1..)
+        .zip(vars.assignment_of(anchor))
+        .map(|(var, value)| if value { var } else { -var })
+        .collect();
     let mut solver = Solver::new();
     solver.reserve_variables(formula.variable_count());
     for clause in formula.clauses() {
@@ -49,9 +52,7 @@ pub fn anchored_search(
     }
     solver.anchor(&literals);
     let outcome = match solver.solve(&mut NoHook, &|| stop_requested(stop), deadline) {
-        Outcome::Satisfiable => {
-            AnchoredOutcome::Satisfiable(vars.decode(|v| solver.model_value(v) == Some(true)))
-        }
+        Outcome::Satisfiable => AnchoredOutcome::Satisfiable(model_colouring(&solver, vars)),
         Outcome::Unsatisfiable => AnchoredOutcome::Unsatisfiable,
         Outcome::Interrupted => AnchoredOutcome::Stopped,
     };
