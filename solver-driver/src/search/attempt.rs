@@ -253,14 +253,8 @@ pub(crate) fn decode_model(solver: &Solver, formula: &Formula, plan: &AttemptPla
 #[cfg(test)]
 mod tests {
     use super::*;
-    use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec};
     use rand::SeedableRng;
     use rand_chacha::ChaCha8Rng;
-
-    fn formula(sizes: &[usize], n: usize) -> Formula {
-        let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
-        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
-    }
 
     fn run(formula: &Formula, plan: &AttemptPlan) -> AttemptOutcome {
         let stop = AtomicBool::new(false);
@@ -269,7 +263,7 @@ mod tests {
 
     #[test]
     fn renamed_models_decode_to_valid_colourings() {
-        let f = formula(&[3, 4], 8);
+        let f = Formula::of_cliques(&[3, 4], 8);
         let mut rng = ChaCha8Rng::seed_from_u64(7);
         for _ in 0..5 {
             let plan = AttemptPlan::shuffled(&f, &mut rng);
@@ -285,7 +279,7 @@ mod tests {
 
     #[test]
     fn units_are_respected_and_can_make_it_unsatisfiable() {
-        let f = formula(&[3, 3], 5);
+        let f = Formula::of_cliques(&[3, 3], 5);
         // Edges {0,1}, {0,2}, {1,2} all colour 1: a triangle, so no model.
         let plan = AttemptPlan {
             units: vec![1, 2, 3],
@@ -305,7 +299,7 @@ mod tests {
     #[test]
     fn stop_flag_ends_a_hard_solve() {
         // (4,4;18) without symmetry breaking is far beyond a fraction of a second.
-        let f = formula(&[4, 4], 18);
+        let f = Formula::of_cliques(&[4, 4], 18);
         let stop = AtomicBool::new(false);
         let deadline = Some(Instant::now() + Duration::from_millis(300));
         let report = run_attempt(&f, &AttemptPlan::default(), &stop, deadline).unwrap();

@@ -66,4 +66,12 @@ impl Formula {
     pub fn clauses(&self) -> impl Iterator<Item = &[i32]> {
         (0..self.clause_count()).map(move |i| self.clause(i))
     }
+
+    /// The plain formula of K_n for these clique sizes (for unit tests).
+    #[cfg(test)]
+    pub(crate) fn of_cliques(sizes: &[usize], n: usize) -> Self {
+        use ramsift_encoder::{EncodingLimits, RamseySpec};
+        let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
+        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
+    }
 }

@@ -145,12 +145,6 @@ fn nearest_vertex(core_edges: &[usize], freed: &[usize], old: usize) -> Option<u
 #[cfg(test)]
 mod tests {
     use super::*;
-    use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec};
-
-    fn formula(sizes: &[usize], n: usize) -> Formula {
-        let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
-        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
-    }
 
     #[test]
     fn the_vertex_met_most_by_the_core_goes_first() {
@@ -179,7 +173,7 @@ mod tests {
         // diagonal in colour 1 then, a colour-1 pair adjacent on the cycle. So no
         // extension, and freeing a vertex gives one (the pentagon).
         let c4 = Colouring::from_fn(4, 2, |i, j| if (j - i) % 2 == 1 { 1 } else { 2 });
-        let f = formula(&[3, 3], 5);
+        let f = Formula::of_cliques(&[3, 3], 5);
         let stop = AtomicBool::new(false);
         let Loosened::Extended { result, freed } =
             extend_loosened(&f, &c4, 2, 1, &stop, None).unwrap()
@@ -208,7 +202,7 @@ mod tests {
     #[test]
     fn at_the_ramsey_number_freeing_everything_still_gives_none() {
         // R(3,4) = 9 (DS1): no colouring of K9, whatever is freed.
-        let f = formula(&[3, 4], 9);
+        let f = Formula::of_cliques(&[3, 4], 9);
         let base = Colouring::from_fn(8, 2, |i, j| {
             if (j - i) % 8 == 1 || (j - i) % 8 == 7 {
                 1

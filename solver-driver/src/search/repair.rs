@@ -122,12 +122,6 @@ pub fn repair(
 mod tests {
     use super::*;
     use proptest::prelude::*;
-    use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding};
-
-    fn formula(sizes: &[usize], n: usize) -> Formula {
-        let instance = Instance::new(RamseySpec::cliques(sizes).unwrap(), n).unwrap();
-        Formula::from_encoding(&RamseyEncoding::new(&instance, &EncodingLimits::default()).unwrap())
-    }
 
     fn colouring_from_bits(n: usize, bits: u64) -> Colouring {
         let mut k = 0;
@@ -148,7 +142,7 @@ mod tests {
             let stop = AtomicBool::new(false);
             let spec = RamseySpec::cliques(&[3, 4]).unwrap();
             let near = colouring_from_bits(8, bits);
-            match repair(&formula(&[3, 4], 8), &near, &stop, None).unwrap() {
+            match repair(&Formula::of_cliques(&[3, 4], 8), &near, &stop, None).unwrap() {
                 Repair::Repaired(SearchResult::Found { colouring, .. }, _) => {
                     prop_assert!(monochromatic_cliques(&spec, &colouring).is_empty());
                 }
@@ -156,7 +150,7 @@ mod tests {
             }
             let near = colouring_from_bits(9, bits.rotate_left(7) ^ bits);
             prop_assert!(matches!(
-                repair(&formula(&[3, 4], 9), &near, &stop, None).unwrap(),
+                repair(&Formula::of_cliques(&[3, 4], 9), &near, &stop, None).unwrap(),
                 Repair::None
             ));
         }
