@@ -163,6 +163,16 @@ fn hook_axioms_enumerate_every_model() {
     }
 }
 
+/// The last model as DIMACS literals of variables 1..=vars.
+fn model_literals(solver: &Solver<'_>, vars: i32) -> Vec<i32> {
+    (1..=vars)
+        .map(|v| match solver.model_value(v as usize) {
+            Some(true) => v,
+            _ => -v,
+        })
+        .collect()
+}
+
 /// Anchoring changes only the order of the search: on the same formulas the
 /// anchored solver agrees with varisat (every refutation's trace checks), and
 /// anchored at one of its own models it returns that model without a conflict.
@@ -186,12 +196,7 @@ fn anchored_search_stays_complete_and_starts_at_its_anchor() {
             }
             solver.anchor(&anchor);
             let outcome = solver.solve(&mut NoHook, &|| false, None);
-            let model: Vec<i32> = (1..=vars)
-                .map(|v| match solver.model_value(v as usize) {
-                    Some(true) => v,
-                    _ => -v,
-                })
-                .collect();
+            let model = model_literals(&solver, vars);
             if outcome == Outcome::Satisfiable {
                 assert!(satisfies(&solver, &formula), "round {round}");
             }
@@ -213,12 +218,7 @@ fn anchored_search_stays_complete_and_starts_at_its_anchor() {
             solver.solve(&mut NoHook, &|| false, None),
             Outcome::Satisfiable
         );
-        let again: Vec<i32> = (1..=vars)
-            .map(|v| match solver.model_value(v as usize) {
-                Some(true) => v,
-                _ => -v,
-            })
-            .collect();
+        let again = model_literals(&solver, vars);
         assert_eq!(solver.stats().conflicts, 0, "round {round}");
         assert_eq!(again, model, "round {round}");
         returned_to_anchor += 1;
