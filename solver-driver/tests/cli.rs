@@ -495,36 +495,33 @@ fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
         }
     }
     // The cycles must cover the order, and go with local search.
-    let o = ramsift(&[
-        "find",
-        "4,5",
-        "24",
-        "--method",
-        "local",
-        "--automorphism",
-        "8x2",
-    ]);
-    assert_eq!(o.status.code(), Some(2), "{}", stderr(&o));
-    assert!(
-        stderr(&o).contains("move 16 vertices, but K_24 has 24"),
-        "{}",
-        stderr(&o)
+    assert_bad_input(
+        &[
+            "find",
+            "4,5",
+            "24",
+            "--method",
+            "local",
+            "--automorphism",
+            "8x2",
+        ],
+        "move 16 vertices, but K_24 has 24",
     );
-    let o = ramsift(&["find", "4,5", "24", "--automorphism", "8x3"]);
-    assert!(stderr(&o).contains("--automorphism goes with --method local or automorphism"));
-    let o = ramsift(&[
-        "find",
-        "4,5",
-        "24",
-        "--method",
-        "local",
-        "--automorphism",
-        "8x",
-    ]);
-    assert!(
-        stderr(&o).contains("expected a comma list of lengths"),
-        "{}",
-        stderr(&o)
+    assert_bad_input(
+        &["find", "4,5", "24", "--automorphism", "8x3"],
+        "--automorphism goes with --method local or automorphism",
+    );
+    assert_bad_input(
+        &[
+            "find",
+            "4,5",
+            "24",
+            "--method",
+            "local",
+            "--automorphism",
+            "8x",
+        ],
+        "expected a comma list of lengths",
     );
 }
 
@@ -598,11 +595,9 @@ fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
         "-q",
     ]);
     assert_eq!(o.status.code(), Some(1), "{}", stderr(&o));
-    let o = ramsift(&["find", "4,4", "17", "--method", "automorphism"]);
-    assert!(
-        stderr(&o).contains("--method automorphism needs --automorphism CYCLES"),
-        "{}",
-        stderr(&o)
+    assert_bad_input(
+        &["find", "4,4", "17", "--method", "automorphism"],
+        "--method automorphism needs --automorphism CYCLES",
     );
 }
 
