@@ -526,6 +526,41 @@ fn local_search_over_an_automorphisms_orbits_finds_an_invariant_colouring() {
 }
 
 #[test]
+fn local_search_over_every_involution_finds_the_paley_colouring() {
+    // R(4,4) = 18 (DS1); the one (4,4;17) colouring is Paley's, and x -> -x (-1 is
+    // a square mod 17) is an automorphism of it with eight 2-cycles and 0 fixed:
+    // among the shapes --involutions takes in turn.
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("found");
+    let o = ramsift(&[
+        "find",
+        "4,4",
+        "17",
+        "--method",
+        "local",
+        "--involutions",
+        "--threads",
+        "1",
+        "--json",
+        "--out",
+        out.to_str().unwrap(),
+        "-q",
+    ]);
+    assert_eq!(o.status.code(), Some(10), "{}", stderr(&o));
+    let summary: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+    let by = summary["found_by"].as_str().unwrap_or_default();
+    assert!(
+        by.contains("edge orbits of an automorphism with cycles 2x"),
+        "{by}"
+    );
+    checked_witness(&out.join("witness.colouring"));
+    assert_bad_input(
+        &["find", "4,4", "17", "--involutions"],
+        "--involutions goes with --method local",
+    );
+}
+
+#[test]
 fn exhaustive_search_among_the_colourings_with_a_prescribed_automorphism() {
     // R(4,4) = 18 (DS1). Paley's (4,4;17) colouring has the automorphism x -> 2x
     // (2 is a square mod 17), with two 8-cycles and the fixed vertex 0: the family

@@ -248,6 +248,25 @@ fn exoo_block_construction_is_a_4_6_34_near_solution_and_his_recolouring_complet
         recoloured.set(i, j, 3 - blocks.colour(i, j));
     }
     assert!(verify_witness(&spec, &recoloured).is_valid());
+    // The recoloured (4,6;34) colouring is itself invariant under an involution:
+    // thirteen 2-cycles with eight vertices fixed (found by an automorphism search
+    // of the published colouring in a throwaway probe; checked here). This is the
+    // shape `find --method local --involutions` takes among others.
+    let sigma: [usize; 34] = [
+        27, 26, 9, 8, 32, 33, 6, 7, 3, 2, 10, 11, 13, 12, 14, 15, 16, 17, 23, 22, 21, 20, 19, 18,
+        31, 30, 1, 0, 29, 28, 25, 24, 4, 5,
+    ];
+    assert!((0..34).all(|v| sigma[sigma[v]] == v));
+    assert_eq!((0..34).filter(|&v| sigma[v] == v).count(), 8);
+    for j in 0..34 {
+        for i in 0..j {
+            assert_eq!(
+                recoloured.colour(i, j),
+                recoloured.colour(sigma[i], sigma[j]),
+                "{i}-{j}"
+            );
+        }
+    }
 }
 
 #[test]

@@ -67,6 +67,11 @@ pub struct FindArgs {
     /// exhaustive search tries them one after the other.
     #[arg(long, value_name = "CYCLES")]
     pub automorphism: Vec<VertexCycles>,
+    /// With --method local: take every involution shape of K_N in turn beside any
+    /// --automorphism (p 2-cycles on vertices 0..2p, the other N − 2p vertices
+    /// fixed, for p from N/2 down to 1), one per restart.
+    #[arg(long)]
+    pub involutions: bool,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
     /// (a ramsift colouring file, or graph6 for two colours; - reads standard
     /// input). "None extends" concerns this colouring only.
@@ -367,6 +372,10 @@ pub fn run(args: &FindArgs) -> Result<u8> {
                 && args.repair.is_none()),
         "--automorphism goes with --method local or automorphism"
     );
+    anyhow::ensure!(
+        !args.involutions || args.method() == Method::Local,
+        "--involutions goes with --method local"
+    );
     let job = job_of(args)?;
     if let Some(dir) = &args.out {
         ramsift_driver::output::dir::prepare(dir, args.force)?;
@@ -579,7 +588,7 @@ fn find_by_local_search(
         threads: job.threads(),
         seed: job.options.seed,
         timeout: job.options.timeout,
-        automorphisms: args.automorphism.clone(),
+        automorphisms: local_automorphisms(args, job.order()),
         ..LocalOptions::default()
     };
     let (instance, stop, progress) = (
@@ -587,11 +596,17 @@ fn find_by_local_search(
         AtomicBool::new(false),
         LocalProgress::default(),
     );
-    let symmetry = match local_options.automorphisms.as_slice() {
-        [] => String::new(),
-        all => format!(
-            " over the edge orbits of cycles {}",
-            VertexCycles::list(all)
+    let symmetry = match (args.automorphism.as_slice(), args.involutions) {
+        ([], false) => String::new(),
+        ([], true) => " over the edge orbits of every involution".to_string(),
+        (given, involutions) => format!(
+            " over the edge orbits of cycles {}{}",
+            VertexCycles::list(given),
+            if involutions {
+                " and every involution"
+            } else {
+                ""
+            }
         ),
     };
     let report =
@@ -647,6 +662,16 @@ fn find_by_local_search(
         elapsed: report.elapsed,
         threads: job.threads(),
     })
+}
+
+/// The permutations local search takes in turn: --automorphism, then with
+/// --involutions every involution shape of K_order.
+fn local_automorphisms(args: &FindArgs, order: usize) -> Vec<VertexCycles> {
+    let mut all = args.automorphism.clone();
+    if args.involutions {
+        all.extend(VertexCycles::involutions(order));
+    }
+    all
 }
 
 #[cfg(feature = "cadical")]

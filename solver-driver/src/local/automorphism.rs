@@ -68,6 +68,23 @@ impl VertexCycles {
         names.join(" / ")
     }
 
+    /// Every shape of an involution of K_order other than the identity: p 2-cycles
+    /// on vertices 0..2p and the other order − 2p vertices fixed, for p from
+    /// order/2 (at most one fixed vertex) down to 1. Record colourings often have
+    /// one: the published (4,6;34) colouring (Exoo's page, checked in
+    /// `tests/tests/extension.rs`) is invariant under thirteen 2-cycles with eight
+    /// vertices fixed.
+    pub fn involutions(order: usize) -> Vec<VertexCycles> {
+        (1..=order / 2)
+            .rev()
+            .map(|pairs| {
+                let mut lengths = vec![2; pairs];
+                lengths.resize(order - pairs, 1);
+                VertexCycles { lengths }
+            })
+            .collect()
+    }
+
     /// σ as an array: `permutation()[v]` is the image of v.
     pub fn permutation(&self) -> Vec<usize> {
         let mut image = Vec::with_capacity(self.order());
@@ -298,6 +315,29 @@ mod tests {
         let cycles: VertexCycles = "4x2,2,1".parse().unwrap();
         let sigma = cycles.permutation();
         assert_eq!(sigma, vec![1, 2, 3, 0, 5, 6, 7, 4, 9, 8, 10]);
+    }
+
+    #[test]
+    fn involution_shapes_are_every_involution_but_the_identity() {
+        for order in 2..=20 {
+            let shapes = VertexCycles::involutions(order);
+            assert_eq!(shapes.len(), order / 2);
+            for (k, shape) in shapes.iter().enumerate() {
+                let sigma = shape.permutation();
+                assert_eq!(sigma.len(), order);
+                assert!((0..order).all(|v| sigma[sigma[v]] == v), "{shape}");
+                let fixed = (0..order).filter(|&v| sigma[v] == v).count();
+                // At most one fixed vertex first, then two more each time.
+                assert_eq!(fixed, order % 2 + 2 * k, "{shape}");
+            }
+        }
+        let at_34: Vec<String> = VertexCycles::involutions(34)
+            .iter()
+            .map(VertexCycles::to_string)
+            .collect();
+        assert_eq!(at_34[0], "2x17");
+        assert!(at_34.contains(&"2x13,1x8".to_string()));
+        assert_eq!(at_34[16], "2,1x32");
     }
 
     #[test]

@@ -7,7 +7,7 @@ use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 use std::sync::Mutex;
 use std::time::{Duration, Instant};
 
-use rand::SeedableRng;
+use rand::{Rng, SeedableRng};
 use rand_chacha::ChaCha8Rng;
 
 use ramsift_encoder::edges::edge_count;
@@ -62,7 +62,7 @@ pub struct LocalOptions {
     pub keep_near: usize,
     /// Visit only colourings invariant under a vertex permutation: the moves
     /// recolour edge orbits, the restarts draw random invariant colourings, and
-    /// `starts` are not used. With several, thread w takes the (w mod count)-th.
+    /// `starts` are not used. With several, the restarts take them in turn.
     /// Tabu and focused rules only. Empty: every colouring.
     pub automorphisms: Vec<VertexCycles>,
 }
@@ -209,15 +209,26 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
     rng.set_stream(worker as u64 + 1000);
     let stopped = || crate::search::interrupt::should_stop(shared.stop, shared.deadline);
-    let orbits = match shared.orbits.len() {
-        0 => None,
-        count => Some(&shared.orbits[worker % count]),
+    // With several automorphisms the restarts take them in turn: thread w's r-th
+    // restart takes number (offset + w + r · threads) mod count, the offset drawn
+    // once from the thread's stream (so successive runs with other seeds do not
+    // all begin with the first).
+    let threads = options.threads.max(1);
+    let offset = match shared.orbits.len() {
+        0 | 1 => 0,
+        count => rng.gen_range(0..count),
     };
-    let stall = shared
-        .stall
-        .unwrap_or(50 * orbits.map_or(edge_count(shared.order), |o| o.orbit_count()) as u64)
-        .max(1);
+    let mut own_restarts = 0usize;
     while !stopped() {
+        let orbits = match shared.orbits.len() {
+            0 => None,
+            count => Some(&shared.orbits[(offset + worker + own_restarts * threads) % count]),
+        };
+        own_restarts += 1;
+        let stall = shared
+            .stall
+            .unwrap_or(50 * orbits.map_or(edge_count(shared.order), |o| o.orbit_count()) as u64)
+            .max(1);
         let index = shared.start_index.fetch_add(1, Ordering::Relaxed) as usize;
         let mut state = match (orbits, options.starts.get(index)) {
             (Some(orbits), _) => orbits.random_state(shared.patterns, &mut rng),
@@ -403,13 +414,15 @@ mod tests {
     }
 
     #[test]
-    fn threads_take_the_automorphisms_in_turn_and_a_seed_repeats_a_run() {
+    fn restarts_take_the_automorphisms_in_turn_and_a_seed_repeats_a_run() {
         // R(4,4) = 18 and the one (4,4;17) colouring is Paley's (DS1; McKay's
         // data), whose automorphisms x -> ax + b (a a nonzero square) include no
-        // 16-cycle: thread 0 searches an empty family, thread 1 the circulants.
+        // 16-cycle: every other restart searches an empty family, the others the
+        // circulants.
         let instance = Instance::new(RamseySpec::cliques(&[4, 4]).unwrap(), 17).unwrap();
+        // One thread: only taking the two in turn reaches the circulants.
         let options = LocalOptions {
-            threads: 2,
+            threads: 1,
             seed: 4,
             timeout: Some(Duration::from_secs(60)),
             automorphisms: vec!["16,1".parse().unwrap(), "17".parse().unwrap()],
@@ -425,7 +438,7 @@ mod tests {
         let (_, by) = report
             .found
             .expect("the circulant thread finds Paley's colouring");
-        assert!(by.contains("cycles 17 (thread 1"), "{by}");
+        assert!(by.contains("cycles 17 (thread 0"), "{by}");
         // One thread, the same seed: the same colouring twice.
         let options = LocalOptions {
             threads: 1,
