@@ -63,8 +63,10 @@ pub struct FindArgs {
     /// vertices 0..31, then a 2-cycle; a length of 1 is a fixed vertex; the lengths
     /// add up to N). Local search moves recolour whole edge orbits (rules focused
     /// and tabu); --method automorphism searches the family exhaustively. Give it
-    /// again for more permutations: local search threads take them in turn, the
-    /// exhaustive search tries them one after the other.
+    /// again for more permutations: each local search restart takes one (each in
+    /// turn at first, then every second restart the one whose restarts ended with
+    /// the fewest copies on average); the exhaustive search tries them one after
+    /// the other.
     #[arg(long, value_name = "CYCLES")]
     pub automorphism: Vec<VertexCycles>,
     /// With --method local: take every involution shape of K_N in turn beside any

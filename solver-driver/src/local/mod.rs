@@ -12,6 +12,7 @@
 pub mod automorphism;
 pub mod moves;
 pub mod pattern;
+pub mod schedule;
 pub mod search;
 pub mod state;
 pub mod weighting;

@@ -16,6 +16,7 @@ use ramsift_encoder::{Colouring, Instance};
 use super::automorphism::{orbit_tabu_step, EdgeOrbitMoves, VertexCycles};
 use super::moves::{anneal_step, focused_tabu_step, tabu_step, TabuList};
 use super::pattern::Pattern;
+use super::schedule::{AutomorphismSchedule, EndingCosts};
 use super::state::{LocalState, MAX_LOCAL_ORDER};
 use super::weighting::{weighted_step, CliqueWeights};
 use crate::certify::witness_check::verify_witness;
@@ -62,9 +63,13 @@ pub struct LocalOptions {
     pub keep_near: usize,
     /// Visit only colourings invariant under a vertex permutation: the moves
     /// recolour edge orbits, the restarts draw random invariant colourings, and
-    /// `starts` are not used. With several, the restarts take them in turn.
+    /// `starts` are not used. With several, the restarts share them out
+    /// ([`AutomorphismSchedule`]).
     /// Tabu and focused rules only. Empty: every colouring.
     pub automorphisms: Vec<VertexCycles>,
+    /// How earlier searches' restarts over `automorphisms` ended (same order; may
+    /// be empty): the schedule goes on from them ([`LocalReport::automorphism_endings`]).
+    pub automorphism_endings: Vec<EndingCosts>,
 }
 
 impl Default for LocalOptions {
@@ -78,6 +83,7 @@ impl Default for LocalOptions {
             stall_steps: None,
             keep_near: 8,
             automorphisms: Vec::new(),
+            automorphism_endings: Vec::new(),
         }
     }
 }
@@ -111,6 +117,9 @@ pub struct LocalReport {
     pub steps: u64,
     pub restarts: u64,
     pub elapsed: Duration,
+    /// How the restarts over each automorphism ended, this search's added to the
+    /// ones it was given (empty without automorphisms).
+    pub automorphism_endings: Vec<EndingCosts>,
 }
 
 /// What the threads of one local search share.
@@ -128,6 +137,8 @@ struct Shared<'a> {
     found: Mutex<Option<(Colouring, String)>>,
     near: Mutex<Vec<(u64, Colouring)>>,
     start_index: AtomicU64,
+    /// The threads' endings per automorphism, added up as they finish.
+    endings: Mutex<Vec<EndingCosts>>,
 }
 
 /// Runs local search on the instance's K_n for its forbidden graphs.
@@ -171,6 +182,7 @@ pub fn local_search(
         found: Mutex::new(None),
         near: Mutex::new(Vec::new()),
         start_index: AtomicU64::new(0),
+        endings: Mutex::new(vec![EndingCosts::default(); options.automorphisms.len()]),
     };
     let pool = worker_pool(threads)?;
     pool.scope(|scope| {
@@ -187,6 +199,14 @@ pub fn local_search(
         }
     }
     let near = shared.near.into_inner().expect("near lock");
+    let mut automorphism_endings = shared.endings.into_inner().expect("endings lock");
+    for (total, earlier) in automorphism_endings
+        .iter_mut()
+        .zip(&options.automorphism_endings)
+    {
+        total.sum = total.sum.saturating_add(earlier.sum);
+        total.restarts += earlier.restarts;
+    }
     let best_cost = if found.is_some() {
         0
     } else {
@@ -199,6 +219,7 @@ pub fn local_search(
         steps: progress.steps.load(Ordering::Relaxed),
         restarts: progress.restarts.load(Ordering::Relaxed),
         elapsed: started.elapsed(),
+        automorphism_endings,
     })
 }
 
@@ -209,22 +230,22 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     let mut rng = ChaCha8Rng::seed_from_u64(options.seed);
     rng.set_stream(worker as u64 + 1000);
     let stopped = || crate::search::interrupt::should_stop(shared.stop, shared.deadline);
-    // With several automorphisms the restarts take them in turn: thread w's r-th
-    // restart takes number (offset + w + r · threads) mod count, the offset drawn
-    // once from the thread's stream (so successive runs with other seeds do not
-    // all begin with the first).
-    let threads = options.threads.max(1);
+    // With several automorphisms the restarts share them out by the thread's
+    // schedule; its turns start at an offset drawn from the thread's stream (so
+    // runs with other seeds do not all begin with the first) plus the thread number.
     let offset = match shared.orbits.len() {
         0 | 1 => 0,
         count => rng.gen_range(0..count),
     };
-    let mut own_restarts = 0usize;
+    let mut schedule = AutomorphismSchedule::new(
+        shared.orbits.len(),
+        offset + worker,
+        options.threads,
+        &options.automorphism_endings,
+    );
     while !stopped() {
-        let orbits = match shared.orbits.len() {
-            0 => None,
-            count => Some(&shared.orbits[(offset + worker + own_restarts * threads) % count]),
-        };
-        own_restarts += 1;
+        let choice = schedule.choose();
+        let orbits = shared.orbits.get(choice);
         let stall = shared
             .stall
             .unwrap_or(50 * orbits.map_or(edge_count(shared.order), |o| o.orbit_count()) as u64)
@@ -246,6 +267,10 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
             shared.progress,
         );
         shared.progress.best_cost.fetch_min(cost, Ordering::Relaxed);
+        if cost == 0 || !stopped() {
+            // A restart cut short says little about its automorphism.
+            schedule.record(choice, cost);
+        }
         if cost == 0 {
             let mut slot = shared.found.lock().expect("found lock");
             if slot.is_none() {
@@ -268,12 +293,17 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
                 ));
             }
             shared.stop.store(true, Ordering::SeqCst);
-            return;
+            break;
         }
         let mut kept = shared.near.lock().expect("near lock");
         kept.push((cost, best));
         kept.sort_by_key(|(c, _)| *c);
         kept.truncate(options.keep_near.max(1));
+    }
+    let mut endings = shared.endings.lock().expect("endings lock");
+    for (total, mine) in endings.iter_mut().zip(schedule.recorded()) {
+        total.sum = total.sum.saturating_add(mine.sum);
+        total.restarts += mine.restarts;
     }
 }
 
@@ -411,6 +441,47 @@ mod tests {
         // Goodman 1959: every 2-colouring of K6 has at least 2 monochromatic triangles.
         assert!(report.best_cost >= 2, "{}", report.best_cost);
         assert!(!report.near.is_empty());
+    }
+
+    #[test]
+    fn endings_per_automorphism_add_up_across_searches() {
+        // R(3,3) = 6 and Goodman 1959: every 2-colouring of K6 has at least two
+        // monochromatic triangles, so every restart ends with 2 or more.
+        let instance = Instance::new(RamseySpec::cliques(&[3, 3]).unwrap(), 6).unwrap();
+        let options = LocalOptions {
+            threads: 2,
+            timeout: Some(Duration::from_millis(300)),
+            automorphisms: vec!["5,1".parse().unwrap(), "2x3".parse().unwrap()],
+            ..LocalOptions::default()
+        };
+        let search = |options: &LocalOptions| {
+            local_search(
+                &instance,
+                options,
+                &AtomicBool::new(false),
+                &LocalProgress::default(),
+            )
+            .unwrap()
+        };
+        let first = search(&options);
+        assert_eq!(first.automorphism_endings.len(), 2);
+        let counted: u64 = first.automorphism_endings.iter().map(|e| e.restarts).sum();
+        // Only a restart cut short by the deadline goes unrecorded, one per thread.
+        assert!(counted + 2 >= first.restarts && counted <= first.restarts);
+        for e in &first.automorphism_endings {
+            assert!(e.restarts > 0 && e.sum >= 2 * e.restarts, "{e:?}");
+        }
+        let second = search(&LocalOptions {
+            automorphism_endings: first.automorphism_endings.clone(),
+            ..options
+        });
+        for (later, earlier) in second
+            .automorphism_endings
+            .iter()
+            .zip(&first.automorphism_endings)
+        {
+            assert!(later.restarts > earlier.restarts && later.sum > earlier.sum);
+        }
     }
 
     #[test]
