@@ -22,7 +22,12 @@
 //!    fixed, then the same with a random fifth of them released. The slice doubles
 //!    each round, and the next slice starts from the near-solutions that the SAT
 //!    attempts could not finish, each kicked (half of its edges in remaining
-//!    copies recoloured at random), before random colourings.
+//!    copies recoloured at random), before random colourings. Every second slice
+//!    searches over the edge orbits of involutions instead, one shape (p 2-cycles,
+//!    n − 2p fixed vertices) per restart, shared out by how earlier restarts over
+//!    each shape ended ([`crate::local::schedule`], carried from one such slice to
+//!    the next): that is where the (4,6;34) colourings are found (BENCHMARKS.md,
+//!    "Involutions").
 //!
 //! Specifications with forbidden graphs other than cliques go to the SAT portfolio
 //! ([`crate::search::portfolio`]) alone (the structured families are for cliques),
@@ -47,7 +52,9 @@ use super::portfolio::{complete_worker, search_until};
 use super::seeding::{near_solution_seeds, seeded_attempt, Seed, SeedKind};
 use crate::local::moves::kick;
 use crate::local::search::LocalProgress;
-use crate::local::{local_search, LocalOptions, LocalState, Pattern, MAX_LOCAL_ORDER};
+use crate::local::{
+    local_search, LocalOptions, LocalState, Pattern, VertexCycles, MAX_LOCAL_ORDER,
+};
 use crate::structured::{
     family_colourings, search_family, AbelianGroup, EdgeOrbits, FamilyChoice, FamilyOutcome,
 };
@@ -410,12 +417,30 @@ fn local_and_seeded_rounds(
     let mut starts = Some(starts);
     let mut slice = Duration::from_secs(1);
     let mut round = 0u64;
+    let mut involution_endings = Vec::new();
     while !super::interrupt::should_stop(stop, deadline) {
         round += 1;
+        // Even rounds visit only colourings with an involution, a shape per
+        // restart; they take no starts (their colourings are invariant ones).
+        let over_involutions = round % 2 == 0;
         let local_options = LocalOptions {
             threads: helpers,
             seed: job.options.seed.wrapping_add(round),
-            starts: starts.take().unwrap_or_default(),
+            starts: if over_involutions {
+                Vec::new()
+            } else {
+                starts.take().unwrap_or_default()
+            },
+            automorphisms: if over_involutions {
+                VertexCycles::involutions(job.order())
+            } else {
+                Vec::new()
+            },
+            automorphism_endings: if over_involutions {
+                involution_endings.clone()
+            } else {
+                Vec::new()
+            },
             timeout: Some(match deadline {
                 Some(d) => slice.min(d.saturating_duration_since(Instant::now())),
                 None => slice,
@@ -435,6 +460,10 @@ fn local_and_seeded_rounds(
         if let Some((colouring, by)) = report.found {
             return verified(job.spec(), colouring, format!("{by}, round {round}")).map(Some);
         }
+        if over_involutions {
+            // The next involution slice goes on from how these restarts ended.
+            involution_endings = report.automorphism_endings;
+        }
         let patterns = Pattern::for_spec(job.spec());
         let mut next_starts = Vec::new();
         for (_, near) in &report.near {
@@ -451,7 +480,7 @@ fn local_and_seeded_rounds(
                 &mut attempts.rng,
             ));
         }
-        starts = Some(next_starts);
+        starts.get_or_insert_with(Vec::new).extend(next_starts);
         slice *= 2;
     }
     Ok(None)
