@@ -1,4 +1,5 @@
-//! Classical extremal colourings built from their definitions.
+//! Classical extremal colourings built from their definitions, and a check of
+//! their symmetries.
 
 use ramsift_encoder::Colouring;
 
@@ -90,3 +91,12 @@ pub const EXOO_4_6_34_RECOLOURED: [(usize, usize); 11] = [
     (24, 25),
     (30, 31),
 ];
+
+/// The first edge {i, j} (i < j) whose colour differs from that of {σ(i), σ(j)},
+/// or None when the colouring is invariant under the vertex permutation `sigma`.
+pub fn first_edge_moved(colouring: &Colouring, sigma: &[usize]) -> Option<(usize, usize)> {
+    let order = colouring.order();
+    (0..order)
+        .flat_map(|j| (0..j).map(move |i| (i, j)))
+        .find(|&(i, j)| colouring.colour(i, j) != colouring.colour(sigma[i], sigma[j]))
+}

@@ -508,7 +508,7 @@ mod tests {
         .unwrap();
         let (_, by) = report
             .found
-            .expect("the circulant thread finds Paley's colouring");
+            .expect("a restart over the circulants finds Paley's colouring");
         assert!(by.contains("cycles 17 (thread 0"), "{by}");
         // One thread, the same seed: the same colouring twice.
         let options = LocalOptions {
