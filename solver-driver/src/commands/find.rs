@@ -69,9 +69,9 @@ pub struct FindArgs {
     /// the other.
     #[arg(long, value_name = "CYCLES")]
     pub automorphism: Vec<VertexCycles>,
-    /// With --method local: take every involution shape of K_N in turn beside any
-    /// --automorphism (p 2-cycles on vertices 0..2p, the other N − 2p vertices
-    /// fixed, for p from N/2 down to 1), one per restart.
+    /// With --method local: add every involution shape of K_N to the permutations
+    /// (p 2-cycles on vertices 0..2p, the other N − 2p vertices fixed, for p from
+    /// N/2 down to 1); the restarts share them out as with several --automorphism.
     #[arg(long)]
     pub involutions: bool,
     /// Extend this colouring of a smaller K_m to K_N with SAT, one vertex at a time
@@ -666,8 +666,8 @@ fn find_by_local_search(
     })
 }
 
-/// The permutations local search takes in turn: --automorphism, then with
-/// --involutions every involution shape of K_order.
+/// The permutations local search shares its restarts among: --automorphism,
+/// then with --involutions every involution shape of K_order.
 fn local_automorphisms(args: &FindArgs, order: usize) -> Vec<VertexCycles> {
     let mut all = args.automorphism.clone();
     if args.involutions {

@@ -4,8 +4,8 @@
 //! goes to the automorphism whose restarts have so far ended with the fewest
 //! monochromatic copies on average, and the others go on in turn. At (4,6;34),
 //! over the seventeen involution shapes, 20 s of restarts ended on average with
-//! 1.0 copies for thirteen 2-cycles with eight vertices fixed, 5.4 to 6.2 for ten
-//! to fourteen fixed, and 8.5 to 27 for the others (BENCHMARKS.md,
+//! 0.7 copies for thirteen 2-cycles with eight vertices fixed, 4.8 to 6.3 for ten
+//! to fourteen fixed, and 7.8 to 24.3 for the others (BENCHMARKS.md,
 //! "Involutions"): the shape that holds colourings is the one whose restarts end
 //! nearest zero, so it gets about half of the restarts instead of a seventeenth.
 //!
