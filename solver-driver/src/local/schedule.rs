@@ -21,6 +21,13 @@ pub struct EndingCosts {
     pub restarts: u64,
 }
 
+impl std::ops::AddAssign for EndingCosts {
+    fn add_assign(&mut self, other: EndingCosts) {
+        self.sum = self.sum.saturating_add(other.sum);
+        self.restarts += other.restarts;
+    }
+}
+
 /// The choices of one thread.
 #[derive(Clone, Debug)]
 pub struct AutomorphismSchedule {
@@ -82,10 +89,13 @@ impl AutomorphismSchedule {
 
     /// Records the fewest copies a restart over automorphism `index` reached.
     pub fn record(&mut self, index: usize, cost: u64) {
+        let ending = EndingCosts {
+            sum: cost,
+            restarts: 1,
+        };
         for endings in [&mut self.known, &mut self.recorded] {
             if let Some(e) = endings.get_mut(index) {
-                e.sum = e.sum.saturating_add(cost);
-                e.restarts += 1;
+                *e += ending;
             }
         }
     }

@@ -204,8 +204,7 @@ pub fn local_search(
         .iter_mut()
         .zip(&options.automorphism_endings)
     {
-        total.sum = total.sum.saturating_add(earlier.sum);
-        total.restarts += earlier.restarts;
+        *total += *earlier;
     }
     let best_cost = if found.is_some() {
         0
@@ -302,8 +301,7 @@ fn local_worker(shared: &Shared<'_>, worker: usize) {
     }
     let mut endings = shared.endings.lock().expect("endings lock");
     for (total, mine) in endings.iter_mut().zip(schedule.recorded()) {
-        total.sum = total.sum.saturating_add(mine.sum);
-        total.restarts += mine.restarts;
+        *total += *mine;
     }
 }
 
