@@ -15,12 +15,20 @@
 //!
 //! The check of each lemma records the clauses it used, in propagation order; from
 //! those, an LRAT proof of the same refutation is written on request.
+//!
+//! Memory follows the proof's size, whatever its shape: every clause's literals
+//! live in one arena behind a 24-byte header, clauses are found for deletion by a
+//! keyed hash of their content (one table entry per distinct clause), and a lemma
+//! identical to a clause still present is not stored again: it only raises that
+//! clause's count of copies (a deletion lowers it first). Such a copy is implied by
+//! the clause it repeats, so it needs no check of its own.
 
 use std::collections::HashMap;
+use std::hash::BuildHasher;
 
 use crate::cnf::Cnf;
 use crate::dense_vars::DenseVars;
-use crate::drat_parse::{DratStep, StepKind};
+use crate::drat_parse::{DratProof, StepKind};
 use crate::lrat::{number_lemmas, Justification, LratLemma};
 
 /// What a successful check found.
@@ -60,8 +68,8 @@ pub enum DratFailure {
 pub static CHECKED_LEMMAS: std::sync::atomic::AtomicUsize = std::sync::atomic::AtomicUsize::new(0);
 
 const NO_REASON: u32 = u32::MAX;
-const CORE: usize = 0;
-const OTHER: usize = 1;
+const CORE: u8 = 0;
+const OTHER: u8 = 1;
 
 type Lit = u32;
 
@@ -74,27 +82,47 @@ fn dimacs(lit: Lit) -> i32 {
     (lit >> 1) as i32 * if lit & 1 == 1 { -1 } else { 1 }
 }
 
+/// A clause's header; its literals are `arena[start..start + len]`.
 struct Clause {
-    lits: Vec<Lit>,
+    start: usize,
+    len: u32,
+    /// The lemma's first literal as written (the RAT pivot), or NO_PIVOT.
+    pivot: Lit,
+    /// Copies beyond the first that the proof added and has not yet deleted.
+    copies: u32,
     active: bool,
     core: bool,
     /// Whether the watch entry of position 0 / 1 is present in a list.
     watched: [bool; 2],
     /// Which kind of list (CORE or OTHER) holds its entries.
-    list: usize,
-    /// The lemma's first literal as written (the RAT pivot).
-    pivot: Option<Lit>,
+    list: u8,
 }
 
+const NO_PIVOT: Lit = u32::MAX;
+
+/// A step of the forward pass, to be undone backwards: the clause and the step's index.
+#[derive(Clone, Copy)]
 enum Record {
-    Add(u32),
+    Add(u32, u32),
+    /// A lemma identical to the active clause: one more copy of it.
+    AddCopy(u32),
     Delete(u32),
+    DeleteCopy(u32),
 }
 
-/// The forward pass's steps, each with its index in the proof.
-type Records = Vec<(Record, usize)>;
+/// Step index of the implicit empty clause at the end.
+const IMPLICIT: u32 = u32::MAX;
+
 /// Checked lemmas with their justifications, or why the proof fails.
 type Justified = Result<Vec<(u32, Justification)>, DratFailure>;
+
+/// Active clauses by content: a keyed hash of the sorted literals leads to the
+/// newest clause with that hash, and each clause to the next older one.
+struct ContentIndex {
+    newest: HashMap<u64, u32>,
+    older: Vec<u32>,
+    keys: std::collections::hash_map::RandomState,
+}
 
 /// Outcome of propagating the negation of a clause.
 enum Rup {
@@ -107,6 +135,7 @@ enum Rup {
 
 struct Checker {
     clauses: Vec<Clause>,
+    arena: Vec<Lit>,
     watches: [Vec<Vec<u32>>; 2],
     units: Vec<u32>,
     is_true: Vec<bool>,
@@ -123,26 +152,38 @@ impl Checker {
         let (reason, trail_position, seen) = (vec![NO_REASON; vars], vec![0; vars], vec![false; vars]);
         let (clauses, units, trail, pending_core) = (Vec::new(), Vec::new(), Vec::new(), Vec::new());
         let (watches, is_true) = ([vec![Vec::new(); lits], vec![Vec::new(); lits]], vec![false; lits]);
-        Checker { clauses, watches, units, is_true, reason, trail_position, seen, trail, pending_core }
+        let arena = Vec::new();
+        Checker { clauses, arena, watches, units, is_true, reason, trail_position, seen, trail, pending_core }
     }
 
-    fn add_clause(&mut self, literals: &[i32], pivot: Option<i32>) -> u32 {
-        let mut lits: Vec<Lit> = literals.iter().map(|&l| code(l)).collect();
-        lits.sort_unstable();
-        lits.dedup();
+    fn lits(&self, id: u32) -> &[Lit] {
+        let c = &self.clauses[id as usize];
+        &self.arena[c.start..c.start + c.len as usize]
+    }
+
+    fn lit_at(&self, id: u32, k: usize) -> Lit {
+        self.arena[self.clauses[id as usize].start + k]
+    }
+
+    /// Adds a clause of sorted literal codes without repeats (`key`); `pivot` is kept first.
+    fn add_clause(&mut self, key: &[Lit], pivot: Option<Lit>) -> u32 {
+        let start = self.arena.len();
+        self.arena.extend_from_slice(key);
         // Keep the pivot first: it is the literal RAT is checked on.
-        if let Some(p) = pivot.map(code) {
-            let at = lits.iter().position(|&l| l == p).expect("pivot is in the clause");
-            lits.swap(0, at);
+        if let Some(p) = pivot {
+            let at = key.iter().position(|&l| l == p).expect("pivot is in the clause");
+            self.arena.swap(start, start + at);
         }
         let id = self.clauses.len() as u32;
         self.clauses.push(Clause {
-            lits,
+            start,
+            len: key.len() as u32,
+            pivot: pivot.unwrap_or(NO_PIVOT),
+            copies: 0,
             active: false,
             core: false,
             watched: [false, false],
             list: OTHER,
-            pivot: pivot.map(code),
         });
         self.activate(id);
         id
@@ -151,14 +192,14 @@ impl Checker {
     fn activate(&mut self, id: u32) {
         let clause = &mut self.clauses[id as usize];
         clause.active = true;
-        match clause.lits.len() {
+        match clause.len {
             0 => {}
             1 => self.units.push(id),
             _ => {
                 for p in 0..2 {
                     if !clause.watched[p] {
                         clause.watched[p] = true;
-                        self.watches[clause.list][clause.lits[p] as usize].push(id);
+                        self.watches[clause.list as usize][self.arena[clause.start + p] as usize].push(id);
                     }
                 }
             }
@@ -169,7 +210,7 @@ impl Checker {
         let clause = &mut self.clauses[id as usize];
         if !clause.core {
             clause.core = true;
-            if clause.lits.len() >= 2 {
+            if clause.len >= 2 {
                 self.pending_core.push(id);
             }
         }
@@ -185,11 +226,12 @@ impl Checker {
             }
             for p in 0..2 {
                 if clause.watched[p] {
-                    let list = &mut self.watches[OTHER][clause.lits[p] as usize];
+                    let lit = self.arena[clause.start + p] as usize;
+                    let list = &mut self.watches[OTHER as usize][lit];
                     if let Some(at) = list.iter().position(|&c| c == id) {
                         list.swap_remove(at);
                     }
-                    self.watches[CORE][clause.lits[p] as usize].push(id);
+                    self.watches[CORE as usize][lit].push(id);
                 }
             }
             clause.list = CORE;
@@ -237,33 +279,34 @@ impl Checker {
     }
 
     /// Visits the clauses of one kind watching `falsified`.
-    fn visit(&mut self, kind: usize, falsified: Lit) -> Option<u32> {
-        let mut list = std::mem::take(&mut self.watches[kind][falsified as usize]);
+    fn visit(&mut self, kind: u8, falsified: Lit) -> Option<u32> {
+        let mut list = std::mem::take(&mut self.watches[kind as usize][falsified as usize]);
         let mut i = 0;
         let mut conflict = None;
         while i < list.len() {
             let id = list[i];
             let clause = &mut self.clauses[id as usize];
+            let lits = &mut self.arena[clause.start..clause.start + clause.len as usize];
             if !clause.active {
-                let p = if clause.lits[0] == falsified { 0 } else { 1 };
+                let p = if lits[0] == falsified { 0 } else { 1 };
                 clause.watched[p] = false;
                 list.swap_remove(i);
                 continue;
             }
-            if clause.lits[0] == falsified {
-                clause.lits.swap(0, 1);
+            if lits[0] == falsified {
+                lits.swap(0, 1);
                 clause.watched.swap(0, 1);
             }
-            let first = clause.lits[0];
+            let first = lits[0];
             if self.is_true[first as usize] {
                 i += 1;
                 continue;
             }
-            let replacement = clause.lits[2..].iter().position(|&l| !self.is_true[(l ^ 1) as usize]).map(|k| k + 2);
+            let replacement = lits[2..].iter().position(|&l| !self.is_true[(l ^ 1) as usize]).map(|k| k + 2);
             if let Some(k) = replacement {
-                clause.lits.swap(1, k);
-                let new_watch = clause.lits[1] as usize;
-                self.watches[kind][new_watch].push(id);
+                lits.swap(1, k);
+                let new_watch = lits[1] as usize;
+                self.watches[kind as usize][new_watch].push(id);
                 list.swap_remove(i);
                 continue;
             }
@@ -274,7 +317,7 @@ impl Checker {
             self.assign(first, id);
             i += 1;
         }
-        self.watches[kind][falsified as usize] = list;
+        self.watches[kind as usize][falsified as usize] = list;
         conflict
     }
 
@@ -286,8 +329,8 @@ impl Checker {
         let mut stack: Vec<u32> = vec![conflict];
         while let Some(id) = stack.pop() {
             self.mark_core(id);
-            for k in 0..self.clauses[id as usize].lits.len() {
-                let var = (self.clauses[id as usize].lits[k] >> 1) as usize;
+            for k in 0..self.clauses[id as usize].len as usize {
+                let var = (self.lit_at(id, k) >> 1) as usize;
                 if self.seen[var] {
                     continue;
                 }
@@ -304,8 +347,8 @@ impl Checker {
             self.seen[var] = false;
         }
         used.sort_by_key(|&r| {
-            let lit = self.clauses[r as usize]
-                .lits
+            let lit = self
+                .lits(r)
                 .iter()
                 .copied()
                 .find(|&l| self.reason[(l >> 1) as usize] == r && self.is_true[l as usize])
@@ -336,7 +379,7 @@ impl Checker {
                 continue;
             }
             k += 1;
-            let lit = self.clauses[id as usize].lits[0];
+            let lit = self.lit_at(id, 0);
             if self.is_true[lit as usize] {
                 continue;
             }
@@ -353,18 +396,15 @@ impl Checker {
 
     /// RAT on the lemma's pivot; returns (candidate, hints) pairs on success.
     fn rat(&mut self, lemma: u32) -> Option<Vec<(u32, Vec<u32>)>> {
-        let pivot = self.clauses[lemma as usize].pivot?;
-        let lemma_lits = self.clauses[lemma as usize].lits.clone();
+        let pivot = Some(self.clauses[lemma as usize].pivot).filter(|&p| p != NO_PIVOT)?;
+        let lemma_lits = self.lits(lemma).to_vec();
         let candidates: Vec<u32> = (0..self.clauses.len() as u32)
-            .filter(|&id| {
-                let c = &self.clauses[id as usize];
-                c.active && c.lits.contains(&(pivot ^ 1))
-            })
+            .filter(|&id| self.clauses[id as usize].active && self.lits(id).contains(&(pivot ^ 1)))
             .collect();
         let mut proofs = Vec::new();
         for candidate in candidates {
             let mut resolvent = lemma_lits.clone();
-            resolvent.extend(self.clauses[candidate as usize].lits.iter().copied().filter(|&l| l != pivot ^ 1));
+            resolvent.extend(self.lits(candidate).iter().copied().filter(|&l| l != pivot ^ 1));
             self.mark_core(candidate);
             match self.rup(&resolvent) {
                 Rup::Trivial => proofs.push((candidate, Vec::new())),
@@ -377,52 +417,57 @@ impl Checker {
 
     /// Adds the lemmas and applies the deletions in proof order, up to the first empty
     /// lemma (or an implicit one at the end); returns the steps to undo backwards.
-    fn forward_pass(&mut self, cnf: &Cnf, steps: &[DratStep], vars: &DenseVars, report: &mut DratReport) -> Records {
-        let mut by_content: HashMap<Vec<Lit>, Vec<u32>> = HashMap::new();
+    fn forward_pass(&mut self, cnf: &Cnf, proof: &DratProof, vars: &DenseVars, report: &mut DratReport) -> Vec<Record> {
+        let mut index = ContentIndex::new();
+        let mut key = Vec::new();
         for clause in &cnf.clauses {
-            let id = self.add_clause(clause, None);
-            by_content.entry(key(clause)).or_default().push(id);
+            fill_key(&mut key, clause.iter().copied());
+            let id = self.add_clause(&key, None);
+            index.insert(id, &key);
         }
-        let mut records: Records = Vec::new();
+        let mut records = Vec::new();
         let mut empty_lemma: Option<u32> = None;
-        for (index, step) in steps.iter().enumerate() {
-            let literals: Vec<i32> = step.literals.iter().map(|&l| vars.dense(l)).collect();
-            match step.kind {
-                StepKind::Add => {
+        for (step, (kind, literals, _)) in proof.iter().enumerate() {
+            fill_key(&mut key, literals.iter().map(|&l| vars.dense(l)));
+            let found = index.find_active(self, &key);
+            match (kind, found) {
+                (StepKind::Add, Some(id)) => {
                     report.lemmas += 1;
-                    let id = self.add_clause(&literals, literals.first().copied());
-                    by_content.entry(key(&literals)).or_default().push(id);
-                    records.push((Record::Add(id), index));
+                    self.clauses[id as usize].copies += 1;
+                    records.push(Record::AddCopy(id));
+                }
+                (StepKind::Add, None) => {
+                    report.lemmas += 1;
+                    let id = self.add_clause(&key, literals.first().map(|&l| code(vars.dense(l))));
+                    index.insert(id, &key);
+                    records.push(Record::Add(id, step as u32));
                     if literals.is_empty() {
                         empty_lemma = Some(id);
                         break;
                     }
                 }
-                StepKind::Delete => {
+                (StepKind::Delete, None) => {
+                    (report.deletions, report.deletions_of_absent_clauses) =
+                        (report.deletions + 1, report.deletions_of_absent_clauses + 1)
+                }
+                (StepKind::Delete, Some(id)) => {
                     report.deletions += 1;
-                    let k = key(&literals);
-                    let found = by_content.get_mut(&k).and_then(|ids| {
-                        let at = ids.iter().rposition(|&id| self.clauses[id as usize].active)?;
-                        Some(ids.remove(at))
-                    });
-                    match found {
-                        None => report.deletions_of_absent_clauses += 1,
-                        Some(id) if self.clauses[id as usize].lits.len() == 1 => {
-                            report.ignored_unit_deletions += 1;
-                            by_content.entry(k).or_default().push(id);
-                        }
-                        Some(id) => {
-                            self.clauses[id as usize].active = false;
-                            records.push((Record::Delete(id), index));
-                        }
+                    let clause = &mut self.clauses[id as usize];
+                    if clause.copies > 0 {
+                        clause.copies -= 1;
+                        records.push(Record::DeleteCopy(id));
+                    } else if clause.len == 1 {
+                        report.ignored_unit_deletions += 1;
+                    } else {
+                        clause.active = false;
+                        records.push(Record::Delete(id));
                     }
                 }
             }
         }
-
         let final_id = empty_lemma.unwrap_or_else(|| {
             report.implicit_empty_clause = true;
-            records.push((Record::Add(self.clauses.len() as u32), usize::MAX));
+            records.push(Record::Add(self.clauses.len() as u32, IMPLICIT));
             self.add_clause(&[], None)
         });
         self.mark_core(final_id);
@@ -433,75 +478,121 @@ impl Checker {
     /// returns each checked lemma's justification when LRAT is wanted.
     fn backward_pass(
         &mut self,
-        records: &Records,
-        steps: &[DratStep],
+        records: &[Record],
+        proof: &DratProof,
         lrat: bool,
         report: &mut DratReport,
     ) -> Justified {
         let mut justified: Vec<(u32, Justification)> = Vec::new();
-        for (record, index) in records.iter().rev() {
-            match *record {
-                Record::Delete(id) => self.activate(id),
-                Record::Add(id) => {
-                    self.clauses[id as usize].active = false;
-                    if !self.clauses[id as usize].core {
-                        continue;
-                    }
-                    report.checked_lemmas += 1;
-                    CHECKED_LEMMAS.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
-                    let lits = self.clauses[id as usize].lits.clone();
-                    let justification = match self.rup(&lits) {
-                        Rup::Trivial => continue,
-                        Rup::Conflict(hints) => Justification::Rup(hints),
-                        Rup::NoConflict => match self.rat(id) {
-                            Some(proofs) => {
-                                report.rat_lemmas += 1;
-                                Justification::Rat(proofs)
-                            }
-                            None if *index == usize::MAX => return Err(DratFailure::NoRefutation),
-                            None => {
-                                return Err(DratFailure::LemmaFailed {
-                                    step: index + 1,
-                                    offset: steps[*index].offset,
-                                    lemma: steps[*index].literals.clone(),
-                                })
-                            }
-                        },
-                    };
-                    if lrat {
-                        justified.push((id, justification));
-                    }
+        for record in records.iter().rev() {
+            let (id, step) = match *record {
+                Record::Delete(id) => {
+                    self.activate(id);
+                    continue;
                 }
+                Record::AddCopy(id) => {
+                    self.clauses[id as usize].copies -= 1;
+                    continue;
+                }
+                Record::DeleteCopy(id) => {
+                    self.clauses[id as usize].copies += 1;
+                    continue;
+                }
+                Record::Add(id, step) => (id, step),
+            };
+            self.clauses[id as usize].active = false;
+            if !self.clauses[id as usize].core {
+                continue;
+            }
+            report.checked_lemmas += 1;
+            CHECKED_LEMMAS.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
+            let lits = self.lits(id).to_vec();
+            let justification = match self.rup(&lits) {
+                Rup::Trivial => continue,
+                Rup::Conflict(hints) => Justification::Rup(hints),
+                Rup::NoConflict => match self.rat(id) {
+                    Some(proofs) => {
+                        report.rat_lemmas += 1;
+                        Justification::Rat(proofs)
+                    }
+                    None if step == IMPLICIT => return Err(DratFailure::NoRefutation),
+                    None => {
+                        let failed = proof.step(step as usize);
+                        let (step, offset, lemma) = (step as usize + 1, failed.offset, failed.literals);
+                        return Err(DratFailure::LemmaFailed { step, offset, lemma });
+                    }
+                },
+            };
+            if lrat {
+                justified.push((id, justification));
             }
         }
         Ok(justified)
     }
 }
 
-/// A clause's literals as a lookup key (sorted, without repeats).
-fn key(lits: &[i32]) -> Vec<Lit> {
-    let mut k: Vec<Lit> = lits.iter().map(|&l| code(l)).collect();
-    k.sort_unstable();
-    k.dedup();
-    k
+impl ContentIndex {
+    fn new() -> Self {
+        ContentIndex { newest: HashMap::new(), older: Vec::new(), keys: Default::default() }
+    }
+
+    fn insert(&mut self, id: u32, key: &[Lit]) {
+        let hash = self.keys.hash_one(key);
+        let previous = self.newest.insert(hash, id).unwrap_or(u32::MAX);
+        self.older.resize(id as usize + 1, u32::MAX);
+        self.older[id as usize] = previous;
+    }
+
+    /// The newest active clause with exactly the literals of `key`; inactive
+    /// clauses met on the way are unlinked (in the forward pass they stay deleted).
+    fn find_active(&mut self, checker: &Checker, key: &[Lit]) -> Option<u32> {
+        let hash = self.keys.hash_one(key);
+        let (mut previous, mut current) = (u32::MAX, self.newest.get(&hash).copied().unwrap_or(u32::MAX));
+        while current != u32::MAX {
+            let next = self.older[current as usize];
+            if !checker.clauses[current as usize].active {
+                match previous {
+                    u32::MAX if next == u32::MAX => drop(self.newest.remove(&hash)),
+                    u32::MAX => drop(self.newest.insert(hash, next)),
+                    _ => self.older[previous as usize] = next,
+                }
+            } else if checker.lits(current).len() == key.len()
+                && checker.lits(current).iter().all(|l| key.binary_search(l).is_ok())
+            {
+                return Some(current);
+            } else {
+                previous = current;
+            }
+            current = next;
+        }
+        None
+    }
+}
+
+/// A clause's literal codes, sorted and without repeats, into `key`.
+fn fill_key(key: &mut Vec<Lit>, lits: impl Iterator<Item = i32>) {
+    key.clear();
+    key.extend(lits.map(code));
+    key.sort_unstable();
+    key.dedup();
 }
 
 /// Checks a DRAT refutation of `cnf`. With `emit_lrat`, also returns an LRAT proof.
 pub fn check_drat(
     cnf: &Cnf,
-    steps: &[DratStep],
+    proof: &DratProof,
     emit_lrat: bool,
 ) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
     let mut vars = DenseVars::new(&cnf.clauses);
-    steps.iter().flat_map(|s| s.literals.iter()).for_each(|&l| vars.add(l));
+    proof.all_literals().iter().for_each(|&l| vars.add(l));
     let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
     if cnf.clauses.iter().any(|c| c.is_empty()) {
         report.formula_has_empty_clause = true;
         return Ok((report, emit_lrat.then(Vec::new)));
     }
     let mut checker = Checker::new(vars.max_var());
-    let records = checker.forward_pass(cnf, steps, &vars, &mut report);
-    let mut justified = checker.backward_pass(&records, steps, emit_lrat, &mut report)?;
+    let records = checker.forward_pass(cnf, proof, &vars, &mut report);
+    let mut justified = checker.backward_pass(&records, proof, emit_lrat, &mut report)?;
     report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
@@ -509,11 +600,10 @@ pub fn check_drat(
         // Lemmas in proof order, each with its literals as written, pivot first.
         justified.reverse();
         let lemmas = justified.into_iter().map(|(id, justification)| {
-            let clause = &checker.clauses[id as usize];
-            let literals = clause
-                .pivot
+            let pivot = Some(checker.clauses[id as usize].pivot).filter(|&p| p != NO_PIVOT);
+            let literals = pivot
                 .into_iter()
-                .chain(clause.lits.iter().copied().filter(|&l| Some(l) != clause.pivot))
+                .chain(checker.lits(id).iter().copied().filter(|&l| Some(l) != pivot))
                 .map(|l| vars.original(dimacs(l)))
                 .collect();
             (id, literals, justification)

@@ -25,23 +25,100 @@ pub struct DratStep {
     pub offset: u64,
 }
 
-/// Whether the bytes look like binary DRAT.
-pub fn is_binary(bytes: &[u8]) -> bool {
-    bytes.first() == Some(&b'a')
-        || bytes.iter().take(1024).any(|&b| !(0x20..=0x7e).contains(&b) && !matches!(b, b'\n' | b'\r' | b'\t'))
+/// A whole proof stored flat: every literal in one array, and per step only its
+/// offset (the top bit marks a deletion) and length, 12 bytes a step. A step
+/// "1 0" of four bytes thus costs 16 bytes, whatever the number of steps.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct DratProof {
+    literals: Vec<i32>,
+    offsets: Vec<u64>,
+    lengths: Vec<u32>,
 }
 
-/// Parses a DRAT proof in either form.
-pub fn parse_drat(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
-    if is_binary(bytes) {
-        parse_binary(name, bytes)
-    } else {
-        parse_text(name, bytes)
+const DELETION: u64 = 1 << 63;
+
+impl DratProof {
+    /// The number of steps.
+    pub fn len(&self) -> usize {
+        self.offsets.len()
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.offsets.is_empty()
+    }
+
+    /// The steps in order: kind, literals and byte offset.
+    pub fn iter(&self) -> impl Iterator<Item = (StepKind, &[i32], u64)> + '_ {
+        let mut start = 0;
+        self.offsets.iter().zip(&self.lengths).map(move |(&offset, &length)| {
+            let literals = &self.literals[start..start + length as usize];
+            start += length as usize;
+            let kind = if offset & DELETION != 0 { StepKind::Delete } else { StepKind::Add };
+            (kind, literals, offset & !DELETION)
+        })
+    }
+
+    /// Every literal of every step.
+    pub fn all_literals(&self) -> &[i32] {
+        &self.literals
+    }
+
+    /// Step `index` as an owned step (for messages).
+    pub fn step(&self, index: usize) -> DratStep {
+        let (kind, literals, offset) = self.iter().nth(index).expect("a step of the proof");
+        DratStep { kind, literals: literals.to_vec(), offset }
+    }
+
+    /// The steps as owned values (for tests and tools that edit a proof).
+    pub fn to_steps(&self) -> Vec<DratStep> {
+        self.iter().map(|(kind, literals, offset)| DratStep { kind, literals: literals.to_vec(), offset }).collect()
+    }
+
+    /// A proof of the given steps.
+    pub fn from_steps(steps: &[DratStep]) -> Self {
+        let mut proof = DratProof::default();
+        for step in steps {
+            proof.literals.extend_from_slice(&step.literals);
+            proof.close_step(step.kind, step.offset, step.literals.len()).expect("a step of fewer than 2^32 literals");
+        }
+        proof
+    }
+
+    /// Ends the step whose `length` literals were pushed last; fails past 2^32 − 1 steps or literals a step.
+    fn close_step(&mut self, kind: StepKind, offset: u64, length: usize) -> Option<()> {
+        let length = u32::try_from(length).ok()?;
+        (self.offsets.len() < u32::MAX as usize).then_some(())?;
+        self.offsets.push(offset | if kind == StepKind::Delete { DELETION } else { 0 });
+        self.lengths.push(length);
+        Some(())
+    }
+
+    fn finish(mut self) -> Self {
+        self.literals.shrink_to_fit();
+        self.offsets.shrink_to_fit();
+        self.lengths.shrink_to_fit();
+        self
     }
 }
 
-fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
-    let (mut steps, mut pos, mut current) = (Vec::new(), 0usize, None::<DratStep>);
+/// Whether the bytes look like binary DRAT.
+pub fn is_binary(bytes: &[u8]) -> bool {
+    bytes.first() == Some(&b'a')
+        || bytes.iter().take(1024).any(|&b| !(0x20..=0x7e).contains(&b) && !b.is_ascii_whitespace())
+}
+
+/// Parses a DRAT proof in either form.
+pub fn parse_drat(name: &str, bytes: &[u8]) -> Result<DratProof, InputError> {
+    let proof = if is_binary(bytes) { parse_binary(name, bytes) } else { parse_text(name, bytes) };
+    proof.map(DratProof::finish)
+}
+
+fn too_long(name: &str, at: u64) -> InputError {
+    InputError::at_byte(name, at, "more than 2^32 - 1 steps, or a step of more than 2^32 - 1 literals: refused")
+}
+
+fn parse_text(name: &str, bytes: &[u8]) -> Result<DratProof, InputError> {
+    let (mut proof, mut pos, mut current) = (DratProof::default(), 0usize, None::<(StepKind, u64, usize)>);
     while pos < bytes.len() {
         if bytes[pos].is_ascii_whitespace() {
             pos += 1;
@@ -56,12 +133,11 @@ fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
         }
         pos = until(pos, u8::is_ascii_whitespace);
         let (token, at) = (&bytes[start..pos], start as u64);
-        let new_step = |kind| DratStep { kind, literals: Vec::new(), offset: at };
         if token == b"d" {
             if current.is_some() {
                 return Err(InputError::at_byte(name, at, "'d' inside a clause: expected a literal or 0"));
             }
-            current = Some(new_step(StepKind::Delete));
+            current = Some((StepKind::Delete, at, proof.literals.len()));
             continue;
         }
         let lit = std::str::from_utf8(token).ok().and_then(|t| t.parse::<i32>().ok()).filter(|&l| l != i32::MIN);
@@ -72,19 +148,25 @@ fn parse_text(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
             );
             return Err(InputError::at_byte(name, at, why));
         };
-        match current.get_or_insert_with(|| new_step(StepKind::Add)) {
-            _ if lit == 0 => steps.extend(current.take()),
-            step => step.literals.push(lit),
+        let (kind, offset, first) = *current.get_or_insert((StepKind::Add, at, proof.literals.len()));
+        if lit == 0 {
+            let length = proof.literals.len() - first;
+            proof.close_step(kind, offset, length).ok_or_else(|| too_long(name, offset))?;
+            current = None;
+        } else {
+            proof.literals.push(lit);
         }
     }
     match current {
-        Some(step) => Err(InputError::at_byte(name, step.offset, "the last step is not ended by 0 (truncated proof?)")),
-        None => Ok(steps),
+        Some((_, offset, _)) => {
+            Err(InputError::at_byte(name, offset, "the last step is not ended by 0 (truncated proof?)"))
+        }
+        None => Ok(proof),
     }
 }
 
-fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
-    let (mut steps, mut pos) = (Vec::new(), 0usize);
+fn parse_binary(name: &str, bytes: &[u8]) -> Result<DratProof, InputError> {
+    let (mut proof, mut pos) = (DratProof::default(), 0usize);
     while pos < bytes.len() {
         let start = pos as u64;
         let kind = match bytes[pos] {
@@ -96,7 +178,7 @@ fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
             }
         };
         pos += 1;
-        let mut literals = Vec::new();
+        let first = proof.literals.len();
         loop {
             let (lit_start, mut value, mut shift) = (pos as u64, 0u64, 0);
             loop {
@@ -121,11 +203,12 @@ fn parse_binary(name: &str, bytes: &[u8]) -> Result<Vec<DratStep>, InputError> {
                 let why = format!("encoded literal {value} is not a valid literal");
                 return Err(InputError::at_byte(name, lit_start, why));
             }
-            literals.push(if value & 1 == 1 { -(magnitude as i32) } else { magnitude as i32 });
+            proof.literals.push(if value & 1 == 1 { -(magnitude as i32) } else { magnitude as i32 });
         }
-        steps.push(DratStep { kind, literals, offset: start });
+        let length = proof.literals.len() - first;
+        proof.close_step(kind, start, length).ok_or_else(|| too_long(name, start))?;
     }
-    Ok(steps)
+    Ok(proof)
 }
 
 #[cfg(test)]
@@ -135,18 +218,26 @@ mod tests {
     #[test]
     fn binary_examples_from_the_format() {
         // 129 -> 82 02 and -8193 -> 83 80 01 (binary DRAT description; shared facts).
-        let steps = parse_drat("p", &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00]).unwrap();
+        let steps = parse_drat("p", &[b'a', 0x82, 0x02, 0x83, 0x80, 0x01, 0x00, b'd', 0x04, 0x00]).unwrap().to_steps();
         assert_eq!(steps[0], DratStep { kind: StepKind::Add, literals: vec![129, -8193], offset: 0 });
         assert_eq!(steps[1], DratStep { kind: StepKind::Delete, literals: vec![2], offset: 7 });
     }
 
     #[test]
     fn text_steps_with_offsets() {
-        let steps = parse_drat("p", b"1 -2 0\nd 1 -2 0\n0\n").unwrap();
+        let steps = parse_drat("p", b"1 -2 0\nd 1 -2 0\n0\n").unwrap().to_steps();
         assert_eq!(steps.len(), 3);
         assert_eq!(steps[1].kind, StepKind::Delete);
         assert_eq!(steps[1].offset, 7);
         assert!(steps[2].literals.is_empty());
+    }
+
+    #[test]
+    fn a_form_feed_is_white_space_in_text() {
+        let steps = parse_drat("p", b"1 -2 0\x0c\n-1 0\n").unwrap().to_steps();
+        assert_eq!(steps.len(), 2);
+        assert_eq!(steps[1].literals, vec![-1]);
+        assert_eq!(DratProof::from_steps(&steps).to_steps(), steps);
     }
 
     #[test]

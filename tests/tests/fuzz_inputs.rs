@@ -237,7 +237,7 @@ fn reference_refutes(formula: &[Vec<i32>], steps: &[Step]) -> bool {
 }
 
 fn drat_steps(bytes: &[u8]) -> Option<Vec<Step>> {
-    let steps = parse_drat("m", bytes).ok()?;
+    let steps = parse_drat("m", bytes).ok()?.to_steps();
     Some(
         steps
             .into_iter()

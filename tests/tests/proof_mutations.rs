@@ -9,7 +9,7 @@ use std::sync::atomic::{AtomicBool, AtomicU64};
 use ramsift_checker::bundle::check_bundle;
 use ramsift_checker::cnf::{parse_cnf, Cnf};
 use ramsift_checker::drat_check::check_drat;
-use ramsift_checker::drat_parse::{parse_drat, DratStep, StepKind};
+use ramsift_checker::drat_parse::{parse_drat, DratProof, DratStep, StepKind};
 use ramsift_checker::input::read_input;
 use ramsift_driver::certify::refute::{refute, RefuteOptions, RefuteResult};
 use ramsift_encoder::{EncodingLimits, Instance, RamseyEncoding, RamseySpec, SymmetrySet};
@@ -36,7 +36,9 @@ fn make_cliques_bundle(sizes: &[usize], order: usize, symmetry: &str, dir: &Path
 
 fn load(dir: &Path) -> (Cnf, Vec<DratStep>) {
     let cnf = parse_cnf("f", &read_input(&dir.join("formula.cnf.gz")).unwrap()).unwrap();
-    let steps = parse_drat("p", &read_input(&dir.join("proof.drat")).unwrap()).unwrap();
+    let steps = parse_drat("p", &read_input(&dir.join("proof.drat")).unwrap())
+        .unwrap()
+        .to_steps();
     (cnf, steps)
 }
 
@@ -57,7 +59,7 @@ struct Tally {
 /// Judges one mutant: if the reference finds no refutation, ours must reject it.
 fn judge(tally: &mut Tally, what: &str, cnf: &Cnf, steps: &[DratStep]) {
     let reference = reference_refutes(cnf.variables, &cnf.clauses, &as_reference(steps));
-    let ours = check_drat(cnf, steps, false).is_ok();
+    let ours = check_drat(cnf, &DratProof::from_steps(steps), false).is_ok();
     if reference {
         tally.harmless += 1;
         return;
@@ -78,7 +80,7 @@ fn mutate_trace(
     make_cliques_bundle(sizes, order, symmetry, dir.path());
     let (cnf, steps) = load(dir.path());
     assert!(
-        check_drat(&cnf, &steps, false).is_ok(),
+        check_drat(&cnf, &DratProof::from_steps(&steps), false).is_ok(),
         "the unmutated trace passes"
     );
     assert!(reference_refutes(
@@ -304,7 +306,7 @@ fn damaged_bundles_fail() {
             Box::new(move |d: &Path| {
                 let p = d.join("proof.drat");
                 let steps = parse_drat("p", &std::fs::read(&p).unwrap()).unwrap();
-                let cut = steps[(steps.len() as f64 * keep) as usize].offset as usize;
+                let cut = steps.step((steps.len() as f64 * keep) as usize).offset as usize;
                 let bytes = std::fs::read(&p).unwrap();
                 std::fs::write(&p, &bytes[..cut]).unwrap();
                 set_hash(d, "proof.drat");

@@ -63,8 +63,8 @@ fn compose_shard(cube: &Cube, trace: &[u8], out: &mut dyn Write) -> Result<(), S
         }
     })?;
     let io = |e| ShardError::io(COMPOSED_FILE)(e);
-    for step in steps.iter().filter(|s| s.kind == StepKind::Add) {
-        write_addition(out, &with_negated_cube(&step.literals, &cube.literals)).map_err(io)?;
+    for (_, literals, _) in steps.iter().filter(|(kind, _, _)| *kind == StepKind::Add) {
+        write_addition(out, &with_negated_cube(literals, &cube.literals)).map_err(io)?;
     }
     write_addition(out, &with_negated_cube(&[], &cube.literals)).map_err(io)
 }

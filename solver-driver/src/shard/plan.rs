@@ -607,7 +607,7 @@ mod tests {
                         variables: encoding.variable_count(),
                         clauses: negated,
                     };
-                    let verdict = check_drat(&cnf, &[], false);
+                    let verdict = check_drat(&cnf, &Default::default(), false);
                     assert!(
                         verdict.is_ok(),
                         "cube {}: lemma {lemma:?} is not RUP",
