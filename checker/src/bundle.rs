@@ -20,14 +20,14 @@ use std::path::{Path, PathBuf};
 
 use sha2::{Digest, Sha256};
 
-use crate::cnf::{parse_cnf, Cnf};
+use crate::cnf::{parse_cnf, parse_header, Cnf};
 use crate::drat_check::check_drat;
 use crate::drat_parse::parse_drat;
 use crate::input::{read_input, require_regular_file};
 use crate::input_error::InputError;
 use crate::manifest::{read_manifest, Manifest};
-use crate::premises::{certify_premises, PremiseStatus};
-use crate::regenerate::{normalized, regenerate, PremiseBound, Statement};
+use crate::premises::{certify_premises, PremiseRun, PremiseStatus};
+use crate::regenerate::{normalize, regenerate, PremiseBound, Statement};
 
 /// The verdict on a bundle.
 #[derive(Clone, Debug)]
@@ -39,6 +39,8 @@ pub struct BundleVerdict {
     pub order: usize,
     pub symmetry: Vec<String>,
     pub premises: Vec<PremiseStatus>,
+    /// Premise bundles present but not checked, each with why.
+    pub unchecked_premises: Vec<String>,
     /// Steps that passed, in words.
     pub passed: Vec<String>,
     /// The first failure; None means the bundle's own proof holds.
@@ -63,14 +65,14 @@ pub const MAX_PREMISE_DEPTH: usize = 8;
 /// Checks the bundle in `dir`; `premise_dirs` may certify its premises.
 /// Returns Err only when the bundle's own manifest cannot be read or accepted.
 pub fn check_bundle(dir: &Path, premise_dirs: &[PathBuf]) -> Result<BundleVerdict, InputError> {
-    check_nested(dir, premise_dirs, &mut Vec::new())
+    check_nested(dir, premise_dirs, &mut PremiseRun::default())
 }
 
-/// Checks a bundle below the ones in `chain` (canonical paths, outermost first).
+/// Checks a bundle below the ones in `run.chain` (canonical paths, outermost first).
 pub(crate) fn check_nested(
     dir: &Path,
     premise_dirs: &[PathBuf],
-    chain: &mut Vec<PathBuf>,
+    run: &mut PremiseRun,
 ) -> Result<BundleVerdict, InputError> {
     let name = dir.display().to_string();
     let root = dir.canonicalize().map_err(|e| InputError::whole(&name, format!("cannot open the bundle: {e}")))?;
@@ -94,17 +96,18 @@ pub(crate) fn check_nested(
         order,
         symmetry: statement.symmetry.clone(),
         premises: Vec::new(),
+        unchecked_premises: Vec::new(),
         passed: Vec::new(),
         failure: None,
     };
     let premises = check_own_proof(&root, &manifest, &statement, &mut verdict).and_then(|used| {
-        chain.push(root.clone());
-        let premises = certify_premises(&root, premise_dirs, &manifest, &used, chain);
-        chain.pop();
+        run.chain.push(root.clone());
+        let premises = certify_premises(&root, premise_dirs, &manifest, &used, run);
+        run.chain.pop();
         premises
     });
     match premises {
-        Ok(statuses) => verdict.premises = statuses,
+        Ok((statuses, unchecked)) => (verdict.premises, verdict.unchecked_premises) = (statuses, unchecked),
         Err(why) => verdict.failure = Some(why),
     }
     Ok(verdict)
@@ -126,7 +129,7 @@ pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
     Ok(path)
 }
 
-fn sha256_of(path: &Path) -> Result<String, String> {
+pub(crate) fn sha256_of(path: &Path) -> Result<String, String> {
     let mut hasher = Sha256::new();
     std::io::copy(&mut std::fs::File::open(path).map_err(|e| e.to_string())?, &mut hasher)
         .map_err(|e| e.to_string())?;
@@ -170,18 +173,30 @@ fn check_own_proof(
     verdict.passed.push(format!("{} files match their SHA-256", manifest.files.len()));
 
     let formula_name = formula.display().to_string();
-    let cnf = read_input(&formula)
-        .and_then(|b| parse_cnf(&formula_name, &b))
-        .map_err(|e| format!("the formula cannot be read: {e}"))?;
-    let regenerated = regenerate(statement, cnf.clauses.len())?;
-    let (ours, theirs) = ((cnf.variables, cnf.clauses.len()), (regenerated.variables, regenerated.clauses.len()));
-    if ours != theirs || normalized(&cnf.clauses) != normalized(&regenerated.clauses) {
+    let bytes = read_input(&formula).map_err(|e| format!("the formula cannot be read: {e}"))?;
+    let header = parse_header(&formula_name, &bytes).map_err(|e| format!("the formula cannot be read: {e}"))?;
+    // The claim's formula is regenerated first, never past the header's clause count,
+    // and compared by size before a single bundled clause is stored.
+    let mut regenerated = regenerate(statement, header.1)?;
+    let mismatch = |ours: (usize, usize), theirs: (usize, usize)| {
         let schemes = statement.symmetry.join(",");
-        return Err(format!("the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{schemes}] ({} variables, {} clauses)", ours.0, ours.1, theirs.0, theirs.1));
+        format!("the bundled formula ({} variables, {} clauses) is not the formula of the claim with symmetry [{schemes}] ({} variables, {} clauses)", ours.0, ours.1, theirs.0, theirs.1)
+    };
+    let theirs = (regenerated.variables, regenerated.clauses.len());
+    if header != theirs {
+        return Err(mismatch(header, theirs));
     }
+    let mut cnf = parse_cnf(&formula_name, &bytes).map_err(|e| format!("the formula cannot be read: {e}"))?;
+    drop(bytes);
+    normalize(&mut cnf.clauses);
+    normalize(&mut regenerated.clauses);
+    if cnf.clauses != regenerated.clauses {
+        return Err(mismatch(header, theirs));
+    }
+    drop(regenerated.clauses);
     verdict.passed.push(format!(
         "formula regenerated independently: {} variables, {} clauses, identical as a set",
-        ours.0, ours.1
+        header.0, header.1
     ));
 
     let cnf = with_minimality_clauses(cnf, minimality.as_deref(), manifest, statement, verdict)?;

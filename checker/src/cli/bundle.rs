@@ -33,6 +33,7 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
             None => format!("  premise {}: ASSUMED, not certified by any bundle ({})", p.statement, p.source),
         });
     }
+    lines.extend(verdict.unchecked_premises.iter().map(|why| format!("  {why}")));
     let mut report = match &verdict.failure {
         Some(why) => Report::new(Outcome::Fail, why.clone()),
         None if assumed.is_empty() => {
@@ -57,6 +58,7 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         .field("claim", verdict.claim.clone())
         .field("symmetry", verdict.symmetry.clone())
         .field("premises", premises)
+        .field("unchecked_premise_bundles", verdict.unchecked_premises.clone())
         .field("checks", verdict.passed.clone())
         .field("seconds", seconds)
 }
