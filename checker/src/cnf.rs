@@ -12,6 +12,27 @@ pub struct Cnf {
     pub clauses: Vec<Vec<i32>>,
 }
 
+/// The problem line's (variables, clauses), read before any clause is stored, so
+/// that a caller can compare them with what it expects first.
+pub fn parse_header(name: &str, bytes: &[u8]) -> Result<(usize, usize), InputError> {
+    for (index, line) in bytes.split(|&b| b == b'\n').enumerate() {
+        let line = String::from_utf8_lossy(line);
+        let trimmed = line.trim();
+        let comment =
+            trimmed.strip_prefix('c').is_some_and(|rest| rest.is_empty() || rest.starts_with(char::is_whitespace));
+        if trimmed.is_empty() || comment {
+            continue;
+        }
+        let words: Vec<&str> = trimmed.split_whitespace().collect();
+        return match words.as_slice() {
+            ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
+            _ => None,
+        }
+        .ok_or_else(|| InputError::at_line(name, index + 1, "expected the problem line `p cnf VARIABLES CLAUSES`"));
+    }
+    Err(InputError::whole(name, "no problem line `p cnf V C`"))
+}
+
 /// Parses DIMACS CNF text; `name` is used in error messages.
 pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     let text = std::str::from_utf8(bytes)

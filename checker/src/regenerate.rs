@@ -9,8 +9,13 @@
 //! * r >= 3: one at-least-one clause per edge; then, colour by colour, one clause
 //!   per k-subset saying "not all of its edges have this colour"; for a forbidden
 //!   graph other than a clique, one clause per copy of it in K_n, found here by
-//!   running through every injective placement of its vertices and keeping each
-//!   distinct edge set once;
+//!   running through the injective placements of its vertices and keeping each
+//!   distinct edge set once. Twins (vertices u, v with N(u) \ {v} = N(v) \ {u},
+//!   such as isolated vertices or a star's leaves) are interchangeable, so they
+//!   are placed in increasing order only; the copies are counted beforehand as
+//!   n!/(n-v)!/|Aut H| and compared with the bundled formula's clause count, so
+//!   the walk, at most |Aut H|/(twin orderings) placements per copy, never starts
+//!   on a claim whose formula could not match;
 //! * symmetry breaking: colour-swap units on the anchor edge {0,n-1}; lex-leader
 //!   comparators on consecutive rows of the colour-1 graph; degree bounds as
 //!   sequential counters, with the bound taken from the premises.
@@ -56,31 +61,78 @@ pub(crate) fn lit(colours: usize, a: usize, b: usize, colour: usize) -> i32 {
     }
 }
 
-/// Visits every sequence of `len` distinct vertices of 0..n (only increasing ones
-/// when `increasing`: the k-subsets) while `visit` returns true; false if stopped.
+/// Visits every sequence of `len` distinct vertices of 0..n while `visit` returns
+/// true; false if stopped. Position v only takes vertices above the one at
+/// `after[v]` (a position before v, or usize::MAX for none): all positions after
+/// the previous one gives the k-subsets, twins of a graph give one placement per
+/// ordering of each twin class. With `subsets` (each position after the previous
+/// one), a position leaves room for the positions after it.
 fn sequences(
     n: usize,
-    len: usize,
-    increasing: bool,
+    after: &[usize],
+    subsets: bool,
     chosen: &mut Vec<usize>,
     visit: &mut dyn FnMut(&[usize]) -> bool,
 ) -> bool {
-    if chosen.len() == len {
+    if chosen.len() == after.len() {
         return visit(chosen);
     }
-    let start = if increasing { chosen.last().map_or(0, |&l| l + 1) } else { 0 };
-    for x in start..n {
+    let start = chosen.get(after[chosen.len()]).map_or(0, |&l| l + 1);
+    let end = if subsets { n + chosen.len() + 1 - after.len() } else { n };
+    for x in start..end {
         if chosen.contains(&x) {
             continue;
         }
         chosen.push(x);
-        let go_on = sequences(n, len, increasing, chosen, visit);
+        let go_on = sequences(n, after, subsets, chosen, visit);
         chosen.pop();
         if !go_on {
             return false;
         }
     }
     true
+}
+
+/// For each vertex of the graph, the previous vertex of its twin class (usize::MAX for none).
+fn previous_twin(vertices: usize, edges: &[(usize, usize)]) -> Vec<usize> {
+    let adjacent = |a: usize, b: usize| edges.contains(&(a.min(b), a.max(b)));
+    let twins = |u: usize, v: usize| (0..vertices).all(|w| w == u || w == v || adjacent(u, w) == adjacent(v, w));
+    (0..vertices).map(|v| (0..v).rev().find(|&u| twins(u, v)).unwrap_or(usize::MAX)).collect()
+}
+
+/// n!/(n-v)!, or None past u128.
+fn placements(n: usize, v: usize) -> Option<u128> {
+    (n + 1 - v..=n).try_fold(1u128, |product, k| product.checked_mul(k as u128))
+}
+
+/// The number of copies of the graph in K_n: placements over automorphisms. The
+/// automorphisms are counted as orderly placements onto the graph itself that keep
+/// every adjacency (pruned vertex by vertex), times the orderings of twin classes.
+fn copies_of(n: usize, vertices: usize, edges: &[(usize, usize)], after: &[usize]) -> Option<u128> {
+    let mut adjacent = vec![vec![false; vertices]; vertices];
+    for &(a, b) in edges {
+        (adjacent[a][b], adjacent[b][a]) = (true, true);
+    }
+    fn automorphisms(adjacent: &[Vec<bool>], after: &[usize], place: &mut Vec<usize>) -> u128 {
+        let v = place.len();
+        if v == adjacent.len() {
+            return 1;
+        }
+        let start = place.get(after[v]).map_or(0, |&l| l + 1);
+        let mut count = 0;
+        for x in start..adjacent.len() {
+            if !place.contains(&x) && (0..v).all(|u| adjacent[u][v] == adjacent[place[u]][x]) {
+                place.push(x);
+                count += automorphisms(adjacent, after, place);
+                place.pop();
+            }
+        }
+        count
+    }
+    let twin_orderings: u128 = (0..vertices)
+        .map(|v| std::iter::successors(Some(v), |&u| Some(after[u]).filter(|&p| p != usize::MAX)).count() as u128)
+        .product();
+    Some(placements(n, vertices)? / (automorphisms(&adjacent, after, &mut Vec::new()) * twin_orderings))
 }
 
 /// Bounds that hold by definition: R(..,1,..) = 1, and entries 2 can be dropped.
@@ -193,15 +245,21 @@ fn forbidden_clauses(statement: &Statement, max_clauses: usize) -> Option<Vec<Ve
     for (index, graph) in statement.forbidden.iter().enumerate() {
         let colour = index + 1;
         let complete = match graph {
-            ClaimGraph::Clique(k) => sequences(n, *k, true, &mut Vec::new(), &mut |s| {
-                let pairs = s.iter().enumerate().flat_map(|(p, &a)| s[p + 1..].iter().map(move |&b| (a, b)));
-                clauses.push(pairs.map(|(a, b)| -lit(r, a, b, colour)).collect());
-                clauses.len() <= max_clauses
-            }),
+            ClaimGraph::Clique(k) => {
+                sequences(n, &(0..*k).map(|p| p.wrapping_sub(1)).collect::<Vec<_>>(), true, &mut Vec::new(), &mut |s| {
+                    let pairs = s.iter().enumerate().flat_map(|(p, &a)| s[p + 1..].iter().map(move |&b| (a, b)));
+                    clauses.push(pairs.map(|(a, b)| -lit(r, a, b, colour)).collect());
+                    clauses.len() <= max_clauses
+                })
+            }
             ClaimGraph::Graph { vertices, edges, .. } => {
                 let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
                 let room = max_clauses.saturating_sub(clauses.len());
-                let complete = sequences(n, *vertices, false, &mut Vec::new(), &mut |place| {
+                let after = previous_twin(*vertices, edges);
+                if copies_of(n, *vertices, edges, &after).is_none_or(|count| count > room as u128) {
+                    return None;
+                }
+                let complete = sequences(n, &after, false, &mut Vec::new(), &mut |place| {
                     let mut clause: Vec<i32> =
                         edges.iter().map(|&(a, b)| -lit(r, place[a], place[b], colour)).collect();
                     clause.sort_unstable();
@@ -268,10 +326,9 @@ fn at_most_k_clauses(xs: &[i32], k: usize, variables: usize, clauses: &mut Vec<V
     (m - 1) * k
 }
 
-/// Clauses as a sorted multiset of sorted clauses (order and literal order free).
-pub fn normalized(clauses: &[Vec<i32>]) -> Vec<Vec<i32>> {
-    let mut out: Vec<Vec<i32>> = clauses.to_vec();
-    out.iter_mut().for_each(|c| c.sort_unstable());
-    out.sort_unstable();
-    out
+/// Sorts clauses into a sorted multiset of sorted clauses (order and literal order
+/// free), in place, so that two formulas compare without copies.
+pub fn normalize(clauses: &mut [Vec<i32>]) {
+    clauses.iter_mut().for_each(|c| c.sort_unstable());
+    clauses.sort_unstable();
 }
