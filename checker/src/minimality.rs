@@ -50,8 +50,17 @@ pub fn verified_clauses(
             format!("expected {expected:?} (the claim's order and colours, and the order this checker implements)"),
         ));
     }
+    // A line holds n + r numbers and at most one literal per colour variable, each
+    // of at most `width` characters; anything longer is refused before it is split.
+    let variables = order * order.saturating_sub(1) / 2 * if r == 2 { 1 } else { r };
+    let width = variables.max(order).max(r).to_string().len() + 2;
+    let longest = (order + r + variables + 1) * width + 8;
     let mut clauses = Vec::new();
     for (index, line) in lines.enumerate() {
+        if line.len() > longest {
+            let why = format!("the line is longer than the {longest} characters a clause of this claim can take");
+            return Err(InputError::at_line(name, index + 3, why));
+        }
         let clause = verify_line(line, forbidden, order).map_err(|why| InputError::at_line(name, index + 3, why))?;
         clauses.push(clause);
     }
@@ -84,24 +93,24 @@ fn verify_line(line: &str, forbidden: &[ClaimGraph], n: usize) -> Result<Vec<i32
     }
     let variables = n * n.saturating_sub(1) / 2 * if r == 2 { 1 } else { r };
     let Some((&0, literals)) = clause.split_last() else { return Err("the clause does not end with 0".into()) };
-    // Values α gives the colour variables (the clause's negation): 1 true, -1 false.
-    let mut alpha = vec![0i8; variables + 1];
+    // Values α gives the colour variables (the clause's negation): 1 true, -1 false;
+    // kept for the clause's variables only, so a line costs its own length.
+    let mut alpha: std::collections::HashMap<usize, i8> = std::collections::HashMap::with_capacity(literals.len());
     for &l in literals {
         let var = l.unsigned_abs() as usize;
         if l == 0 || var > variables {
             return Err(format!("literal {l} is not a colour variable (1..={variables})"));
         }
-        if alpha[var] != 0 {
+        if alpha.insert(var, if l > 0 { -1 } else { 1 }).is_some() {
             return Err(format!("variable {var} occurs twice"));
         }
-        alpha[var] = if l > 0 { -1 } else { 1 };
     }
     // The colour α fixes for edge {a,b}: the first colour whose literal (the
     // regenerated formula's variable map) α makes true, those before it false.
     let colour_of = |a: usize, b: usize| -> u8 {
         for c in 1..=r {
             let l = lit(r, a, b, c);
-            match alpha[l.unsigned_abs() as usize] * l.signum() as i8 {
+            match alpha.get(&(l.unsigned_abs() as usize)).map_or(0, |&v| v * l.signum() as i8) {
                 1 => return c as u8,
                 -1 => continue,
                 _ => return 0,
@@ -110,8 +119,15 @@ fn verify_line(line: &str, forbidden: &[ClaimGraph], n: usize) -> Result<Vec<i32
         0
     };
     let identity = s.iter().enumerate().all(|(k, &c)| c == k as i64 + 1);
+    // Under the identity colour map an edge the vertex map sends to itself compares
+    // equal; in a column j that p fixes, only moved rows i need a look, so the walk
+    // costs O(n + literals), not O(n^2).
+    let moved: Vec<usize> = (0..n).filter(|&i| p[i] as usize != i).collect();
     for j in 1..n {
-        for i in 0..j {
+        let fixed_column = identity && p[j] as usize == j;
+        let rows: Box<dyn Iterator<Item = usize>> =
+            if fixed_column { Box::new(moved.iter().copied().take_while(|&i| i < j)) } else { Box::new(0..j) };
+        for i in rows {
             let (u, v) = (p[i] as usize, p[j] as usize);
             if identity && (u.min(v), u.max(v)) == (i, j) {
                 continue;
