@@ -38,7 +38,11 @@ pub fn expand_gzip(name: &str, raw: Vec<u8>) -> Result<Vec<u8>, InputError> {
     if !raw.starts_with(&[0x1f, 0x8b]) {
         return Ok(raw);
     }
-    let (limit, mut out) = (raw.len() as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE, Vec::new());
+    let limit = raw.len() as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE;
+    // The trailer's size field (RFC 1952, ISIZE: the last member's size mod 2^32)
+    // sizes the buffer for an honest file; a false one costs at most growth as usual.
+    let stated = raw.len().checked_sub(4).map_or(0, |at| u32::from_le_bytes(raw[at..].try_into().unwrap_or([0; 4])));
+    let mut out = Vec::with_capacity((stated as u64).min(limit) as usize);
     let decoded = flate2::read::MultiGzDecoder::new(&raw[..]).take(limit + 1).read_to_end(&mut out);
     decoded.map_err(|e| InputError::whole(name, format!("gzip data is damaged: {e}")))?;
     if out.len() as u64 > limit {
