@@ -533,3 +533,133 @@ fn plan_and_shard_result_mutants() {
         complete_result(&plan_dir, 0, &sha).is_some()
     });
 }
+
+/// The colourings of K6 in two colours (edge e's colour as bit 14 - e, so that
+/// numeric order is the checker's order: edge index first, colour 1 smallest)
+/// that are the least of their class under relabelling the vertices and
+/// swapping the colours; written apart from the checker by brute force.
+fn least_colourings_of_k6() -> Vec<u32> {
+    let edges: Vec<(usize, usize)> = (1..6).flat_map(|j| (0..j).map(move |i| (i, j))).collect();
+    let index = |a: usize, b: usize| {
+        edges
+            .iter()
+            .position(|&e| e == (a.min(b), a.max(b)))
+            .unwrap()
+    };
+    let mut perms: Vec<Vec<usize>> = vec![vec![]];
+    for _ in 0..6 {
+        let mut longer = Vec::new();
+        for p in &perms {
+            for v in (0..6).filter(|v| !p.contains(v)) {
+                longer.push([p.clone(), vec![v]].concat());
+            }
+        }
+        perms = longer;
+    }
+    let mut seen = vec![false; 1 << 15];
+    let mut least = Vec::new();
+    for colouring in 0u32..1 << 15 {
+        if seen[colouring as usize] {
+            continue;
+        }
+        least.push(colouring);
+        for p in &perms {
+            for swap in [0, (1 << 15) - 1] {
+                let image = edges.iter().enumerate().fold(0u32, |acc, (e, &(a, b))| {
+                    let bit = colouring >> (14 - e) & 1;
+                    acc | bit << (14 - index(p[a], p[b]))
+                });
+                seen[(image ^ swap) as usize] = true;
+            }
+        }
+    }
+    least
+}
+
+/// Whether every least colouring of K6 satisfies `clause` (variable e+1 true is colour 1).
+fn kept_by_every_least_colouring(least: &[u32], clause: &[i32]) -> bool {
+    least.iter().all(|&c| {
+        clause.iter().any(|&l| {
+            let colour_one = c >> (14 - (l.unsigned_abs() - 1)) & 1 == 0;
+            colour_one == (l > 0)
+        })
+    })
+}
+
+#[test]
+fn minimality_certificate_mutants() {
+    // R(3,3) <= 6 with the minimality scheme alone (R(3,3) = 6: Greenwood & Gleason 1955).
+    let dir = tempfile::tempdir().unwrap();
+    ramsift_tests::bundle_files::make_bundle("3,3", 6, "minimality", dir.path());
+    let path = dir.path().join("minimality.txt");
+    let base = std::fs::read(&path).unwrap();
+    let least = least_colourings_of_k6();
+    // 156 graphs on 6 vertices (OEIS A000088), none self-complementary (n = 2 mod 4),
+    // so 78 classes up to colour swap; "edge {0,1} has colour 2" loses the least ones.
+    assert_eq!(least.len(), 78);
+    assert!(!kept_by_every_least_colouring(&least, &[-1]));
+    fuzz("minimality certificate", 9, &base, |m| {
+        std::fs::write(&path, m).unwrap();
+        ramsift_tests::bundle_files::set_hash(dir.path(), "minimality.txt");
+        match check_bundle(dir.path(), &[]) {
+            Ok(verdict) if verdict.passed() => {
+                // Every clause the checker took must keep the least member of every class.
+                for line in String::from_utf8_lossy(m).lines().skip(2) {
+                    let clause: Vec<i32> = line
+                        .rsplit('/')
+                        .next()
+                        .unwrap()
+                        .split_whitespace()
+                        .map(|t| t.parse().unwrap())
+                        .collect();
+                    let clause = &clause[..clause.len() - 1];
+                    assert!(
+                        kept_by_every_least_colouring(&least, clause),
+                        "unsound clause accepted: {line}"
+                    );
+                }
+                true
+            }
+            _ => false,
+        }
+    });
+}
+
+#[test]
+fn nested_premise_mutants() {
+    // R(3,4) <= 9 resting on R(3,3) <= 6 in premises/ (both: Greenwood & Gleason 1955).
+    let dir = tempfile::tempdir().unwrap();
+    let top = dir.path().join("top");
+    let o = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
+        .args(["refute", "3,4", "9", "-q", "--out"])
+        .arg(&top)
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(20),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let path = top.join("premises/R3-3-6/manifest.json");
+    let base = std::fs::read(&path).unwrap();
+    fuzz("nested premise manifest", 10, &base, |m| {
+        std::fs::write(&path, m).unwrap();
+        match check_bundle(&top, &[]) {
+            Ok(verdict) if verdict.unconditional() => {
+                // Only a premise bundle that proves R(3,3) <= 6 itself may certify it.
+                assert_eq!(verdict.premises.len(), 1);
+                assert_eq!(verdict.premises[0].statement, "R(3,3) <= 6");
+                let premise = check_bundle(&top.join("premises/R3-3-6"), &[]).unwrap();
+                assert_eq!(
+                    premise.claim,
+                    "R(3,3) <= 6",
+                    "{}",
+                    String::from_utf8_lossy(m)
+                );
+                true
+            }
+            _ => false,
+        }
+    });
+}
