@@ -10,10 +10,11 @@
 //!   per k-subset saying "not all of its edges have this colour"; for a forbidden
 //!   graph other than a clique, one clause per copy of it in K_n, found here by
 //!   running through the injective placements of its vertices and keeping each
-//!   distinct edge set once. Twins (vertices u, v with N(u) \ {v} = N(v) \ {u},
-//!   such as isolated vertices or a star's leaves) are interchangeable, so they
-//!   are placed in increasing order only; the copies are counted beforehand as
-//!   n!/(n-v)!/|Aut H| and compared with the bundled formula's clause count, so
+//!   distinct edge set once. Isolated vertices change no edge set, so they are
+//!   not placed at all; twins (vertices u, v with N(u) \ {v} = N(v) \ {u}, such
+//!   as a star's leaves) are interchangeable, so they are placed in increasing
+//!   order only. The copies are counted beforehand as n!/(n-v)!/|Aut H| (H and v
+//!   without isolated vertices) and compared with the bundled formula's clause count, so
 //!   the walk, at most |Aut H|/(twin orderings) placements per copy, never starts
 //!   on a claim whose formula could not match;
 //! * symmetry breaking: colour-swap units on the anchor edge {0,n-1}; lex-leader
@@ -91,6 +92,13 @@ fn sequences(
         }
     }
     true
+}
+
+/// The graph on its non-isolated vertices (renumbered in order).
+fn without_isolated(vertices: usize, edges: &[(usize, usize)]) -> (usize, Vec<(usize, usize)>) {
+    let kept: Vec<usize> = (0..vertices).filter(|&v| edges.iter().any(|&(a, b)| a == v || b == v)).collect();
+    let new = |v: usize| kept.iter().position(|&k| k == v).expect("an edge's end is kept");
+    (kept.len(), edges.iter().map(|&(a, b)| (new(a), new(b))).collect())
 }
 
 /// For each vertex of the graph, the previous vertex of its twin class (usize::MAX for none).
@@ -255,6 +263,7 @@ fn forbidden_clauses(statement: &Statement, max_clauses: usize) -> Option<Vec<Ve
             ClaimGraph::Graph { vertices, edges, .. } => {
                 let mut copies: BTreeSet<Vec<i32>> = BTreeSet::new();
                 let room = max_clauses.saturating_sub(clauses.len());
+                let (vertices, edges) = &without_isolated(*vertices, edges);
                 let after = previous_twin(*vertices, edges);
                 if copies_of(n, *vertices, edges, &after).is_none_or(|count| count > room as u128) {
                     return None;
@@ -331,4 +340,59 @@ fn at_most_k_clauses(xs: &[i32], k: usize, variables: usize, clauses: &mut Vec<V
 pub fn normalize(clauses: &mut [Vec<i32>]) {
     clauses.iter_mut().for_each(|c| c.sort_unstable());
     clauses.sort_unstable();
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use proptest::prelude::*;
+
+    /// Every injective placement, each distinct edge set kept once: the plain walk.
+    fn distinct_copies(n: usize, vertices: usize, edges: &[(usize, usize)]) -> BTreeSet<Vec<(usize, usize)>> {
+        let mut copies = BTreeSet::new();
+        sequences(n, &vec![usize::MAX; vertices], false, &mut Vec::new(), &mut |place| {
+            let mut copy: Vec<(usize, usize)> =
+                edges.iter().map(|&(a, b)| (place[a].min(place[b]), place[a].max(place[b]))).collect();
+            copy.sort_unstable();
+            copies.insert(copy);
+            true
+        });
+        copies
+    }
+
+    #[test]
+    fn one_edge_among_ten_vertices_has_one_copy_per_edge() {
+        let (vertices, edges) = without_isolated(10, &[(0, 1)]);
+        assert_eq!((vertices, edges.clone()), (2, vec![(0, 1)]));
+        assert_eq!(copies_of(20, vertices, &edges, &previous_twin(2, &edges)), Some(190)); // C(20,2)
+                                                                                           // C4 in K6: 6!/2!/8 = 45 (|Aut C4| = 8, the dihedral group; common practice).
+        let c4 = [(0, 1), (1, 2), (2, 3), (0, 3)];
+        assert_eq!(copies_of(6, 4, &c4, &previous_twin(4, &c4)), Some(45));
+    }
+
+    proptest! {
+        #[test]
+        fn twin_ordered_walk_meets_every_copy_and_counts_them(
+            vertices in 2usize..=6, extra in 0usize..=2, bits in any::<u16>()
+        ) {
+            let pairs: Vec<(usize, usize)> = (0..vertices).flat_map(|b| (0..b).map(move |a| (a, b))).collect();
+            let mut edges: Vec<(usize, usize)> =
+                pairs.iter().enumerate().filter(|(i, _)| bits >> (i % 16) & 1 == 1).map(|(_, &e)| e).collect();
+            if edges.is_empty() { edges.push((0, 1)); }
+            let n = vertices + extra;
+            let (vertices, edges) = without_isolated(vertices, &edges);
+            let after = previous_twin(vertices, &edges);
+            let mut ordered = BTreeSet::new();
+            sequences(n, &after, false, &mut Vec::new(), &mut |place| {
+                let mut copy: Vec<(usize, usize)> =
+                    edges.iter().map(|&(a, b)| (place[a].min(place[b]), place[a].max(place[b]))).collect();
+                copy.sort_unstable();
+                ordered.insert(copy);
+                true
+            });
+            let all = distinct_copies(n, vertices, &edges);
+            prop_assert_eq!(&ordered, &all);
+            prop_assert_eq!(copies_of(n, vertices, &edges, &after), Some(all.len() as u128));
+        }
+    }
 }
