@@ -17,19 +17,19 @@
 //! those, an LRAT proof of the same refutation is written on request.
 //!
 //! Memory follows the proof's size, whatever its shape: every clause's literals
-//! live in one arena behind a 24-byte header, clauses are found for deletion by a
-//! keyed hash of their content (one table entry per distinct clause), and a lemma
+//! live in one arena behind a 24-byte header, watch lists are linked through two
+//! nodes per clause ([`crate::watch_lists`]), clauses are found for deletion by a
+//! keyed hash of their content ([`crate::clause_index`]), and a lemma
 //! identical to a clause still present is not stored again: it only raises that
 //! clause's count of copies (a deletion lowers it first). Such a copy is implied by
 //! the clause it repeats, so it needs no check of its own.
 
-use std::collections::HashMap;
-use std::hash::BuildHasher;
-
+use crate::clause_index::ClauseIndex;
 use crate::cnf::Cnf;
 use crate::dense_vars::DenseVars;
 use crate::drat_parse::{DratProof, StepKind};
 use crate::lrat::{number_lemmas, Justification, LratLemma};
+use crate::watch_lists::WatchLists;
 
 /// What a successful check found.
 #[derive(Clone, Debug, Default, PartialEq, Eq)]
@@ -90,12 +90,31 @@ struct Clause {
     pivot: Lit,
     /// Copies beyond the first that the proof added and has not yet deleted.
     copies: u32,
-    active: bool,
-    core: bool,
-    /// Whether the watch entry of position 0 / 1 is present in a list.
-    watched: [bool; 2],
-    /// Which kind of list (CORE or OTHER) holds its entries.
-    list: u8,
+    /// ACTIVE, IN_CORE, WATCHED << p (node 2c + p is in a list), CORE_LIST.
+    flags: u8,
+}
+
+const ACTIVE: u8 = 1;
+const IN_CORE: u8 = 2;
+const WATCHED: u8 = 4;
+const CORE_LIST: u8 = 16;
+
+impl Clause {
+    fn has(&self, flag: u8) -> bool {
+        self.flags & flag != 0
+    }
+
+    fn set(&mut self, flag: u8, on: bool) {
+        self.flags = if on { self.flags | flag } else { self.flags & !flag };
+    }
+
+    fn list(&self) -> u8 {
+        if self.has(CORE_LIST) {
+            CORE
+        } else {
+            OTHER
+        }
+    }
 }
 
 const NO_PIVOT: Lit = u32::MAX;
@@ -116,14 +135,6 @@ const IMPLICIT: u32 = u32::MAX;
 /// Checked lemmas with their justifications, or why the proof fails.
 type Justified = Result<Vec<(u32, Justification)>, DratFailure>;
 
-/// Active clauses by content: a keyed hash of the sorted literals leads to the
-/// newest clause with that hash, and each clause to the next older one.
-struct ContentIndex {
-    newest: HashMap<u64, u32>,
-    older: Vec<u32>,
-    keys: std::collections::hash_map::RandomState,
-}
-
 /// Outcome of propagating the negation of a clause.
 enum Rup {
     /// The clause is a tautology.
@@ -136,7 +147,7 @@ enum Rup {
 struct Checker {
     clauses: Vec<Clause>,
     arena: Vec<Lit>,
-    watches: [Vec<Vec<u32>>; 2],
+    watches: WatchLists,
     units: Vec<u32>,
     is_true: Vec<bool>,
     reason: Vec<u32>,
@@ -151,7 +162,7 @@ impl Checker {
         let (lits, vars) = (2 * (max_var + 1), max_var + 1);
         let (reason, trail_position, seen) = (vec![NO_REASON; vars], vec![0; vars], vec![false; vars]);
         let (clauses, units, trail, pending_core) = (Vec::new(), Vec::new(), Vec::new(), Vec::new());
-        let (watches, is_true) = ([vec![Vec::new(); lits], vec![Vec::new(); lits]], vec![false; lits]);
+        let (watches, is_true) = (WatchLists::new(lits), vec![false; lits]);
         let arena = Vec::new();
         Checker { clauses, arena, watches, units, is_true, reason, trail_position, seen, trail, pending_core }
     }
@@ -165,6 +176,19 @@ impl Checker {
         self.arena[self.clauses[id as usize].start + k]
     }
 
+    /// Whether clause `id` holds exactly the literals of `key` (sorted, each once);
+    /// None when it is deleted.
+    fn same_active(&self, id: u32, key: &[Lit]) -> Option<bool> {
+        let lits = self.lits(id);
+        self.clauses[id as usize]
+            .has(ACTIVE)
+            .then(|| lits.len() == key.len() && lits.iter().all(|l| key.binary_search(l).is_ok()))
+    }
+
+    fn index(&self, index: &mut ClauseIndex, id: u32) {
+        index.insert(id, self.lits(id), |other| self.clauses[other as usize].has(ACTIVE).then(|| self.lits(other)));
+    }
+
     /// Adds a clause of sorted literal codes without repeats (`key`); `pivot` is kept first.
     fn add_clause(&mut self, key: &[Lit], pivot: Option<Lit>) -> u32 {
         let start = self.arena.len();
@@ -175,31 +199,24 @@ impl Checker {
             self.arena.swap(start, start + at);
         }
         let id = self.clauses.len() as u32;
-        self.clauses.push(Clause {
-            start,
-            len: key.len() as u32,
-            pivot: pivot.unwrap_or(NO_PIVOT),
-            copies: 0,
-            active: false,
-            core: false,
-            watched: [false, false],
-            list: OTHER,
-        });
+        let (len, pivot) = (key.len() as u32, pivot.unwrap_or(NO_PIVOT));
+        self.clauses.push(Clause { start, len, pivot, copies: 0, flags: 0 });
+        self.watches.add_clause(id);
         self.activate(id);
         id
     }
 
     fn activate(&mut self, id: u32) {
         let clause = &mut self.clauses[id as usize];
-        clause.active = true;
+        clause.set(ACTIVE, true);
         match clause.len {
             0 => {}
             1 => self.units.push(id),
             _ => {
                 for p in 0..2 {
-                    if !clause.watched[p] {
-                        clause.watched[p] = true;
-                        self.watches[clause.list as usize][self.arena[clause.start + p] as usize].push(id);
+                    if !clause.has(WATCHED << p) {
+                        clause.set(WATCHED << p, true);
+                        self.watches.link(clause.list(), self.arena[clause.start + p], 2 * id + p as u32);
                     }
                 }
             }
@@ -208,8 +225,8 @@ impl Checker {
 
     fn mark_core(&mut self, id: u32) {
         let clause = &mut self.clauses[id as usize];
-        if !clause.core {
-            clause.core = true;
+        if !clause.has(IN_CORE) {
+            clause.set(IN_CORE, true);
             if clause.len >= 2 {
                 self.pending_core.push(id);
             }
@@ -221,20 +238,17 @@ impl Checker {
     fn migrate_core_watches(&mut self) {
         for id in std::mem::take(&mut self.pending_core) {
             let clause = &mut self.clauses[id as usize];
-            if clause.list == CORE {
+            if clause.has(CORE_LIST) {
                 continue;
             }
             for p in 0..2 {
-                if clause.watched[p] {
-                    let lit = self.arena[clause.start + p] as usize;
-                    let list = &mut self.watches[OTHER as usize][lit];
-                    if let Some(at) = list.iter().position(|&c| c == id) {
-                        list.swap_remove(at);
-                    }
-                    self.watches[CORE as usize][lit].push(id);
+                if clause.has(WATCHED << p) {
+                    let (lit, node) = (self.arena[clause.start + p], 2 * id + p as u32);
+                    self.watches.unlink(OTHER, lit, node);
+                    self.watches.link(CORE, lit, node);
                 }
             }
-            clause.list = CORE;
+            clause.set(CORE_LIST, true);
         }
     }
 
@@ -280,45 +294,34 @@ impl Checker {
 
     /// Visits the clauses of one kind watching `falsified`.
     fn visit(&mut self, kind: u8, falsified: Lit) -> Option<u32> {
-        let mut list = std::mem::take(&mut self.watches[kind as usize][falsified as usize]);
-        let mut i = 0;
-        let mut conflict = None;
-        while i < list.len() {
-            let id = list[i];
+        let mut next = self.watches.first(kind, falsified);
+        while let Some(node) = next {
+            next = self.watches.after(node);
+            let (id, p) = (node / 2, (node % 2) as usize);
             let clause = &mut self.clauses[id as usize];
+            if !clause.has(ACTIVE) {
+                clause.set(WATCHED << p, false);
+                self.watches.unlink(kind, falsified, node);
+                continue;
+            }
             let lits = &mut self.arena[clause.start..clause.start + clause.len as usize];
-            if !clause.active {
-                let p = if lits[0] == falsified { 0 } else { 1 };
-                clause.watched[p] = false;
-                list.swap_remove(i);
+            let other = lits[1 - p];
+            if self.is_true[other as usize] {
                 continue;
             }
-            if lits[0] == falsified {
-                lits.swap(0, 1);
-                clause.watched.swap(0, 1);
-            }
-            let first = lits[0];
-            if self.is_true[first as usize] {
-                i += 1;
+            if let Some(k) = lits[2..].iter().position(|&l| !self.is_true[(l ^ 1) as usize]) {
+                lits.swap(p, k + 2);
+                let watched = lits[p];
+                self.watches.unlink(kind, falsified, node);
+                self.watches.link(kind, watched, node);
                 continue;
             }
-            let replacement = lits[2..].iter().position(|&l| !self.is_true[(l ^ 1) as usize]).map(|k| k + 2);
-            if let Some(k) = replacement {
-                lits.swap(1, k);
-                let new_watch = lits[1] as usize;
-                self.watches[kind as usize][new_watch].push(id);
-                list.swap_remove(i);
-                continue;
+            if self.is_true[(other ^ 1) as usize] {
+                return Some(id);
             }
-            if self.is_true[(first ^ 1) as usize] {
-                conflict = Some(id);
-                break;
-            }
-            self.assign(first, id);
-            i += 1;
+            self.assign(other, id);
         }
-        self.watches[kind as usize][falsified as usize] = list;
-        conflict
+        None
     }
 
     /// Collects the clauses that led to `conflict`, marking them core; returns them
@@ -374,7 +377,7 @@ impl Checker {
         let mut k = 0;
         while k < self.units.len() {
             let id = self.units[k];
-            if !self.clauses[id as usize].active {
+            if !self.clauses[id as usize].has(ACTIVE) {
                 self.units.swap_remove(k);
                 continue;
             }
@@ -399,7 +402,7 @@ impl Checker {
         let pivot = Some(self.clauses[lemma as usize].pivot).filter(|&p| p != NO_PIVOT)?;
         let lemma_lits = self.lits(lemma).to_vec();
         let candidates: Vec<u32> = (0..self.clauses.len() as u32)
-            .filter(|&id| self.clauses[id as usize].active && self.lits(id).contains(&(pivot ^ 1)))
+            .filter(|&id| self.clauses[id as usize].has(ACTIVE) && self.lits(id).contains(&(pivot ^ 1)))
             .collect();
         let mut proofs = Vec::new();
         for candidate in candidates {
@@ -418,18 +421,18 @@ impl Checker {
     /// Adds the lemmas and applies the deletions in proof order, up to the first empty
     /// lemma (or an implicit one at the end); returns the steps to undo backwards.
     fn forward_pass(&mut self, cnf: &Cnf, proof: &DratProof, vars: &DenseVars, report: &mut DratReport) -> Vec<Record> {
-        let mut index = ContentIndex::new();
+        let mut index = ClauseIndex::new();
         let mut key = Vec::new();
         for clause in &cnf.clauses {
             fill_key(&mut key, clause.iter().copied());
             let id = self.add_clause(&key, None);
-            index.insert(id, &key);
+            self.index(&mut index, id);
         }
         let mut records = Vec::new();
         let mut empty_lemma: Option<u32> = None;
         for (step, (kind, literals, _)) in proof.iter().enumerate() {
             fill_key(&mut key, literals.iter().map(|&l| vars.dense(l)));
-            let found = index.find_active(self, &key);
+            let found = index.find(index.hash(&key), |id| self.same_active(id, &key));
             match (kind, found) {
                 (StepKind::Add, Some(id)) => {
                     report.lemmas += 1;
@@ -439,7 +442,7 @@ impl Checker {
                 (StepKind::Add, None) => {
                     report.lemmas += 1;
                     let id = self.add_clause(&key, literals.first().map(|&l| code(vars.dense(l))));
-                    index.insert(id, &key);
+                    self.index(&mut index, id);
                     records.push(Record::Add(id, step as u32));
                     if literals.is_empty() {
                         empty_lemma = Some(id);
@@ -459,7 +462,7 @@ impl Checker {
                     } else if clause.len == 1 {
                         report.ignored_unit_deletions += 1;
                     } else {
-                        clause.active = false;
+                        clause.set(ACTIVE, false);
                         records.push(Record::Delete(id));
                     }
                 }
@@ -500,8 +503,8 @@ impl Checker {
                 }
                 Record::Add(id, step) => (id, step),
             };
-            self.clauses[id as usize].active = false;
-            if !self.clauses[id as usize].core {
+            self.clauses[id as usize].set(ACTIVE, false);
+            if !self.clauses[id as usize].has(IN_CORE) {
                 continue;
             }
             report.checked_lemmas += 1;
@@ -531,44 +534,6 @@ impl Checker {
     }
 }
 
-impl ContentIndex {
-    fn new() -> Self {
-        ContentIndex { newest: HashMap::new(), older: Vec::new(), keys: Default::default() }
-    }
-
-    fn insert(&mut self, id: u32, key: &[Lit]) {
-        let hash = self.keys.hash_one(key);
-        let previous = self.newest.insert(hash, id).unwrap_or(u32::MAX);
-        self.older.resize(id as usize + 1, u32::MAX);
-        self.older[id as usize] = previous;
-    }
-
-    /// The newest active clause with exactly the literals of `key`; inactive
-    /// clauses met on the way are unlinked (in the forward pass they stay deleted).
-    fn find_active(&mut self, checker: &Checker, key: &[Lit]) -> Option<u32> {
-        let hash = self.keys.hash_one(key);
-        let (mut previous, mut current) = (u32::MAX, self.newest.get(&hash).copied().unwrap_or(u32::MAX));
-        while current != u32::MAX {
-            let next = self.older[current as usize];
-            if !checker.clauses[current as usize].active {
-                match previous {
-                    u32::MAX if next == u32::MAX => drop(self.newest.remove(&hash)),
-                    u32::MAX => drop(self.newest.insert(hash, next)),
-                    _ => self.older[previous as usize] = next,
-                }
-            } else if checker.lits(current).len() == key.len()
-                && checker.lits(current).iter().all(|l| key.binary_search(l).is_ok())
-            {
-                return Some(current);
-            } else {
-                previous = current;
-            }
-            current = next;
-        }
-        None
-    }
-}
-
 /// A clause's literal codes, sorted and without repeats, into `key`.
 fn fill_key(key: &mut Vec<Lit>, lits: impl Iterator<Item = i32>) {
     key.clear();
@@ -585,6 +550,7 @@ pub fn check_drat(
 ) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
     let mut vars = DenseVars::new(&cnf.clauses);
     proof.all_literals().iter().for_each(|&l| vars.add(l));
+    let vars = vars.sealed();
     let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
     if cnf.clauses.iter().any(|c| c.is_empty()) {
         report.formula_has_empty_clause = true;
@@ -593,7 +559,7 @@ pub fn check_drat(
     let mut checker = Checker::new(vars.max_var());
     let records = checker.forward_pass(cnf, proof, &vars, &mut report);
     let mut justified = checker.backward_pass(&records, proof, emit_lrat, &mut report)?;
-    report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.core).count();
+    report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.has(IN_CORE)).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {

@@ -27,6 +27,7 @@
 
 pub mod bundle;
 pub mod claim;
+mod clause_index;
 pub mod cnf;
 pub mod colouring_file;
 pub mod dense_vars;
@@ -43,6 +44,7 @@ pub mod premises;
 pub mod regenerate;
 pub mod shards;
 pub mod subgraphs;
+mod watch_lists;
 pub mod witness;
 
 pub use claim::{Claim, ClaimGraph};

@@ -206,6 +206,7 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
             lemma.literals.iter().for_each(|&l| vars.add(l));
         }
     }
+    let vars = vars.sealed();
     if cnf.clauses.iter().any(Vec::is_empty) {
         return Ok(LratReport::default());
     }
