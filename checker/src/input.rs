@@ -51,3 +51,36 @@ pub fn expand_gzip(name: &str, raw: Vec<u8>) -> Result<Vec<u8>, InputError> {
     }
     Ok(out)
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use std::io::Write;
+
+    /// gzip of `size` zero bytes whose header carries a comment of `pad` bytes
+    /// (RFC 1952 FCOMMENT): the padding sets the compressed size.
+    fn zeros(size: usize, pad: usize) -> Vec<u8> {
+        let builder = flate2::GzBuilder::new().comment(vec![b'x'; pad]);
+        let mut encoder = builder.write(Vec::new(), flate2::Compression::best());
+        encoder.write_all(&vec![0u8; size]).unwrap();
+        encoder.finish().unwrap()
+    }
+
+    /// `size` zeros compressed into exactly `compressed` bytes.
+    fn zeros_in(size: usize, compressed: usize) -> Vec<u8> {
+        let bare = zeros(size, 0).len();
+        let padded = zeros(size, compressed - bare);
+        assert_eq!(padded.len(), compressed);
+        padded
+    }
+
+    #[test]
+    fn gzip_expands_up_to_its_limit_and_not_a_byte_more() {
+        let compressed = 100_000;
+        let limit = compressed as u64 * MAX_GZIP_RATIO + GZIP_ALLOWANCE;
+        let at_limit = expand_gzip("z", zeros_in(limit as usize, compressed)).unwrap();
+        assert_eq!(at_limit.len() as u64, limit);
+        let over = expand_gzip("z", zeros_in(limit as usize + 1, compressed)).unwrap_err();
+        assert!(over.to_string().contains("expands beyond 87108864 bytes"), "{over}");
+    }
+}
