@@ -132,7 +132,8 @@ pub(crate) fn certify_premises(
         if let Some(why) = &verdict.failure {
             return Err(format!("{label} fails: {why}"));
         }
-        if verdict.unconditional() {
+        // What the full check proved (not the manifest read above) decides.
+        if verdict.unconditional() && sorted(&verdict.clique_sizes) == sorted(&sizes) && verdict.order == order {
             wanted.iter().for_each(|&i| statuses[i].certified_by = Some(path.clone()));
         }
     }
