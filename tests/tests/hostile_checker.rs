@@ -8,6 +8,10 @@ use std::process::{Command, Output, Stdio};
 use std::time::{Duration, Instant};
 
 use ramsift_tests::binaries::workspace_binary;
+use ramsift_tests::hostile_inputs::{
+    isolated_vertices_claim, long_minimality_line, many_minimality_lines, multipartite_colouring,
+    unit_clause_formula, unit_lemma_trace,
+};
 
 // The worked example of the LRAT paper (Cruz-Filipe, Heule, Hunt, Kaufmann &
 // Schneider-Kamp, CADE 2017): all four clauses over two variables.
@@ -323,24 +327,11 @@ fn colouring_failures_name_the_forbidden_graph_and_its_edges() {
 // Costs: each case below is small on disk and ran for minutes or needed gigabytes
 // before the checker bounded its work and memory by the input's size.
 
-fn gzip(bytes: &[u8]) -> Vec<u8> {
-    use std::io::Write;
-    let mut encoder = flate2::write::GzEncoder::new(Vec::new(), flate2::Compression::best());
-    encoder.write_all(bytes).unwrap();
-    encoder.finish().unwrap()
-}
-
 /// A (3,3;6) bundle (R(3,3) = 6: Greenwood & Gleason 1955) in `d/name`.
 fn small_bundle(d: &Path, name: &str) -> PathBuf {
     let bundle = d.join(name);
     ramsift(&["refute", "3,3", "6", "--out", s(&bundle), "-q"]);
     bundle
-}
-
-/// Replaces a bundle file's content and records its new hash.
-fn replace_file(bundle: &Path, file: &str, content: &[u8]) {
-    std::fs::write(bundle.join(file), content).unwrap();
-    ramsift_tests::bundle_files::set_hash(bundle, file);
 }
 
 #[test]
@@ -376,12 +367,11 @@ fn premise_links_at_every_level_are_checked_once() {
 fn a_trace_of_sixteen_million_unit_lemmas_stays_within_memory() {
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
-    // The bundle's trace is binary DRAT: "a", literal 1 as 0x02, then 0.
-    let mut trace = b"a\x02\x00".repeat(16_000_000);
-    trace.extend(std::fs::read(bundle.join("proof.drat")).unwrap());
-    let packed = gzip(&trace);
-    assert!(packed.len() < 200_000, "{} bytes", packed.len());
-    replace_file(&bundle, "proof.drat", &packed);
+    let expanded = unit_lemma_trace(&bundle, 16_000_000);
+    assert!(
+        std::fs::metadata(bundle.join("proof.drat")).unwrap().len() < 200_000,
+        "{expanded}"
+    );
     let (code, last) = verdict(&check(&["bundle", s(&bundle)]));
     assert!(matches!(code, 0 | 1), "{last}");
     assert!(
@@ -394,9 +384,7 @@ fn a_trace_of_sixteen_million_unit_lemmas_stays_within_memory() {
 fn a_formula_whose_header_cannot_match_the_claim_is_refused_before_it_is_read() {
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
-    let mut formula = b"p cnf 15 16000000\n".to_vec();
-    formula.extend(b"1 0\n".repeat(16_000_000));
-    replace_file(&bundle, "formula.cnf.gz", &gzip(&formula));
+    unit_clause_formula(&bundle, 16_000_000);
     // 512 MiB: room for the 64 MB expanded file, not for 16 million parsed clauses.
     let o = run_bounded(
         &workspace_binary("ramsift-check"),
@@ -415,10 +403,7 @@ fn a_minimality_line_longer_than_the_claim_allows_is_refused_before_it_is_stored
     // its 75 million tokens.
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
-    let mut text = b"ramsift minimality clauses 1\nvertices 6 colours 2 order edge-index,colour-ascending\n0 1 2 3 4 5 / 1 2 / ".to_vec();
-    text.extend(b"1 ".repeat(75_000_000));
-    text.extend(b"0\n");
-    replace_file(&bundle, "minimality.txt", &text);
+    long_minimality_line(&bundle, 75_000_000);
     let o = run_bounded(
         &workspace_binary("ramsift-check"),
         &["bundle", s(&bundle)],
@@ -439,12 +424,7 @@ fn regenerating_a_graph_with_isolated_vertices_does_not_walk_its_automorphisms()
     // but only C(20,2) = 190 copies, far more than the small formula's clauses.
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
-    ramsift_tests::bundle_files::edit_manifest(&bundle, |m| {
-        m["claim"]["forbidden"] = serde_json::json!(["G6:I_???????", "G6:I_???????"]);
-        m["claim"]["clique_sizes"] = serde_json::Value::Null;
-        m["claim"]["order"] = serde_json::json!(20);
-        m["claim"]["statement"] = serde_json::json!("R(G6:I_???????,G6:I_???????) <= 20");
-    });
+    isolated_vertices_claim(&bundle);
     let (code, last) = verdict(&check(&["bundle", s(&bundle)]));
     assert!(matches!(code, 1 | 2), "{last}");
     assert!(last.contains("clauses"), "{last}");
@@ -456,19 +436,7 @@ fn a_complete_multipartite_colouring_of_k120_checks_at_once() {
     // lies inside the parts (eight disjoint K15): no K9 in colour 1, no K16 in colour 2,
     // so R(9,16) > 120 (a bound of Turán's construction, far below the known ones).
     let dir = tempfile::tempdir().unwrap();
-    let n = 120;
-    let mut text = format!("ramsift-colouring spec=9,16 order={n}\n");
-    for i in 0..n {
-        let row: Vec<String> = (0..n)
-            .map(|j| match () {
-                _ if i == j => ".".to_string(),
-                _ if i / 15 == j / 15 => "2".to_string(),
-                _ => "1".to_string(),
-            })
-            .collect();
-        text.push_str(&row.join(" "));
-        text.push('\n');
-    }
+    let text = multipartite_colouring(8, 15);
     let file = write(dir.path(), "k120.colouring", text.as_bytes());
     let o = run_bounded(
         &workspace_binary("ramsift-check"),
@@ -521,32 +489,7 @@ fn many_minimality_lines_at_a_large_order_cost_their_length_only() {
     // lines each swap vertices 1 and 2 (the K_3 example of checker/src/minimality.rs).
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
-    let n = 1000usize;
-    let edges = n * (n - 1) / 2;
-    let all: Vec<String> = (1..=edges).map(|v| format!("-{v}")).collect();
-    let clause = all.join(" ");
-    let formula = format!(
-        "p cnf {edges} 2\n{clause} 0\n{} 0\n",
-        clause.replace('-', "")
-    );
-    replace_file(&bundle, "formula.cnf.gz", &gzip(formula.as_bytes()));
-    let mut map: Vec<String> = (0..n).map(|v| v.to_string()).collect();
-    map.swap(1, 2);
-    let line = format!("{} / 1 2 / 1 -2 0\n", map.join(" "));
-    let header = format!(
-        "ramsift minimality clauses 1\nvertices {n} colours 2 order edge-index,colour-ascending\n"
-    );
-    replace_file(
-        &bundle,
-        "minimality.txt",
-        (header + &line.repeat(30_000)).as_bytes(),
-    );
-    ramsift_tests::bundle_files::edit_manifest(&bundle, |m| {
-        m["claim"]["clique_sizes"] = serde_json::json!([n, n]);
-        m["claim"]["order"] = serde_json::json!(n);
-        m["claim"]["statement"] = serde_json::json!(format!("R({n},{n}) <= {n}"));
-        m["encoding"]["symmetry"] = serde_json::json!(["minimality"]);
-    });
+    many_minimality_lines(&bundle, 30_000);
     let o = run_bounded(
         &workspace_binary("ramsift-check"),
         &["bundle", s(&bundle)],
