@@ -123,7 +123,7 @@ fn check_steps(
         "1. Everything at once, with ramsift's standalone checker. It regenerates the formula from the",
         "   claim with its own code, compares it with the bundled formula as a set of clauses, verifies",
         "   every SHA-256 in the manifest, checks the proof, the coverage of the shards if any, and",
-        "   every premise bundle; the last line says PASS, CONDITIONAL or FAIL:",
+        "   the premise bundles the claim uses; the last line says PASS, CONDITIONAL or FAIL:",
         "     $ ramsift-check bundle .",
     ]
     .map(String::from)
