@@ -188,9 +188,9 @@ fn check_own_proof(
     }
     let mut cnf = parse_cnf(&formula_name, &bytes).map_err(|e| format!("the formula cannot be read: {e}"))?;
     drop(bytes);
-    normalize(&mut cnf.clauses);
+    cnf.normalize();
     normalize(&mut regenerated.clauses);
-    if cnf.clauses != regenerated.clauses {
+    if !cnf.clauses().eq(regenerated.clauses.iter().map(Vec::as_slice)) {
         return Err(mismatch(header, theirs));
     }
     drop(regenerated.clauses);
@@ -242,7 +242,7 @@ fn with_minimality_clauses(
     let clauses = crate::minimality::verified_clauses(&name, &bytes, &statement.forbidden, statement.order)
         .map_err(|e| format!("a minimality clause is rejected: {e}"))?;
     verdict.passed.push(format!("{} minimality clauses verified, each by its relabelling", clauses.len()));
-    cnf.clauses.extend(clauses);
+    clauses.iter().for_each(|c| cnf.push(c));
     Ok(cnf)
 }
 
@@ -251,9 +251,11 @@ pub(crate) fn check_trace(cnf: &Cnf, path: &Path, cube: &[i32]) -> Result<String
     let name = path.display().to_string();
     let steps =
         read_input(path).and_then(|b| parse_drat(&name, &b)).map_err(|e| format!("the proof cannot be read: {e}"))?;
-    let units: Vec<Vec<i32>> = cube.iter().map(|&l| vec![l]).collect();
-    let with_cube =
-        (!cube.is_empty()).then(|| Cnf { variables: cnf.variables, clauses: [&cnf.clauses[..], &units].concat() });
+    let with_cube = (!cube.is_empty()).then(|| {
+        let mut with_cube = cnf.clone();
+        cube.iter().for_each(|&l| with_cube.push(&[l]));
+        with_cube
+    });
     let formula = with_cube.as_ref().unwrap_or(cnf);
     let (r, _) = check_drat(formula, &steps, false).map_err(|e| format!("{name} is rejected: {e}"))?;
     Ok(format!(

@@ -5,11 +5,75 @@
 
 use crate::input_error::InputError;
 
-/// A formula: clauses as DIMACS literals.
-#[derive(Clone, Debug, PartialEq, Eq)]
+/// A formula: clauses as DIMACS literals, stored flat (every literal in one
+/// array, and where each clause ends), 4 bytes a literal and 8 a clause.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
 pub struct Cnf {
     pub variables: usize,
-    pub clauses: Vec<Vec<i32>>,
+    literals: Vec<i32>,
+    ends: Vec<usize>,
+}
+
+impl Cnf {
+    /// A formula of the given clauses.
+    pub fn new(variables: usize, clauses: Vec<Vec<i32>>) -> Self {
+        let mut cnf = Cnf { variables, ..Cnf::default() };
+        clauses.iter().for_each(|c| cnf.push(c));
+        cnf
+    }
+
+    /// The number of clauses.
+    pub fn len(&self) -> usize {
+        self.ends.len()
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.ends.is_empty()
+    }
+
+    /// Clause `index`.
+    pub fn clause(&self, index: usize) -> &[i32] {
+        let start = if index == 0 { 0 } else { self.ends[index - 1] };
+        &self.literals[start..self.ends[index]]
+    }
+
+    /// The clauses in order.
+    pub fn clauses(&self) -> impl Iterator<Item = &[i32]> + '_ {
+        (0..self.len()).map(|i| self.clause(i))
+    }
+
+    /// Every literal of every clause.
+    pub fn all_literals(&self) -> &[i32] {
+        &self.literals
+    }
+
+    /// Appends a clause.
+    pub fn push(&mut self, clause: &[i32]) {
+        self.literals.extend_from_slice(clause);
+        self.ends.push(self.literals.len());
+    }
+
+    /// The clauses as owned vectors (for tests and tools that edit a formula).
+    pub fn to_vecs(&self) -> Vec<Vec<i32>> {
+        self.clauses().map(<[i32]>::to_vec).collect()
+    }
+
+    /// Sorts the literals of every clause and then the clauses, in place: two
+    /// formulas equal as multisets of clauses are then equal.
+    pub fn normalize(&mut self) {
+        let mut start = 0;
+        for &end in &self.ends {
+            self.literals[start..end].sort_unstable();
+            start = end;
+        }
+        let mut order: Vec<u32> = (0..self.len() as u32).collect();
+        order.sort_unstable_by(|&a, &b| self.clause(a as usize).cmp(self.clause(b as usize)));
+        let mut sorted = Cnf { variables: self.variables, ..Cnf::default() };
+        sorted.literals.reserve_exact(self.literals.len());
+        sorted.ends.reserve_exact(self.ends.len());
+        order.iter().for_each(|&i| sorted.push(self.clause(i as usize)));
+        *self = sorted;
+    }
 }
 
 /// The problem line's (variables, clauses), read before any clause is stored, so
@@ -37,7 +101,7 @@ pub fn parse_header(name: &str, bytes: &[u8]) -> Result<(usize, usize), InputErr
 pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     let text = std::str::from_utf8(bytes)
         .map_err(|e| InputError::at_byte(name, e.valid_up_to() as u64, "not text: expected DIMACS CNF"))?;
-    let (mut header, mut clauses, mut current, mut last_line) = (None, Vec::new(), Vec::new(), 0);
+    let (mut header, mut cnf, mut current, mut last_line) = (None, Cnf::default(), Vec::new(), 0);
     for (index, line) in text.lines().enumerate() {
         let (line_no, trimmed) = (index + 1, line.trim());
         let bad = |why: String| InputError::at_line(name, line_no, why);
@@ -68,10 +132,11 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
         };
         for token in trimmed.split_whitespace() {
             let lit: i64 = token.parse().map_err(|_| bad(format!("{token:?} is not an integer literal")))?;
-            if lit == 0 && clauses.len() == clause_count {
+            if lit == 0 && cnf.len() == clause_count {
                 return Err(bad(format!("more clauses than the {clause_count} the problem line promises")));
             } else if lit == 0 {
-                clauses.push(std::mem::take(&mut current));
+                cnf.push(&current);
+                current.clear();
             } else if lit.unsigned_abs() as usize > variables {
                 return Err(bad(format!("literal {lit} is outside the {variables} declared variables")));
             } else {
@@ -85,11 +150,12 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
     if !current.is_empty() {
         return Err(InputError::at_line(name, last_line, "the last clause is not ended by 0"));
     }
-    if clauses.len() != clause_count {
-        let why = format!("the problem line promises {clause_count} clauses, the file has {}", clauses.len());
+    if cnf.len() != clause_count {
+        let why = format!("the problem line promises {clause_count} clauses, the file has {}", cnf.len());
         return Err(InputError::whole(name, why));
     }
-    Ok(Cnf { variables, clauses })
+    cnf.variables = variables;
+    Ok(cnf)
 }
 
 #[cfg(test)]
@@ -99,7 +165,10 @@ mod tests {
     #[test]
     fn reads_a_small_formula() {
         let cnf = parse_cnf("f", b"c hello\np cnf 2 2\n1 -2 0\n2\n 0\n").unwrap();
-        assert_eq!(cnf.clauses, vec![vec![1, -2], vec![2]]);
+        assert_eq!(cnf.to_vecs(), vec![vec![1, -2], vec![2]]);
+        let mut shuffled = Cnf::new(2, vec![vec![2], vec![-2, 1]]);
+        shuffled.normalize();
+        assert_eq!(shuffled.to_vecs(), vec![vec![-2, 1], vec![2]]);
     }
 
     #[test]

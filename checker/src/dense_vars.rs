@@ -15,9 +15,9 @@ pub struct DenseVars {
 }
 
 impl DenseVars {
-    /// Keeps variables 1..=(largest variable occurring in `clauses`).
-    pub fn new(clauses: &[Vec<i32>]) -> Self {
-        let formula_max = clauses.iter().flatten().map(|l| l.unsigned_abs()).max().unwrap_or(0);
+    /// Keeps variables 1..=(largest variable among the formula's `literals`).
+    pub fn new(literals: &[i32]) -> Self {
+        let formula_max = literals.iter().map(|l| l.unsigned_abs()).max().unwrap_or(0);
         DenseVars { formula_max, ..DenseVars::default() }
     }
 
@@ -67,7 +67,7 @@ mod tests {
 
     #[test]
     fn large_numbers_become_small_and_map_back() {
-        let mut vars = DenseVars::new(&[vec![1, -3]]);
+        let mut vars = DenseVars::new(&[1, -3]);
         for lit in [2, -2_000_000_000, 2_147_483_647, 2_000_000_000] {
             vars.add(lit);
         }

@@ -423,7 +423,7 @@ impl Checker {
     fn forward_pass(&mut self, cnf: &Cnf, proof: &DratProof, vars: &DenseVars, report: &mut DratReport) -> Vec<Record> {
         let mut index = ClauseIndex::new();
         let mut key = Vec::new();
-        for clause in &cnf.clauses {
+        for clause in cnf.clauses() {
             fill_key(&mut key, clause.iter().copied());
             let id = self.add_clause(&key, None);
             self.index(&mut index, id);
@@ -548,18 +548,18 @@ pub fn check_drat(
     proof: &DratProof,
     emit_lrat: bool,
 ) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
-    let mut vars = DenseVars::new(&cnf.clauses);
+    let mut vars = DenseVars::new(cnf.all_literals());
     proof.all_literals().iter().for_each(|&l| vars.add(l));
     let vars = vars.sealed();
-    let mut report = DratReport { original_clauses: cnf.clauses.len(), ..DratReport::default() };
-    if cnf.clauses.iter().any(|c| c.is_empty()) {
+    let mut report = DratReport { original_clauses: cnf.len(), ..DratReport::default() };
+    if cnf.clauses().any(|c| c.is_empty()) {
         report.formula_has_empty_clause = true;
         return Ok((report, emit_lrat.then(Vec::new)));
     }
     let mut checker = Checker::new(vars.max_var());
     let records = checker.forward_pass(cnf, proof, &vars, &mut report);
     let mut justified = checker.backward_pass(&records, proof, emit_lrat, &mut report)?;
-    report.core_original_clauses = checker.clauses[..cnf.clauses.len()].iter().filter(|c| c.has(IN_CORE)).count();
+    report.core_original_clauses = checker.clauses[..cnf.len()].iter().filter(|c| c.has(IN_CORE)).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {
@@ -574,7 +574,7 @@ pub fn check_drat(
                 .collect();
             (id, literals, justification)
         });
-        number_lemmas(cnf.clauses.len(), lemmas)
+        number_lemmas(cnf.len(), lemmas)
     });
     Ok((report, lrat))
 }

@@ -200,18 +200,18 @@ fn replay(db: &HashMap<u64, Vec<i32>>, a: &mut Assignment, hints: &[i64], line: 
 
 /// Checks an LRAT refutation of `cnf` by forward replay.
 pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
-    let mut vars = DenseVars::new(&cnf.clauses);
+    let mut vars = DenseVars::new(cnf.all_literals());
     for line in lines {
         if let LratStep::Add(lemma) = &line.step {
             lemma.literals.iter().for_each(|&l| vars.add(l));
         }
     }
     let vars = vars.sealed();
-    if cnf.clauses.iter().any(Vec::is_empty) {
+    if cnf.clauses().any(|c| c.is_empty()) {
         return Ok(LratReport::default());
     }
-    let mut db: HashMap<u64, Vec<i32>> = (1..).zip(cnf.clauses.iter().cloned()).collect();
-    let mut last_id = cnf.clauses.len() as u64;
+    let mut db: HashMap<u64, Vec<i32>> = (1..).zip(cnf.clauses().map(<[i32]>::to_vec)).collect();
+    let mut last_id = cnf.len() as u64;
     let mut a = Assignment { value: vec![0; vars.max_var() + 1], trail: Vec::new() };
     let mut report = LratReport::default();
     for LratLine { step, line } in lines {

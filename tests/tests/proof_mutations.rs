@@ -58,7 +58,7 @@ struct Tally {
 
 /// Judges one mutant: if the reference finds no refutation, ours must reject it.
 fn judge(tally: &mut Tally, what: &str, cnf: &Cnf, steps: &[DratStep]) {
-    let reference = reference_refutes(cnf.variables, &cnf.clauses, &as_reference(steps));
+    let reference = reference_refutes(cnf.variables, &cnf.to_vecs(), &as_reference(steps));
     let ours = check_drat(cnf, &DratProof::from_steps(steps), false).is_ok();
     if reference {
         tally.harmless += 1;
@@ -85,7 +85,7 @@ fn mutate_trace(
     );
     assert!(reference_refutes(
         cnf.variables,
-        &cnf.clauses,
+        &cnf.to_vecs(),
         &as_reference(&steps)
     ));
     let adds: Vec<usize> = (0..steps.len())
@@ -132,9 +132,10 @@ fn mutate_trace(
             &m,
         );
         // A clause dropped from the formula.
-        let j = rng.below(cnf.clauses.len());
-        let mut weaker = cnf.clone();
-        weaker.clauses.remove(j);
+        let j = rng.below(cnf.len());
+        let mut clauses = cnf.to_vecs();
+        clauses.remove(j);
+        let weaker = Cnf::new(cnf.variables, clauses);
         judge(
             &mut tally,
             &format!("formula clause {j} dropped"),
@@ -182,8 +183,8 @@ fn damaged_traces_are_rejected() {
 }
 
 fn gzip_cnf(dir: &Path, cnf: &Cnf) {
-    let mut text = format!("p cnf {} {}\n", cnf.variables, cnf.clauses.len());
-    for c in &cnf.clauses {
+    let mut text = format!("p cnf {} {}\n", cnf.variables, cnf.len());
+    for c in cnf.clauses() {
         for l in c {
             text.push_str(&format!("{l} "));
         }
@@ -333,10 +334,10 @@ fn damaged_bundles_fail() {
         mutations.push((
             format!("formula clause {drop} dropped (hash updated)"),
             Box::new(move |d: &Path| {
-                let mut cnf =
-                    parse_cnf("f", &read_input(&d.join("formula.cnf.gz")).unwrap()).unwrap();
-                cnf.clauses.remove(drop);
-                gzip_cnf(d, &cnf);
+                let cnf = parse_cnf("f", &read_input(&d.join("formula.cnf.gz")).unwrap()).unwrap();
+                let mut clauses = cnf.to_vecs();
+                clauses.remove(drop);
+                gzip_cnf(d, &Cnf::new(cnf.variables, clauses));
                 set_hash(d, "formula.cnf.gz");
             }),
         ));
@@ -345,7 +346,7 @@ fn damaged_bundles_fail() {
         "extra clause added to the formula (hash updated)".into(),
         Box::new(|d: &Path| {
             let mut cnf = parse_cnf("f", &read_input(&d.join("formula.cnf.gz")).unwrap()).unwrap();
-            cnf.clauses.push(vec![1]);
+            cnf.push(&[1]);
             gzip_cnf(d, &cnf);
             set_hash(d, "formula.cnf.gz");
         }),

@@ -83,7 +83,7 @@ proptest! {
         let (sat_native, native) = solve_with_proof(&clauses, ProofFormat::Varisat);
         let (sat_drat, drat) = solve_with_proof(&clauses, ProofFormat::BinaryDrat);
         prop_assert_eq!(sat_native, sat_drat);
-        let cnf = Cnf { variables: vars, clauses: clauses.clone() };
+        let cnf = Cnf::new(vars, clauses.clone());
         let steps = parse_drat("trace", &drat).unwrap();
         let ours = check_drat(&cnf, &steps, true);
         let reference = reference_accepts(&clauses, &native);

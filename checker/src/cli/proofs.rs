@@ -51,7 +51,7 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
         Ok(c) => c.unwrap_or_default(),
         Err(e) => return Report::unreadable(e),
     };
-    cnf.clauses.extend(cube.iter().map(|&l| vec![l]));
+    cube.iter().for_each(|&l| cnf.push(&[l]));
     if cnf_path.as_os_str() == "-" && proof_path.as_os_str() == "-" {
         return Report::unreadable("only one of the formula and the proof can be read from standard input (-)");
     }

@@ -58,10 +58,7 @@ impl ProofSink for TextDrat {
 
 fn check_refutation(formula: &[Vec<i32>], vars: usize, trace: &[u8]) {
     let steps = parse_drat("trace", trace).expect("the trace parses");
-    let cnf = Cnf {
-        variables: vars,
-        clauses: formula.to_vec(),
-    };
+    let cnf = Cnf::new(vars, formula.to_vec());
     check_drat(&cnf, &steps, false).expect("the DRAT trace is accepted");
 }
 

@@ -603,10 +603,7 @@ mod tests {
                 for lemma in &cube.lemmas {
                     let mut negated = clauses.clone();
                     negated.extend(lemma.iter().map(|&l| vec![-l]));
-                    let cnf = Cnf {
-                        variables: encoding.variable_count(),
-                        clauses: negated,
-                    };
+                    let cnf = Cnf::new(encoding.variable_count(), negated);
                     let verdict = check_drat(&cnf, &Default::default(), false);
                     assert!(
                         verdict.is_ok(),
