@@ -40,6 +40,17 @@ fn run_bounded(program: &Path, args: &[&str], memory_kib: u64, limit: Duration) 
     child.wait_with_output().expect("output is collected")
 }
 
+/// `ramsift-check ARGS` under `memory_kib` of address space and a `seconds` watchdog:
+/// its exit code and last line.
+fn check_within(args: &[&str], memory_kib: u64, seconds: u64) -> (i32, String) {
+    verdict(&run_bounded(
+        &workspace_binary("ramsift-check"),
+        args,
+        memory_kib,
+        Duration::from_secs(seconds),
+    ))
+}
+
 fn check(args: &[&str]) -> Output {
     run_bounded(
         &workspace_binary("ramsift-check"),
@@ -386,13 +397,7 @@ fn a_formula_whose_header_cannot_match_the_claim_is_refused_before_it_is_read() 
     let bundle = small_bundle(dir.path(), "b");
     unit_clause_formula(&bundle, 16_000_000);
     // 512 MiB: room for the 64 MB expanded file, not for 16 million parsed clauses.
-    let o = run_bounded(
-        &workspace_binary("ramsift-check"),
-        &["bundle", s(&bundle)],
-        512 << 10,
-        Duration::from_secs(60),
-    );
-    let (code, last) = verdict(&o);
+    let (code, last) = check_within(&["bundle", s(&bundle)], 512 << 10, 60);
     assert_eq!(code, 1, "{last}");
     assert!(last.contains("is not the formula of the claim"), "{last}");
 }
@@ -404,13 +409,7 @@ fn a_minimality_line_longer_than_the_claim_allows_is_refused_before_it_is_stored
     let dir = tempfile::tempdir().unwrap();
     let bundle = small_bundle(dir.path(), "b");
     long_minimality_line(&bundle, 75_000_000);
-    let o = run_bounded(
-        &workspace_binary("ramsift-check"),
-        &["bundle", s(&bundle)],
-        512 << 10,
-        Duration::from_secs(60),
-    );
-    let (code, last) = verdict(&o);
+    let (code, last) = check_within(&["bundle", s(&bundle)], 512 << 10, 60);
     assert_eq!(code, 1, "{last}");
     assert!(
         last.contains("minimality.txt:3") && last.contains("longer than"),
@@ -438,13 +437,7 @@ fn a_complete_multipartite_colouring_of_k120_checks_at_once() {
     let dir = tempfile::tempdir().unwrap();
     let text = multipartite_colouring(8, 15);
     let file = write(dir.path(), "k120.colouring", text.as_bytes());
-    let o = run_bounded(
-        &workspace_binary("ramsift-check"),
-        &["colouring", s(&file)],
-        1 << 20,
-        Duration::from_secs(20),
-    );
-    let (code, last) = verdict(&o);
+    let (code, last) = check_within(&["colouring", s(&file)], 1 << 20, 20);
     assert_eq!(code, 0, "{last}");
     assert!(last.starts_with("PASS: R(9,16) > 120"), "{last}");
     // One edge inside a part recoloured 1 makes a K9 in colour 1.
@@ -459,13 +452,7 @@ fn a_complete_multipartite_colouring_of_k120_checks_at_once() {
         "bad.colouring",
         (bad.join("\n") + "\n").as_bytes(),
     );
-    let o = run_bounded(
-        &workspace_binary("ramsift-check"),
-        &["colouring", s(&file)],
-        1 << 20,
-        Duration::from_secs(20),
-    );
-    let (code, last) = verdict(&o);
+    let (code, last) = check_within(&["colouring", s(&file)], 1 << 20, 20);
     assert_eq!(code, 1, "{last}");
     assert!(last.contains("monochromatic K9"), "{last}");
 }
