@@ -76,25 +76,28 @@ impl Cnf {
     }
 }
 
+fn is_comment_or_blank(line: &str) -> bool {
+    line.is_empty()
+        || line.strip_prefix('c').is_some_and(|rest| rest.is_empty() || rest.starts_with(char::is_whitespace))
+}
+
+/// `p cnf V C` as (V, C).
+fn problem_line(line: &str) -> Option<(usize, usize)> {
+    match line.split_whitespace().collect::<Vec<_>>().as_slice() {
+        ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
+        _ => None,
+    }
+}
+
 /// The problem line's (variables, clauses), read before any clause is stored, so
 /// that a caller can compare them with what it expects first.
 pub fn parse_header(name: &str, bytes: &[u8]) -> Result<(usize, usize), InputError> {
-    for (index, line) in bytes.split(|&b| b == b'\n').enumerate() {
-        let line = String::from_utf8_lossy(line);
-        let trimmed = line.trim();
-        let comment =
-            trimmed.strip_prefix('c').is_some_and(|rest| rest.is_empty() || rest.starts_with(char::is_whitespace));
-        if trimmed.is_empty() || comment {
-            continue;
-        }
-        let words: Vec<&str> = trimmed.split_whitespace().collect();
-        return match words.as_slice() {
-            ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
-            _ => None,
-        }
-        .ok_or_else(|| InputError::at_line(name, index + 1, "expected the problem line `p cnf VARIABLES CLAUSES`"));
-    }
-    Err(InputError::whole(name, "no problem line `p cnf V C`"))
+    let mut lines = bytes.split(|&b| b == b'\n').map(String::from_utf8_lossy).enumerate();
+    let Some((index, line)) = lines.find(|(_, line)| !is_comment_or_blank(line.trim())) else {
+        return Err(InputError::whole(name, "no problem line `p cnf V C`"));
+    };
+    problem_line(line.trim())
+        .ok_or_else(|| InputError::at_line(name, index + 1, "expected the problem line `p cnf VARIABLES CLAUSES`"))
 }
 
 /// Parses DIMACS CNF text; `name` is used in error messages.
@@ -106,21 +109,16 @@ pub fn parse_cnf(name: &str, bytes: &[u8]) -> Result<Cnf, InputError> {
         let (line_no, trimmed) = (index + 1, line.trim());
         let bad = |why: String| InputError::at_line(name, line_no, why);
         last_line = line_no;
-        let comment =
-            trimmed.strip_prefix('c').is_some_and(|rest| rest.is_empty() || rest.starts_with(char::is_whitespace));
-        if trimmed.is_empty() || comment {
+        if is_comment_or_blank(trimmed) {
             continue;
         }
         if trimmed.starts_with('p') {
             if header.is_some() {
                 return Err(bad("a second problem line".into()));
             }
-            let words: Vec<&str> = trimmed.split_whitespace().collect();
-            let (v, c) = match words.as_slice() {
-                ["p", "cnf", v, c] => v.parse::<usize>().ok().zip(c.parse::<usize>().ok()),
-                _ => None,
-            }
-            .ok_or_else(|| bad(format!("expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}")))?;
+            let (v, c) = problem_line(trimmed).ok_or_else(|| {
+                bad(format!("expected the problem line `p cnf VARIABLES CLAUSES`, found {trimmed:?}"))
+            })?;
             if v > i32::MAX as usize {
                 return Err(bad(format!("{v} variables: more than 32-bit literals can name")));
             }

@@ -108,12 +108,9 @@ impl Clause {
         self.flags = if on { self.flags | flag } else { self.flags & !flag };
     }
 
+    /// CORE (0) or OTHER (1): the kind of list that holds its watch nodes.
     fn list(&self) -> u8 {
-        if self.has(CORE_LIST) {
-            CORE
-        } else {
-            OTHER
-        }
+        (!self.has(CORE_LIST)) as u8
     }
 }
 
