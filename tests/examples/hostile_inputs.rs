@@ -60,10 +60,12 @@ fn main() -> Result<()> {
         "four.cnf, distinct.drat: 8,000,000 lemmas on new variables, {} bytes",
         trace.len()
     );
-    let paley = ramsift_tests::constructions::paley(101);
-    let rows: Vec<String> = (0..101)
-        .map(|i| {
-            (0..101)
+    // Paley(101) as (6,6;101) (R(6,6) >= 102, Radziszowski DS1) and Paley(241)
+    // against K8 (R(8,8) >= 282, DS1 from memory): record-size witnesses.
+    for (p, k) in [(101, 6), (241, 8)] {
+        let paley = ramsift_tests::constructions::paley(p);
+        let row = |i: usize| -> String {
+            let cells: Vec<String> = (0..p)
                 .map(|j| {
                     if i == j {
                         ".".into()
@@ -71,19 +73,16 @@ fn main() -> Result<()> {
                         paley.colour(i, j).to_string()
                     }
                 })
-                .collect::<Vec<_>>()
-                .join(" ")
-        })
-        .collect();
-    std::fs::write(
-        dir.join("paley101.colouring"),
-        format!(
-            "ramsift-colouring spec=6,6 order=101\n{}\n",
+                .collect();
+            cells.join(" ")
+        };
+        let rows: Vec<String> = (0..p).map(row).collect();
+        let text = format!(
+            "ramsift-colouring spec={k},{k} order={p}\n{}\n",
             rows.join("\n")
-        ),
-    )?;
-    println!(
-        "paley101.colouring: the Paley colouring of K101 (quadratic residues mod 101) as (6,6;101)"
-    );
+        );
+        std::fs::write(dir.join(format!("paley{p}.colouring")), text)?;
+        println!("paley{p}.colouring: the Paley colouring of K{p} (quadratic residues mod {p}) against K{k}");
+    }
     Ok(())
 }
