@@ -2,9 +2,10 @@
 //! lemmas that repeat a present clause. A clause's hash is the wrapping sum of a
 //! keyed mix of its literal codes (so the order of its literals does not matter),
 //! with a key drawn at random per run, so a crafted proof cannot aim collisions.
-//! Buckets (a power of two, at least the number of clauses indexed) hold the
-//! newest clause of each hash class, and each clause the next older one: 4 bytes
-//! a bucket and 4 a clause. Clauses found deleted are unlinked as they are met.
+//! Buckets (a power of two, at least the number of clauses the check can index,
+//! fixed at the start) hold the newest clause of each hash class, and each clause
+//! the next older one: at most 12 bytes a clause. Clauses found deleted are
+//! unlinked as they are met.
 
 use std::hash::BuildHasher;
 
@@ -13,7 +14,6 @@ const NONE: u32 = u32::MAX;
 pub(crate) struct ClauseIndex {
     buckets: Vec<u32>,
     older: Vec<u32>,
-    indexed: usize,
     key: u64,
 }
 
@@ -25,9 +25,10 @@ fn mix(mut z: u64) -> u64 {
 }
 
 impl ClauseIndex {
-    pub(crate) fn new() -> Self {
+    /// An index for up to `clauses` clauses.
+    pub(crate) fn new(clauses: usize) -> Self {
         let key = std::collections::hash_map::RandomState::new().hash_one(0u64);
-        ClauseIndex { buckets: vec![NONE; 1024], older: Vec::new(), indexed: 0, key }
+        ClauseIndex { buckets: vec![NONE; clauses.max(1).next_power_of_two()], older: Vec::new(), key }
     }
 
     /// The hash of a clause's literal codes, in any order (each literal once).
@@ -39,32 +40,11 @@ impl ClauseIndex {
         (hash as usize) & (self.buckets.len() - 1)
     }
 
-    /// Indexes clause `id` (ids grow by one) with literals `lits`; `lits_of(id)`
-    /// gives those of an indexed clause still active (None when deleted) when the
-    /// buckets double.
-    pub(crate) fn insert<'a>(&mut self, id: u32, lits: &[u32], lits_of: impl Fn(u32) -> Option<&'a [u32]>) {
-        let hash = self.hash(lits);
+    /// Indexes clause `id` (ids grow by one) with literals `lits`.
+    pub(crate) fn insert(&mut self, id: u32, lits: &[u32]) {
+        let bucket = self.bucket(self.hash(lits));
         self.older.resize(id as usize + 1, NONE);
-        if self.indexed >= self.buckets.len() {
-            let (old_buckets, old_older) = (std::mem::take(&mut self.buckets), std::mem::take(&mut self.older));
-            (self.buckets, self.older, self.indexed) =
-                (vec![NONE; 2 * old_buckets.len()], vec![NONE; id as usize + 1], 0);
-            for mut current in old_buckets {
-                while current != NONE {
-                    if let Some(lits) = lits_of(current) {
-                        self.push(current, self.hash(lits));
-                    }
-                    current = old_older[current as usize];
-                }
-            }
-        }
-        self.push(id, hash);
-    }
-
-    fn push(&mut self, id: u32, hash: u64) {
-        let bucket = self.bucket(hash);
         (self.older[id as usize], self.buckets[bucket]) = (self.buckets[bucket], id);
-        self.indexed += 1;
     }
 
     /// The newest clause of `hash`'s bucket for which `matches` says Some(true);
@@ -77,13 +57,8 @@ impl ClauseIndex {
             match matches(current) {
                 Some(true) => return Some(current),
                 Some(false) => previous = current,
-                None => {
-                    match previous {
-                        NONE => self.buckets[bucket] = next,
-                        _ => self.older[previous as usize] = next,
-                    }
-                    self.indexed -= 1;
-                }
+                None if previous == NONE => self.buckets[bucket] = next,
+                None => self.older[previous as usize] = next,
             }
             current = next;
         }

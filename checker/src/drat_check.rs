@@ -182,10 +182,6 @@ impl Checker {
             .then(|| lits.len() == key.len() && lits.iter().all(|l| key.binary_search(l).is_ok()))
     }
 
-    fn index(&self, index: &mut ClauseIndex, id: u32) {
-        index.insert(id, self.lits(id), |other| self.clauses[other as usize].has(ACTIVE).then(|| self.lits(other)));
-    }
-
     /// Adds a clause of sorted literal codes without repeats (`key`); `pivot` is kept first.
     fn add_clause(&mut self, key: &[Lit], pivot: Option<Lit>) -> u32 {
         let start = self.arena.len();
@@ -418,12 +414,12 @@ impl Checker {
     /// Adds the lemmas and applies the deletions in proof order, up to the first empty
     /// lemma (or an implicit one at the end); returns the steps to undo backwards.
     fn forward_pass(&mut self, cnf: &Cnf, proof: &DratProof, vars: &DenseVars, report: &mut DratReport) -> Vec<Record> {
-        let mut index = ClauseIndex::new();
+        let mut index = ClauseIndex::new(cnf.len() + proof.len());
         let mut key = Vec::new();
         for clause in cnf.clauses() {
             fill_key(&mut key, clause.iter().copied());
             let id = self.add_clause(&key, None);
-            self.index(&mut index, id);
+            index.insert(id, self.lits(id));
         }
         let mut records = Vec::new();
         let mut empty_lemma: Option<u32> = None;
@@ -439,7 +435,7 @@ impl Checker {
                 (StepKind::Add, None) => {
                     report.lemmas += 1;
                     let id = self.add_clause(&key, literals.first().map(|&l| code(vars.dense(l))));
-                    self.index(&mut index, id);
+                    index.insert(id, self.lits(id));
                     records.push(Record::Add(id, step as u32));
                     if literals.is_empty() {
                         empty_lemma = Some(id);
