@@ -28,7 +28,7 @@ use crate::clause_index::ClauseIndex;
 use crate::cnf::Cnf;
 use crate::dense_vars::DenseVars;
 use crate::drat_parse::{DratProof, StepKind};
-use crate::lrat::{number_lemmas, Justification, LratLemma};
+use crate::lrat::{lrat_steps, CheckedStep, Justification, LratStep};
 use crate::watch_lists::WatchLists;
 
 /// What a successful check found.
@@ -540,7 +540,7 @@ pub fn check_drat(
     cnf: &Cnf,
     proof: &DratProof,
     emit_lrat: bool,
-) -> Result<(DratReport, Option<Vec<LratLemma>>), DratFailure> {
+) -> Result<(DratReport, Option<Vec<LratStep>>), DratFailure> {
     let mut vars = DenseVars::new(cnf.all_literals());
     proof.all_literals().iter().for_each(|&l| vars.add(l));
     let vars = vars.sealed();
@@ -551,23 +551,91 @@ pub fn check_drat(
     }
     let mut checker = Checker::new(vars.max_var());
     let records = checker.forward_pass(cnf, proof, &vars, &mut report);
-    let mut justified = checker.backward_pass(&records, proof, emit_lrat, &mut report)?;
+    let justified = checker.backward_pass(&records, proof, emit_lrat, &mut report)?;
     report.core_original_clauses = checker.clauses[..cnf.len()].iter().filter(|c| c.has(IN_CORE)).count();
     report.checked_lemmas -= report.implicit_empty_clause as usize;
 
     let lrat = emit_lrat.then(|| {
-        // Lemmas in proof order, each with its literals as written, pivot first.
-        justified.reverse();
-        let lemmas = justified.into_iter().map(|(id, justification)| {
-            let pivot = Some(checker.clauses[id as usize].pivot).filter(|&p| p != NO_PIVOT);
-            let literals = pivot
-                .into_iter()
-                .chain(checker.lits(id).iter().copied().filter(|&l| Some(l) != pivot))
-                .map(|l| vars.original(dimacs(l)))
-                .collect();
-            (id, literals, justification)
+        // Checked lemmas (literals as written, pivot first) and deletions, in proof order.
+        let mut justified: std::collections::HashMap<u32, Justification> = justified.into_iter().collect();
+        let steps = records.iter().filter_map(|record| match *record {
+            Record::Delete(id) => Some(CheckedStep::Delete(id)),
+            Record::Add(id, _) => justified.remove(&id).map(|justification| {
+                let pivot = Some(checker.clauses[id as usize].pivot).filter(|&p| p != NO_PIVOT);
+                let literals = pivot
+                    .into_iter()
+                    .chain(checker.lits(id).iter().copied().filter(|&l| Some(l) != pivot))
+                    .map(|l| vars.original(dimacs(l)))
+                    .collect();
+                CheckedStep::Lemma(id, literals, justification)
+            }),
+            Record::AddCopy(_) | Record::DeleteCopy(_) => None,
         });
-        number_lemmas(cnf.len(), lemmas)
+        lrat_steps(cnf.len(), steps)
     });
     Ok((report, lrat))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::drat_parse::DratStep;
+    use crate::lrat::{check_lrat, parse_lrat, write_lrat};
+    use proptest::prelude::*;
+
+    /// Every clause over variables 1..3 (unsatisfiable), and a clause with 5 that a
+    /// decoration may delete before the RAT lemma below sees it.
+    fn formula() -> Vec<Vec<i32>> {
+        let mut clauses: Vec<Vec<i32>> =
+            (0..8).map(|m| (1..=3).map(|v| if m >> (v - 1) & 1 == 1 { -v } else { v }).collect()).collect();
+        clauses.push(vec![5, 1, 2]);
+        clauses
+    }
+
+    /// A refutation that defines 5 as 1 by two RAT lemmas and uses both:
+    /// [5,-1] (RAT on 5), [-5,1] (RAT on -5; candidates [5,-1] and [5,1,2]),
+    /// then [5,2], [5], [2], [] each by unit propagation.
+    fn base() -> Vec<(bool, Vec<i32>)> {
+        [vec![5, -1], vec![-5, 1], vec![5, 2], vec![5], vec![2], vec![]].into_iter().map(|l| (true, l)).collect()
+    }
+
+    proptest! {
+        /// Decorations: tautologies and superset lemmas (both RUP), lemmas on 5 deleted
+        /// before the RAT lemma, the formula's [5,1,2] deleted, unit deletions; the
+        /// variables renamed with signs. The DRAT check must accept, and the LRAT it
+        /// writes must pass the LRAT check.
+        #[test]
+        fn emitted_lrat_always_checks(
+            decorations in proptest::collection::vec((0usize..5, 0usize..9, any::<bool>()), 0..8),
+            flips in any::<[bool; 6]>(),
+        ) {
+            let mut steps = base();
+            for &(kind, at, flag) in &decorations {
+                let clause = formula()[at % 8].clone();
+                let (position, inserted): (usize, Vec<(bool, Vec<i32>)>) = match kind {
+                    0 => (1, vec![(true, vec![5, clause[0], -clause[0]])]),       // a tautology candidate
+                    1 => (at % 5, vec![(true, [clause.clone(), vec![4]].concat())]), // a superset lemma
+                    2 => (1, vec![(true, vec![5, 3]), (false, vec![5, 3])]),       // a candidate added, deleted
+                    3 => (1, vec![(false, vec![5, 1, 2])]),                       // the formula's candidate deleted
+                    _ => (if flag { 4 } else { 5 }, vec![(false, vec![5])]),        // a unit deletion
+                };
+                let position = position.min(steps.len() - 1);
+                steps.splice(position..position, inserted);
+            }
+            let flip = |l: &i32| if flips[l.unsigned_abs() as usize - 1] { -l } else { *l };
+            let cnf = Cnf::new(5, formula().iter().map(|c| c.iter().map(flip).collect()).collect());
+            let owned: Vec<DratStep> = steps
+                .iter()
+                .map(|(add, l)| DratStep {
+                    kind: if *add { StepKind::Add } else { StepKind::Delete },
+                    literals: l.iter().map(flip).collect(),
+                    offset: 0,
+                })
+                .collect();
+            let (_, lrat) = check_drat(&cnf, &DratProof::from_steps(&owned), true).expect("the proof is valid");
+            let text = write_lrat(&lrat.expect("LRAT was asked for"));
+            let lines = parse_lrat("lrat", text.as_bytes()).expect("the LRAT parses");
+            prop_assert!(check_lrat(&cnf, &lines).is_ok(), "{:?}\n{text}", check_lrat(&cnf, &lines));
+        }
+    }
 }

@@ -10,7 +10,9 @@
 //! have its group. The proof is complete when the empty clause is added.
 //!
 //! This module is LRAT's one home: [`crate::drat_check`] hands it the clauses each
-//! checked DRAT lemma used, and [`number_lemmas`] turns them into LRAT lines.
+//! checked DRAT lemma used and the deletions, and [`lrat_steps`] turns them into
+//! LRAT lines. A lemma that is neither RUP by its hints nor has RAT groups is RAT
+//! when no live clause contains the negation of its first literal.
 
 use std::collections::HashMap;
 
@@ -35,28 +37,43 @@ pub enum Justification {
     Rat(Vec<(u32, Vec<u32>)>),
 }
 
-/// Numbers checked lemmas (given in proof order) as LRAT lines after the
-/// formula's `original` clauses.
-pub fn number_lemmas(original: usize, lemmas: impl Iterator<Item = (u32, Vec<i32>, Justification)>) -> Vec<LratLemma> {
+/// A step of a checked DRAT proof, in proof order and the DRAT checker's numbers.
+pub enum CheckedStep {
+    /// A checked lemma: its clause, literals (pivot first) and justification.
+    Lemma(u32, Vec<i32>, Justification),
+    /// A clause the proof deleted (and the check let go).
+    Delete(u32),
+}
+
+/// Turns a checked DRAT proof into LRAT, numbering lemmas after the formula's
+/// `original` clauses. Deletions are kept, so a RAT lemma's candidates in LRAT
+/// are exactly those the DRAT check saw; a clause that never got an LRAT number
+/// (a tautology, which no check needs) is left out of every hint.
+pub fn lrat_steps(original: usize, steps: impl Iterator<Item = CheckedStep>) -> Vec<LratStep> {
     let mut lrat_id: HashMap<u32, u64> = (0..original as u32).map(|i| (i, i as u64 + 1)).collect();
-    let mut lines = Vec::new();
-    for (next, (clause, literals, justification)) in (original as u64 + 1..).zip(lemmas) {
+    let (mut out, mut last) = (Vec::new(), original as u64);
+    for step in steps {
+        let (clause, literals, justification) = match step {
+            CheckedStep::Delete(clause) => {
+                out.extend(lrat_id.remove(&clause).map(|id| LratStep::Delete { id: last, clauses: vec![id] }));
+                continue;
+            }
+            CheckedStep::Lemma(clause, literals, justification) => (clause, literals, justification),
+        };
+        let hints = |used: &[u32]| used.iter().filter_map(|u| lrat_id.get(u).map(|&id| id as i64)).collect::<Vec<_>>();
         let hints: Vec<i64> = match justification {
-            Justification::Rup(used) => used.iter().map(|u| lrat_id[u] as i64).collect(),
+            Justification::Rup(used) => hints(&used),
             Justification::Rat(mut proofs) => {
+                proofs.retain(|(c, _)| lrat_id.contains_key(c));
                 proofs.sort_by_key(|(c, _)| lrat_id[c]);
-                proofs
-                    .iter()
-                    .flat_map(|(c, used)| {
-                        std::iter::once(-(lrat_id[c] as i64)).chain(used.iter().map(|u| lrat_id[u] as i64))
-                    })
-                    .collect()
+                proofs.iter().flat_map(|(c, used)| std::iter::once(-(lrat_id[c] as i64)).chain(hints(used))).collect()
             }
         };
-        lrat_id.insert(clause, next);
-        lines.push(LratLemma { id: next, literals, hints });
+        last += 1;
+        lrat_id.insert(clause, last);
+        out.push(LratStep::Add(LratLemma { id: last, literals, hints }));
     }
-    lines
+    out
 }
 
 /// One LRAT step.
@@ -124,15 +141,20 @@ pub fn parse_lrat(name: &str, bytes: &[u8]) -> Result<Vec<LratLine>, InputError>
     Ok(out)
 }
 
-/// Writes lemmas as text LRAT.
-pub fn write_lrat(lemmas: &[LratLemma]) -> String {
+/// Writes steps as text LRAT.
+pub fn write_lrat(steps: &[LratStep]) -> String {
     let words = |v: &mut dyn Iterator<Item = String>| v.map(|w| w + " ").collect::<String>();
-    lemmas
+    steps
         .iter()
-        .map(|l| {
-            let literals = words(&mut l.literals.iter().map(|x| x.to_string()));
-            let hints = words(&mut l.hints.iter().map(|x| x.to_string()));
-            format!("{} {literals}0 {hints}0\n", l.id)
+        .map(|step| match step {
+            LratStep::Add(l) => {
+                let literals = words(&mut l.literals.iter().map(|x| x.to_string()));
+                let hints = words(&mut l.hints.iter().map(|x| x.to_string()));
+                format!("{} {literals}0 {hints}0\n", l.id)
+            }
+            LratStep::Delete { id, clauses } => {
+                format!("{id} d {}0\n", words(&mut clauses.iter().map(|c| c.to_string())))
+            }
         })
         .collect()
 }
@@ -234,11 +256,14 @@ pub fn check_lrat(cnf: &Cnf, lines: &[LratLine]) -> Result<LratReport, String> {
         let tautology = a.falsify(literals.iter().copied());
         let first_rat = lemma.hints.iter().position(|&h| h < 0).unwrap_or(lemma.hints.len());
         if !tautology && !replay(&db, &mut a, &lemma.hints[..first_rat], *line)? {
-            if first_rat == lemma.hints.len() {
-                return Err(format!("line {line}: the hints of clause {} end without a conflict", lemma.id));
+            let groups = &lemma.hints[first_rat..];
+            match check_rat_groups(&db, &mut a, &literals, groups, *line) {
+                Ok(()) => report.rat_lemmas += 1,
+                Err(_) if groups.is_empty() => {
+                    return Err(format!("line {line}: the hints of clause {} end without a conflict", lemma.id))
+                }
+                Err(why) => return Err(why),
             }
-            report.rat_lemmas += 1;
-            check_rat_groups(&db, &mut a, &literals, &lemma.hints[first_rat..], *line)?;
         }
         db.insert(lemma.id, literals);
         if lemma.literals.is_empty() {
