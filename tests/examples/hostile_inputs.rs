@@ -60,9 +60,9 @@ fn main() -> Result<()> {
         "four.cnf, distinct.drat: 8,000,000 lemmas on new variables, {} bytes",
         trace.len()
     );
-    // Paley(101) as (6,6;101) (R(6,6) >= 102, Radziszowski DS1) and Paley(241)
-    // against K8 (R(8,8) >= 282, DS1 from memory): record-size witnesses.
-    for (p, k) in [(101, 6), (241, 8)] {
+    // Paley(101) as (6,6;101) (R(6,6) >= 102, Radziszowski DS1), Paley(149) and
+    // Paley(241) against K8 (R(8,8) >= 282, DS1 from memory): record-size witnesses.
+    for (p, k) in [(101, 6), (149, 8), (241, 8)] {
         let paley = ramsift_tests::constructions::paley(p);
         let row = |i: usize| -> String {
             let cells: Vec<String> = (0..p)
