@@ -12,6 +12,8 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 
 use anyhow::{bail, Context, Result};
+use ramsift_driver::output::witness::colouring_text;
+use ramsift_encoder::{Instance, RamseySpec};
 use ramsift_tests::binaries::workspace_binary;
 use ramsift_tests::hostile_inputs::{
     distinct_variable_trace, isolated_vertices_claim, long_minimality_line, many_minimality_lines,
@@ -63,24 +65,8 @@ fn main() -> Result<()> {
     // Paley(101) as (6,6;101) (R(6,6) >= 102, Radziszowski DS1), Paley(149) and
     // Paley(241) against K8 (R(8,8) >= 282, DS1 from memory): record-size witnesses.
     for (p, k) in [(101, 6), (149, 8), (241, 8)] {
-        let paley = ramsift_tests::constructions::paley(p);
-        let row = |i: usize| -> String {
-            let cells: Vec<String> = (0..p)
-                .map(|j| {
-                    if i == j {
-                        ".".into()
-                    } else {
-                        paley.colour(i, j).to_string()
-                    }
-                })
-                .collect();
-            cells.join(" ")
-        };
-        let rows: Vec<String> = (0..p).map(row).collect();
-        let text = format!(
-            "ramsift-colouring spec={k},{k} order={p}\n{}\n",
-            rows.join("\n")
-        );
+        let instance = Instance::new(RamseySpec::cliques(&[k, k])?, p)?;
+        let text = colouring_text(&instance, &ramsift_tests::constructions::paley(p), &[]);
         std::fs::write(dir.join(format!("paley{p}.colouring")), text)?;
         println!("paley{p}.colouring: the Paley colouring of K{p} (quadratic residues mod {p}) against K{k}");
     }
