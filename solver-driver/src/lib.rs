@@ -34,3 +34,7 @@ pub mod structured;
 
 /// The solver backend name and version recorded in outputs.
 pub const SOLVER_NAME: &str = "varisat 0.2.2";
+
+/// The name of the hooked solver (which every refutation with the minimality
+/// scheme runs, single or per shard) in manifests.
+pub const HOOKED_SOLVER_NAME: &str = "ramsift-cdcl (our CDCL with a minimality hook)";

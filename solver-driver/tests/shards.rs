@@ -472,3 +472,60 @@ fn a_shard_that_finds_a_colouring_says_the_claim_is_false_and_keeps_the_witness(
     assert_eq!(refused.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&refused.stderr).contains("is FALSE; witness: "));
 }
+
+#[test]
+fn manifests_name_the_solver_that_ran() {
+    // R(3,3) = 6 (Greenwood & Gleason 1955): refuted single and sharded, with the
+    // minimality scheme (our hooked solver runs) and with static schemes (varisat).
+    let dir = tempfile::tempdir().unwrap();
+    let solver_of = |bundle: &Path| -> String {
+        let manifest: serde_json::Value =
+            serde_json::from_str(&std::fs::read_to_string(bundle.join("manifest.json")).unwrap())
+                .unwrap();
+        let guide = std::fs::read_to_string(bundle.join("REFEREE.txt")).unwrap();
+        let solver = manifest["solver"].as_str().unwrap().to_string();
+        assert!(guide.contains(&solver), "{guide}");
+        solver
+    };
+    for (symmetry, expected) in [
+        ("minimality", ramsift_driver::HOOKED_SOLVER_NAME),
+        ("colour-swap,lex-leader", ramsift_driver::SOLVER_NAME),
+    ] {
+        let single = dir.path().join(format!("single-{symmetry}"));
+        ok(
+            &ramsift(&[
+                "refute",
+                "3,3",
+                "6",
+                "--symmetry",
+                symmetry,
+                "--out",
+                s(&single),
+                "-q",
+            ]),
+            20,
+        );
+        assert_eq!(solver_of(&single), expected, "single, {symmetry}");
+        let plan = dir.path().join(format!("plan-{symmetry}"));
+        let args = [
+            "shard",
+            "plan",
+            "3,3",
+            "6",
+            "--shards",
+            "4",
+            "--symmetry",
+            symmetry,
+            "--out",
+            s(&plan),
+        ];
+        ok(&ramsift(&args), 0);
+        ok(&ramsift(&["shard", "local", s(&plan)]), 0);
+        let merged = dir.path().join(format!("merged-{symmetry}"));
+        ok(
+            &ramsift(&["shard", "merge", s(&plan), "--out", s(&merged)]),
+            20,
+        );
+        assert_eq!(solver_of(&merged), expected, "sharded, {symmetry}");
+    }
+}

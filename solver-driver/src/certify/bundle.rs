@@ -169,7 +169,17 @@ impl Manifest {
             encoding: encoding_record(encoding),
             premises: premise_records(encoding),
             tool: format!("ramsift {}", env!("CARGO_PKG_VERSION")),
-            solver: crate::SOLVER_NAME.to_string(),
+            // The refutation runs the hooked solver exactly when the minimality
+            // scheme is used (certify::refute, shard::run), varisat otherwise.
+            solver: if encoding
+                .symmetry()
+                .contains(ramsift_encoder::Scheme::Minimality)
+            {
+                crate::HOOKED_SOLVER_NAME
+            } else {
+                crate::SOLVER_NAME
+            }
+            .to_string(),
             solve_seconds,
             files,
             sharding,

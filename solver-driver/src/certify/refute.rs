@@ -271,8 +271,7 @@ fn checked_colouring(
     Ok(RefuteResult::Found(colouring))
 }
 
-/// The name of the hooked solver in manifests.
-pub const HOOKED_SOLVER_NAME: &str = "ramsift-cdcl (our CDCL with a minimality hook)";
+pub use crate::HOOKED_SOLVER_NAME;
 
 /// The finished temporary files of a refutation, the solver that made them and
 /// what it took.
