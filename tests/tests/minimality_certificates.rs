@@ -198,3 +198,22 @@ fn damaged_minimality_certificates_are_rejected() {
         assert!(!passes(&dir), "FALSE PASS of minimality mutant: {what}");
     }
 }
+
+#[test]
+fn a_plain_drat_check_of_a_minimality_bundle_says_what_is_missing() {
+    // R(3,4) = 9 (Greenwood & Gleason 1955): the trace needs the minimality
+    // clauses, so a plain DRAT check fails and names minimality.txt.
+    let dir = tempfile::tempdir().unwrap();
+    ramsift_tests::bundle_files::make_bundle("3,4", 9, "minimality", dir.path());
+    let o = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift-check"))
+        .args(["drat", "formula.cnf.gz", "proof.drat"])
+        .current_dir(dir.path())
+        .output()
+        .unwrap();
+    let out = String::from_utf8_lossy(&o.stdout);
+    assert_eq!(o.status.code(), Some(1), "{out}");
+    assert!(
+        out.contains("minimality.txt") && out.contains("ramsift-check bundle"),
+        "{out}"
+    );
+}

@@ -70,7 +70,10 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
     let checked = super::progress::while_checking(Some(total), || check_drat(&cnf, &steps, emit_lrat.is_some()));
     let (report, lemmas) = match checked {
         Ok(done) => done,
-        Err(failure) => return Report::new(Outcome::Fail, format!("{}: {failure}", proof_path.display())),
+        Err(failure) => {
+            let hint = minimality_hint(proof_path).unwrap_or_default();
+            return Report::new(Outcome::Fail, format!("{}: {failure}{hint}", proof_path.display()));
+        }
     };
     let mut lines = Vec::new();
     if let (Some(path), Some(lemmas)) = (emit_lrat, lemmas) {
@@ -113,6 +116,21 @@ pub fn run_drat(cnf_path: &Path, proof_path: &Path, cube: Option<&str>, emit_lra
     .field("seconds", seconds);
     out.lines = lines;
     out
+}
+
+/// When the proof sits in a bundle that uses the minimality scheme, a failed
+/// plain check says what is missing: the trace refutes the formula together with
+/// the clauses of minimality.txt, which only `ramsift-check bundle` verifies.
+fn minimality_hint(proof_path: &Path) -> Option<String> {
+    let dir = proof_path.parent().filter(|d| !d.as_os_str().is_empty()).unwrap_or(Path::new("."));
+    let text = std::fs::read_to_string(dir.join("manifest.json")).ok()?;
+    text.contains("\"minimality-clauses\"").then(|| {
+        format!(
+            " (this bundle uses the minimality scheme: its trace refutes the formula together with the clauses of {}, which only `ramsift-check bundle {}` verifies)",
+            dir.join("minimality.txt").display(),
+            dir.display()
+        )
+    })
 }
 
 pub fn run_lrat(cnf_path: &Path, proof_path: &Path) -> Report {
