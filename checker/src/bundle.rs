@@ -129,6 +129,11 @@ pub(crate) fn bundle_file(root: &Path, name: &str) -> Result<PathBuf, String> {
     Ok(path)
 }
 
+/// The bundle's fingerprint, the SHA-256 of its manifest.json.
+pub fn manifest_sha256(dir: &Path) -> Result<String, String> {
+    sha256_of(&dir.join("manifest.json"))
+}
+
 pub(crate) fn sha256_of(path: &Path) -> Result<String, String> {
     let mut hasher = Sha256::new();
     std::io::copy(&mut std::fs::File::open(path).map_err(|e| e.to_string())?, &mut hasher)

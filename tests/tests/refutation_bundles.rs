@@ -178,3 +178,46 @@ fn the_trace_size_is_counted_while_it_is_written() {
     assert!(proof_bytes > 0);
     assert_eq!(seen.load(std::sync::atomic::Ordering::Relaxed), proof_bytes);
 }
+
+#[test]
+fn refute_merge_and_the_checker_print_the_same_fingerprint() {
+    // R(3,3) = 6 (Greenwood & Gleason 1955). The fingerprint is the SHA-256 of
+    // manifest.json, which lists the SHA-256 of every other file.
+    let dir = tempfile::tempdir().unwrap();
+    let bundle = dir.path().join("b");
+    let run = |program: &str, args: &[&str]| {
+        let o = std::process::Command::new(ramsift_tests::binaries::workspace_binary(program))
+            .args(args)
+            .output()
+            .unwrap();
+        let value: serde_json::Value = serde_json::from_slice(&o.stdout).expect("one JSON record");
+        value["manifest_sha256"]
+            .as_str()
+            .expect("a fingerprint")
+            .to_string()
+    };
+    let b = bundle.to_str().unwrap();
+    let refuted = run("ramsift", &["refute", "3,3", "6", "--out", b, "--json"]);
+    assert_eq!(
+        refuted,
+        ramsift_tests::bundle_files::sha256_of(&bundle.join("manifest.json"))
+    );
+    assert_eq!(run("ramsift-check", &["bundle", b, "--json"]), refuted);
+    let plan = dir.path().join("plan");
+    let merged = dir.path().join("merged");
+    let (p, m) = (plan.to_str().unwrap(), merged.to_str().unwrap());
+    let planned = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
+        .args(["shard", "plan", "3,3", "6", "--shards", "2", "--out", p])
+        .output();
+    assert_eq!(planned.unwrap().status.code(), Some(0));
+    let local = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
+        .args(["shard", "local", p])
+        .output();
+    assert_eq!(local.unwrap().status.code(), Some(0));
+    let fingerprint = run("ramsift", &["shard", "merge", p, "--out", m, "--json"]);
+    assert_eq!(
+        fingerprint,
+        ramsift_tests::bundle_files::sha256_of(&merged.join("manifest.json"))
+    );
+    assert_eq!(run("ramsift-check", &["bundle", m, "--json"]), fingerprint);
+}

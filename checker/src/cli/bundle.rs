@@ -16,8 +16,10 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         Err(e) => return Report::unreadable(e),
     };
     let seconds = started.elapsed().as_secs_f64();
+    let manifest_sha256 = ramsift_checker::bundle::manifest_sha256(dir).unwrap_or_default();
     let mut lines = vec![
         format!("bundle {}", dir.display()),
+        format!("fingerprint (SHA-256 of manifest.json): {manifest_sha256}"),
         format!("claim: {}", verdict.claim),
         format!(
             "symmetry breaking: {}",
@@ -56,6 +58,7 @@ pub fn run(dir: &Path, premise_dirs: &[PathBuf]) -> Report {
         .collect();
     report
         .field("claim", verdict.claim.clone())
+        .field("manifest_sha256", manifest_sha256)
         .field("symmetry", verdict.symmetry.clone())
         .field("premises", premises)
         .field("unchecked_premise_bundles", verdict.unchecked_premises.clone())

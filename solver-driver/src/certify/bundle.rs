@@ -154,6 +154,12 @@ pub fn hash_file(path: &Path) -> io::Result<(String, u64)> {
     Ok((hex, total))
 }
 
+/// A bundle's fingerprint: the SHA-256 of its manifest.json, which lists the
+/// SHA-256 of every other file (the one number an author quotes).
+pub fn fingerprint(dir: &Path) -> io::Result<String> {
+    Ok(hash_file(&dir.join("manifest.json"))?.0)
+}
+
 impl Manifest {
     /// The manifest of a refutation of `encoding` by the proof files `files`
     /// (the formula first), found in `solve_seconds` (summed over shards, if sharded).

@@ -7,7 +7,7 @@ use anyhow::{Context, Result};
 use clap::Args;
 use ramsift_encoder::{Colouring, Instance, SymmetryChoice};
 
-use ramsift_driver::certify::bundle::Manifest;
+use ramsift_driver::certify::bundle::{fingerprint, Manifest};
 use ramsift_driver::certify::refute::{
     certify_premises, refute, RefuteOptions, RefuteReport, RefuteResult,
 };
@@ -143,6 +143,8 @@ fn print_refuted(
     files: Vec<PathBuf>,
 ) -> Result<()> {
     let seconds = report.solve_seconds;
+    let manifest_sha256 = fingerprint(&args.dir.out)
+        .with_context(|| format!("reading {}/manifest.json", args.dir.out.display()))?;
     if args.json {
         let record = RefutedRecord {
             instance: instance.to_string(),
@@ -157,6 +159,7 @@ fn print_refuted(
             seconds,
             proof_bytes,
             files,
+            manifest_sha256,
             search: report.minimality.clone(),
         };
         return print_record(record, "refuted", exit_codes::NONE_EXISTS);
@@ -174,6 +177,7 @@ fn print_refuted(
     for p in &manifest.premises {
         println!("premise: {} ({})", p.statement, p.source);
     }
+    println!("fingerprint (SHA-256 of manifest.json): {manifest_sha256}");
     for f in files {
         println!("wrote {}", f.display());
     }

@@ -168,6 +168,8 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                     )
                 },
             )?;
+            let manifest_sha256 = ramsift_driver::certify::bundle::fingerprint(&args.dir.out)
+                .with_context(|| format!("reading {}/manifest.json", args.dir.out.display()))?;
             if args.json {
                 let plan = Plan::read(&args.plan)?;
                 let record = ShardMergeRecord {
@@ -177,6 +179,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
                     trace_bytes: report.trace_bytes,
                     composed_trace: report.composed_trace,
                     files: report.files,
+                    manifest_sha256,
                 };
                 print_record(record, "refuted", exit_codes::NONE_EXISTS)?;
                 return Ok(exit_codes::NONE_EXISTS);
@@ -191,6 +194,7 @@ pub fn run(command: &ShardCommand) -> Result<u8> {
             if let Some(t) = report.composed_trace {
                 println!("composed single trace {}", t.display());
             }
+            println!("fingerprint (SHA-256 of manifest.json): {manifest_sha256}");
             println!(
                 "check with: ramsift-check bundle {}",
                 args.dir.out.display()

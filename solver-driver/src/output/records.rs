@@ -252,6 +252,8 @@ pub struct RefutedRecord {
     pub seconds: f64,
     pub proof_bytes: u64,
     pub files: Vec<PathBuf>,
+    /// The SHA-256 of manifest.json: the bundle's fingerprint.
+    pub manifest_sha256: String,
     /// With minimality: the hooked search's counters.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub search: Option<crate::certify::refute::SearchAccount>,
@@ -324,6 +326,8 @@ pub struct ShardMergeRecord {
     pub trace_bytes: u64,
     pub composed_trace: Option<PathBuf>,
     pub files: Vec<PathBuf>,
+    /// The SHA-256 of manifest.json: the bundle's fingerprint.
+    pub manifest_sha256: String,
 }
 
 /// Any command that failed, under `--json`.
