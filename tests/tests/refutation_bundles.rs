@@ -221,3 +221,55 @@ fn refute_merge_and_the_checker_print_the_same_fingerprint() {
     );
     assert_eq!(run("ramsift-check", &["bundle", m, "--json"]), fingerprint);
 }
+
+#[test]
+fn bundles_and_witnesses_say_how_they_were_made() {
+    // R(3,3) = 6 (Greenwood & Gleason 1955): a bundle at 6, a witness at 5.
+    let dir = tempfile::tempdir().unwrap();
+    let ramsift = |args: &[&str]| {
+        std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
+            .args(args)
+            .output()
+            .unwrap()
+            .status
+            .code()
+    };
+    let (bundle, witness) = (dir.path().join("b"), dir.path().join("w"));
+    assert_eq!(
+        ramsift(&[
+            "refute",
+            "3,3",
+            "6",
+            "-q",
+            "--out",
+            bundle.to_str().unwrap()
+        ]),
+        Some(20)
+    );
+    assert_eq!(
+        ramsift(&["find", "3,3", "5", "-q", "--out", witness.to_str().unwrap()]),
+        Some(10)
+    );
+    let json = |path: &std::path::Path| -> serde_json::Value {
+        serde_json::from_str(&std::fs::read_to_string(path).unwrap()).unwrap()
+    };
+    for (record, command) in [
+        (json(&bundle.join("manifest.json")), "refute"),
+        (json(&witness.join("summary.json")), "find"),
+    ] {
+        let p = &record["provenance"];
+        assert_eq!(p["command_line"][1], command, "{p}");
+        assert_eq!(p["version"], env!("CARGO_PKG_VERSION"));
+        assert!(p["date_utc"].as_str().unwrap().ends_with('Z'), "{p}");
+        assert!(
+            p["cores"].as_u64().unwrap() >= 1 && !p["source_revision"].as_str().unwrap().is_empty()
+        );
+    }
+    let text = std::fs::read_to_string(witness.join("witness.colouring")).unwrap();
+    assert!(
+        text.lines().any(|l| l.starts_with("# made by ramsift ")),
+        "{text}"
+    );
+    let parsed = ramsift_checker::colouring_file::parse_colouring_file("w", &text).unwrap();
+    assert!(ramsift_checker::check_colouring(&parsed.matrix, &parsed.claim).is_valid());
+}

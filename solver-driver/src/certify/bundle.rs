@@ -27,6 +27,8 @@ pub struct Manifest {
     pub tool: String,
     pub solver: String,
     pub solve_seconds: f64,
+    /// The command, version, revision, date and machine of the run that wrote it.
+    pub provenance: super::provenance::Provenance,
     pub files: Vec<FileRecord>,
     /// For a sharded refutation: the coverage tree of the cubes.
     #[serde(skip_serializing_if = "Option::is_none")]
@@ -187,6 +189,7 @@ impl Manifest {
             }
             .to_string(),
             solve_seconds,
+            provenance: super::provenance::Provenance::of_this_run(),
             files,
             sharding,
         }

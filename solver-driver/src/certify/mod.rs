@@ -6,9 +6,11 @@
 //! * [`bundle`] builds the one manifest every certificate bundle carries and writes
 //!   the bundle; [`referee_guide`] writes its REFEREE.txt.
 //! * [`drat_write`] writes binary DRAT steps.
+//! * [`provenance`] records where and how a certificate or witness was made.
 
 pub mod bundle;
 pub mod drat_write;
+pub mod provenance;
 pub mod referee_guide;
 pub mod refute;
 pub mod witness_check;

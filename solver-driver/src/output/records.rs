@@ -80,6 +80,8 @@ pub struct FindSummary {
     /// The colouring found, as matrix rows ([`colouring_rows`]).
     pub colouring: Option<Vec<Vec<u8>>>,
     pub files: Vec<PathBuf>,
+    /// The command, version, revision, date and machine of the run.
+    pub provenance: crate::certify::provenance::Provenance,
 }
 
 impl FindSummary {
@@ -129,6 +131,7 @@ impl FindSummary {
                 .map(|(c, _)| colour_one_graph6(c)),
             colouring: found.map(|(c, _)| colouring_rows(c)),
             files: Vec::new(),
+            provenance: crate::certify::provenance::Provenance::of_this_run(),
         }
     }
 }

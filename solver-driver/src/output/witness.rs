@@ -87,7 +87,9 @@ pub fn write_witness_files(
     ensure_dir(dir)?;
     let mut written = Vec::new();
     let path = dir.join(COLOURING_FILE);
-    let text = colouring_text(instance, colouring, comments);
+    let made = crate::certify::provenance::Provenance::of_this_run().line();
+    let comments: Vec<String> = comments.iter().cloned().chain([made]).collect();
+    let text = colouring_text(instance, colouring, &comments);
     write_atomically(&path, |w| w.write_all(text.as_bytes()))?;
     written.push(path);
     if instance.colours() == 2 {
