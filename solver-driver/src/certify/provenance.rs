@@ -22,7 +22,9 @@ impl Provenance {
         Provenance {
             command_line: std::env::args().collect(),
             version: env!("CARGO_PKG_VERSION").to_string(),
-            source_revision: option_env!("RAMSIFT_SOURCE_REVISION").unwrap_or("unknown").to_string(),
+            source_revision: option_env!("RAMSIFT_SOURCE_REVISION")
+                .unwrap_or("unknown")
+                .to_string(),
             date_utc: utc_now(),
             cpu: cpu_model(),
             cores: std::thread::available_parallelism().map_or(1, |n| n.get()),
