@@ -40,9 +40,9 @@ impl ClauseIndex {
         (hash as usize) & (self.buckets.len() - 1)
     }
 
-    /// Indexes clause `id` (ids grow by one) with literals `lits`.
-    pub(crate) fn insert(&mut self, id: u32, lits: &[u32]) {
-        let bucket = self.bucket(self.hash(lits));
+    /// Indexes clause `id` (ids grow by one) under the `hash` of its literals.
+    pub(crate) fn insert(&mut self, id: u32, hash: u64) {
+        let bucket = self.bucket(hash);
         self.older.resize(id as usize + 1, NONE);
         (self.older[id as usize], self.buckets[bucket]) = (self.buckets[bucket], id);
     }

@@ -419,13 +419,14 @@ impl Checker {
         for clause in cnf.clauses() {
             fill_key(&mut key, clause.iter().copied());
             let id = self.add_clause(&key, None);
-            index.insert(id, self.lits(id));
+            index.insert(id, index.hash(&key));
         }
         let mut records = Vec::new();
         let mut empty_lemma: Option<u32> = None;
         for (step, (kind, literals, _)) in proof.iter().enumerate() {
             fill_key(&mut key, literals.iter().map(|&l| vars.dense(l)));
-            let found = index.find(index.hash(&key), |id| self.same_active(id, &key));
+            let hash = index.hash(&key);
+            let found = index.find(hash, |id| self.same_active(id, &key));
             match (kind, found) {
                 (StepKind::Add, Some(id)) => {
                     report.lemmas += 1;
@@ -435,7 +436,7 @@ impl Checker {
                 (StepKind::Add, None) => {
                     report.lemmas += 1;
                     let id = self.add_clause(&key, literals.first().map(|&l| code(vars.dense(l))));
-                    index.insert(id, self.lits(id));
+                    index.insert(id, hash);
                     records.push(Record::Add(id, step as u32));
                     if literals.is_empty() {
                         empty_lemma = Some(id);
