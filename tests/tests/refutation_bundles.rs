@@ -179,61 +179,66 @@ fn the_trace_size_is_counted_while_it_is_written() {
     assert_eq!(seen.load(std::sync::atomic::Ordering::Relaxed), proof_bytes);
 }
 
+/// Runs one of the workspace's binaries with `args`.
+fn run(program: &str, args: &[&str]) -> std::process::Output {
+    std::process::Command::new(ramsift_tests::binaries::workspace_binary(program))
+        .args(args)
+        .output()
+        .unwrap()
+}
+
 #[test]
 fn refute_merge_and_the_checker_print_the_same_fingerprint() {
     // R(3,3) = 6 (Greenwood & Gleason 1955). The fingerprint is the SHA-256 of
     // manifest.json, which lists the SHA-256 of every other file.
     let dir = tempfile::tempdir().unwrap();
     let bundle = dir.path().join("b");
-    let run = |program: &str, args: &[&str]| {
-        let o = std::process::Command::new(ramsift_tests::binaries::workspace_binary(program))
-            .args(args)
-            .output()
-            .unwrap();
-        let value: serde_json::Value = serde_json::from_slice(&o.stdout).expect("one JSON record");
+    let fingerprint_of = |program: &str, args: &[&str]| {
+        let value: serde_json::Value =
+            serde_json::from_slice(&run(program, args).stdout).expect("one JSON record");
         value["manifest_sha256"]
             .as_str()
             .expect("a fingerprint")
             .to_string()
     };
     let b = bundle.to_str().unwrap();
-    let refuted = run("ramsift", &["refute", "3,3", "6", "--out", b, "--json"]);
+    let refuted = fingerprint_of("ramsift", &["refute", "3,3", "6", "--out", b, "--json"]);
     assert_eq!(
         refuted,
         ramsift_tests::bundle_files::sha256_of(&bundle.join("manifest.json"))
     );
-    assert_eq!(run("ramsift-check", &["bundle", b, "--json"]), refuted);
+    assert_eq!(
+        fingerprint_of("ramsift-check", &["bundle", b, "--json"]),
+        refuted
+    );
     let plan = dir.path().join("plan");
     let merged = dir.path().join("merged");
     let (p, m) = (plan.to_str().unwrap(), merged.to_str().unwrap());
-    let planned = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
-        .args(["shard", "plan", "3,3", "6", "--shards", "2", "--out", p])
-        .output();
-    assert_eq!(planned.unwrap().status.code(), Some(0));
-    let local = std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
-        .args(["shard", "local", p])
-        .output();
-    assert_eq!(local.unwrap().status.code(), Some(0));
-    let fingerprint = run("ramsift", &["shard", "merge", p, "--out", m, "--json"]);
+    let planned = run(
+        "ramsift",
+        &["shard", "plan", "3,3", "6", "--shards", "2", "--out", p],
+    );
+    assert_eq!(planned.status.code(), Some(0));
+    assert_eq!(
+        run("ramsift", &["shard", "local", p]).status.code(),
+        Some(0)
+    );
+    let fingerprint = fingerprint_of("ramsift", &["shard", "merge", p, "--out", m, "--json"]);
     assert_eq!(
         fingerprint,
         ramsift_tests::bundle_files::sha256_of(&merged.join("manifest.json"))
     );
-    assert_eq!(run("ramsift-check", &["bundle", m, "--json"]), fingerprint);
+    assert_eq!(
+        fingerprint_of("ramsift-check", &["bundle", m, "--json"]),
+        fingerprint
+    );
 }
 
 #[test]
 fn bundles_and_witnesses_say_how_they_were_made() {
     // R(3,3) = 6 (Greenwood & Gleason 1955): a bundle at 6, a witness at 5.
     let dir = tempfile::tempdir().unwrap();
-    let ramsift = |args: &[&str]| {
-        std::process::Command::new(ramsift_tests::binaries::workspace_binary("ramsift"))
-            .args(args)
-            .output()
-            .unwrap()
-            .status
-            .code()
-    };
+    let ramsift = |args: &[&str]| run("ramsift", args).status.code();
     let (bundle, witness) = (dir.path().join("b"), dir.path().join("w"));
     assert_eq!(
         ramsift(&[
