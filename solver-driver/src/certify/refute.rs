@@ -188,7 +188,6 @@ fn refute_hooked(
             let parts = BundleParts {
                 trace,
                 certificate: Some(certificate),
-                solver: HOOKED_SOLVER_NAME,
                 solve_seconds,
                 proof_bytes: run.proof_bytes,
             };
@@ -229,7 +228,6 @@ fn refute_with_varisat(
             let parts = BundleParts {
                 trace,
                 certificate: None,
-                solver: crate::SOLVER_NAME,
                 solve_seconds,
                 proof_bytes: report.proof_bytes,
             };
@@ -273,12 +271,11 @@ fn checked_colouring(
 
 pub use crate::HOOKED_SOLVER_NAME;
 
-/// The finished temporary files of a refutation, the solver that made them and
-/// what it took.
+/// The finished temporary files of a refutation and what it took (the solver
+/// that made them follows from the symmetry schemes: `Manifest::new` names it).
 struct BundleParts {
     trace: tempfile::NamedTempFile,
     certificate: Option<tempfile::NamedTempFile>,
-    solver: &'static str,
     solve_seconds: f64,
     proof_bytes: u64,
 }
@@ -333,8 +330,7 @@ fn write_refutation_bundle(
         );
         written.push(path);
     }
-    let mut manifest = Manifest::new(encoding, files, solve_seconds, None);
-    manifest.solver = parts.solver.to_string();
+    let manifest = Manifest::new(encoding, files, solve_seconds, None);
     written.extend(write_manifest_and_guide(dir, &manifest).map_err(io_error)?);
     Ok((written, manifest))
 }
